@@ -1,0 +1,35 @@
+import { defineConfig } from "vitest/config";
+import react from "@vitejs/plugin-react";
+import { fileURLToPath, URL } from "node:url";
+
+const alias = {
+  "@": fileURLToPath(new URL("./src", import.meta.url)),
+  "@engine": fileURLToPath(new URL("./workers/engine", import.meta.url)),
+};
+
+export default defineConfig({
+  test: {
+    projects: [
+      {
+        plugins: [react()],
+        resolve: { alias },
+        test: {
+          name: "client",
+          environment: "jsdom",
+          include: ["src/**/*.test.{ts,tsx}"],
+          setupFiles: ["src/testing/setup.ts"],
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "server",
+          environment: "node",
+          include: ["server/**/*.test.ts", "workers/**/*.test.ts", "scripts/**/*.test.ts"],
+          testTimeout: 20000,
+          hookTimeout: 30000,
+        },
+      },
+    ],
+  },
+});

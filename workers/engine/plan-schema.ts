@@ -1,0 +1,147 @@
+/**
+ * The one schema for a survey plan: candidate ground models, the spread and the
+ * acceptance criteria. Shared by the client forms, the server API, the worker and the
+ * command line. All quantities are SI: metres, seconds, metres per second, degrees.
+ *
+ * Geometry convention: positions are metres along the survey line. Depths are metres
+ * below the (flat) ground surface. A layer's `thickness` is its vertical thickness at the
+ * line's reference position 0 m. `dip` is the dip of the layer's *base* interface in
+ * degrees, positive when the interface deepens towards increasing position.
+ */
+import { z } from "zod";
+
+export const MAX_LAYERS = 12;
+export const MAX_MODELS = 8;
+export const MAX_SHOTS = 25;
+export const MAX_CHANNELS = 1024;
+
+const finite = (label: string) =>
+  z.number({ error: `${label} must be a number` }).refine(Number.isFinite, {
+    message: `${label} must be a finite number`,
+  });
+
+const positive = (label: string) => finite(label).refine((v) => v > 0, `${label} must be > 0`);
+
+const range = (label: string) =>
+  z
+    .tuple([positive(`${label} lower bound`), positive(`${label} upper bound`)])
+    .refine(([lo, hi]) => lo <= hi, `${label} lower bound must not exceed the upper bound`);
+
+export const layerSchema = z.strictObject({
+  /** Free label, e.g. "dry sand". */
+  name: z.string().trim().max(80).optional(),
+  /** Optional material key from the velocity table (see material picker). */
+  material: z.string().trim().max(40).optional(),
+  /** P-wave velocity, m/s. */
+  velocity: positive("velocity").refine((v) => v <= 10000, "velocity must be at most 10000 m/s"),
+  /** Vertical thickness at position 0, m. Omitted (or null) for the last layer (half-space). */
+  thickness: positive("thickness")
+    .refine((v) => v <= 1000, "thickness must be at most 1000 m")
+    .nullable()
+    .optional(),
+  /** Dip of the layer's base interface, degrees, positive deepening towards +position. */
+  dip: finite("dip")
+    .refine((v) => Math.abs(v) <= 45, "dip must be between -45 and 45 degrees")
+    .optional(),
+  /** Optional bounds used by the design sweep. */
+  velocityRange: range("velocity range").optional(),
+  thicknessRange: range("thickness range").optional(),
+});
+
+export const groundModelSchema = z
+  .strictObject({
+    name: z.string().trim().min(1, "model name is required").max(80),
+    layers: z
+      .array(layerSchema)
+      .min(1, "a model needs at least one layer")
+      .max(MAX_LAYERS, `a model has at most ${MAX_LAYERS} layers`),
+  })
+  .superRefine((model, ctx) => {
+    model.layers.forEach((layer, i) => {
+      const last = i === model.layers.length - 1;
+      if (!last && (layer.thickness === undefined || layer.thickness === null)) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["layers", i, "thickness"],
+          message: `layer ${i + 1} needs a thickness (only the last layer is a half-space)`,
+        });
+      }
+      if (last && layer.dip !== undefined && layer.dip !== 0) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["layers", i, "dip"],
+          message: "the last layer is a half-space and has no base to dip",
+        });
+      }
+    });
+  });
+
+export const shotSchema = z.strictObject({
+  /** Shot position along the line, m. */
+  position: finite("shot position"),
+  label: z.string().trim().max(40).optional(),
+});
+
+export const spreadSchema = z.strictObject({
+  /** Geophone spacing, m. */
+  spacing: positive("spacing").refine((v) => v <= 500, "spacing must be at most 500 m"),
+  /** Number of geophones (channels). */
+  channels: z
+    .number({ error: "channels must be a number" })
+    .int("channels must be a whole number")
+    .min(1, "channels must be at least 1")
+    .max(MAX_CHANNELS, `channels must be at most ${MAX_CHANNELS}`),
+  /** Position of the first geophone along the line, m. */
+  firstGeophone: finite("first geophone position"),
+  shots: z
+    .array(shotSchema)
+    .min(1, "a spread needs at least one shot")
+    .max(MAX_SHOTS, `a spread has at most ${MAX_SHOTS} shots`),
+});
+
+export const criteriaSchema = z.strictObject({
+  /** Fewest geophones a refractor's first-arrival segment must hold to count as resolved. */
+  minGeophones: z
+    .number({ error: "minimum geophones must be a number" })
+    .int("minimum geophones must be a whole number")
+    .min(2, "minimum geophones must be at least 2")
+    .max(50, "minimum geophones must be at most 50")
+    .default(2),
+  /** Standard deviation of a first-break pick, s. */
+  pickError: finite("pick error")
+    .refine((v) => v >= 0 && v <= 0.1, "pick error must be between 0 and 0.1 s")
+    .default(0.0005),
+  /** Largest acceptable depth error or uncertainty, m. */
+  depthTolerance: positive("depth tolerance").default(1),
+});
+
+export const planSchema = z.strictObject({
+  /** Format version of this document. */
+  format: z.literal("spreadsight-plan/1").default("spreadsight-plan/1"),
+  name: z.string().trim().min(1, "plan name is required").max(120).default("Untitled plan"),
+  models: z
+    .array(groundModelSchema)
+    .min(1, "a plan needs at least one ground model")
+    .max(MAX_MODELS, `a plan has at most ${MAX_MODELS} ground models`),
+  spread: spreadSchema,
+  criteria: criteriaSchema.default({ minGeophones: 2, pickError: 0.0005, depthTolerance: 1 }),
+});
+
+export type Layer = z.infer<typeof layerSchema>;
+export type GroundModel = z.infer<typeof groundModelSchema>;
+export type Shot = z.infer<typeof shotSchema>;
+export type Spread = z.infer<typeof spreadSchema>;
+export type Criteria = z.infer<typeof criteriaSchema>;
+export type Plan = z.infer<typeof planSchema>;
+/** A plan as written by hand or sent by a form, before defaults are applied. */
+export type PlanInput = z.input<typeof planSchema>;
+
+/** One line per problem, each naming the field path, e.g. `models[0].layers[2].velocity: …`. */
+export function describePlanIssues(error: z.ZodError): string[] {
+  return error.issues.map((issue) => {
+    const path = issue.path
+      .map((part, i) => (typeof part === "number" ? `[${part}]` : `${i === 0 ? "" : "."}${String(part)}`))
+      .join("");
+    return `${path || "(plan)"}: ${issue.message}`;
+  });
+}
