@@ -10,7 +10,10 @@ export default tseslint.config(
   {
     languageOptions: { globals: { ...globals.browser, ...globals.node } },
     rules: {
-      "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_" }],
+      "@typescript-eslint/no-unused-vars": [
+        "error",
+        { argsIgnorePattern: "^_", varsIgnorePattern: "^_" },
+      ],
       "@typescript-eslint/no-explicit-any": "error",
     },
   },
@@ -28,7 +31,9 @@ export default tseslint.config(
     rules: {
       "no-restricted-imports": [
         "error",
-        { patterns: ["react", "react-dom", "d3", "d3-*", "comlink", "typeorm", "node:*", "express"] },
+        {
+          patterns: ["react", "react-dom", "d3", "d3-*", "comlink", "typeorm", "node:*", "express"],
+        },
       ],
       "no-console": "error",
     },

@@ -1,0 +1,30 @@
+import { describe, expect, it } from "vitest";
+import { screen, within } from "@testing-library/react";
+import { renderWithApp, testMe } from "@/testing/render";
+import type { Role } from "@/contracts/common";
+import { AppLayout } from "../layout";
+
+const expectedNav: Record<Role, string[]> = {
+  admin: ["Sites", "Team", "Mailbox", "Settings"],
+  lead: ["Sites", "Settings"],
+  reviewer: ["Sites", "Settings"],
+  trainee: ["Sites", "Settings"],
+};
+
+describe("AppLayout navigation", () => {
+  for (const role of Object.keys(expectedNav) as Role[]) {
+    it(`shows a ${role} only what the role may use`, () => {
+      renderWithApp(<AppLayout />, { me: testMe({ role }) });
+      const nav = screen.getByRole("navigation", { name: "Main" });
+      const labels = within(nav)
+        .getAllByRole("link")
+        .map((link) => link.textContent);
+      expect(labels).toEqual(expectedNav[role]);
+    });
+  }
+
+  it("hides the mailbox from an admin when the server is not in demo mode", () => {
+    renderWithApp(<AppLayout />, { me: testMe({ role: "admin", demo: false }) });
+    expect(screen.queryByRole("link", { name: "Mailbox" })).toBeNull();
+  });
+});

@@ -1,0 +1,13 @@
+/** Every route path of the client, in one place. */
+export const paths = {
+  signIn: "/sign-in",
+  forgot: "/forgot-password",
+  reset: (token = ":token") => `/reset/${token}`,
+  invite: (token = ":token") => `/invite/${token}`,
+  home: "/",
+  sites: "/sites",
+  site: (id = ":siteId") => `/sites/${id}`,
+  team: "/team",
+  mailbox: "/mailbox",
+  settings: "/settings",
+} as const;

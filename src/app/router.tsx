@@ -1,0 +1,57 @@
+import { createBrowserRouter, Navigate, type RouteObject } from "react-router-dom";
+import { can } from "@/contracts/common";
+import { SignInPage } from "@/features/auth/components/sign-in-page";
+import { ForgotPasswordPage, ResetPasswordPage } from "@/features/auth/components/password-pages";
+import { AcceptInvitationPage } from "@/features/auth/components/accept-invitation-page";
+import { SitesPage } from "@/features/sites/components/sites-page";
+import { SitePage } from "@/features/sites/components/site-page";
+import { TeamPage } from "@/features/team/components/team-page";
+import { MailboxPage } from "@/features/mailbox/components/mailbox-page";
+import { SettingsPage } from "@/features/settings/components/settings-page";
+import { AppLayout } from "./layout";
+import { RequireAuth, RequireRole } from "./guards";
+import { paths } from "./paths";
+import { NotFoundPage } from "./not-found";
+
+/** Routes shown inside the signed-in frame. Features add theirs here. */
+export const appRoutes: RouteObject[] = [
+  { index: true, element: <Navigate to={paths.sites} replace /> },
+  { path: paths.sites, element: <SitesPage /> },
+  { path: paths.site(), element: <SitePage /> },
+  {
+    path: paths.team,
+    element: (
+      <RequireRole allow={(me) => can.manageTeam(me.role)}>
+        <TeamPage />
+      </RequireRole>
+    ),
+  },
+  {
+    path: paths.mailbox,
+    element: (
+      <RequireRole allow={(me) => can.readMailbox(me.role) && me.demo}>
+        <MailboxPage />
+      </RequireRole>
+    ),
+  },
+  { path: paths.settings, element: <SettingsPage /> },
+  { path: "*", element: <NotFoundPage /> },
+];
+
+export const routes: RouteObject[] = [
+  { path: paths.signIn, element: <SignInPage /> },
+  { path: paths.forgot, element: <ForgotPasswordPage /> },
+  { path: paths.reset(), element: <ResetPasswordPage /> },
+  { path: paths.invite(), element: <AcceptInvitationPage /> },
+  {
+    path: "/",
+    element: (
+      <RequireAuth>
+        <AppLayout />
+      </RequireAuth>
+    ),
+    children: appRoutes,
+  },
+];
+
+export const createRouter = () => createBrowserRouter(routes);

@@ -1,0 +1,66 @@
+import { describe, expect, it } from "vitest";
+import { screen, waitFor } from "@testing-library/react";
+import userEvent from "@testing-library/user-event";
+import { renderWithApp, stubFetch, testMe } from "@/testing/render";
+import type { SiteSummary } from "@/contracts/sites";
+import { SitesPage } from "../sites-page";
+
+const site: SiteSummary = {
+  id: "11111111-1111-4111-8111-111111111111",
+  name: "Quarry Lane cut",
+  description: "Weathered sandstone under clayey fill.",
+  archived: false,
+  createdBy: "Test Lead",
+  createdAt: "2026-11-02T10:00:00.000Z",
+  updatedAt: "2026-11-02T10:00:00.000Z",
+  planCount: 2,
+};
+
+describe("SitesPage", () => {
+  it("lists sites with their plan counts", async () => {
+    stubFetch({ "GET /api/sites?archived=false": () => ({ status: 200, body: [site] }) });
+    renderWithApp(<SitesPage />);
+    expect(await screen.findByRole("link", { name: "Quarry Lane cut" })).toBeInTheDocument();
+    expect(screen.getByText(/2 plans/)).toBeInTheDocument();
+  });
+
+  it("hides the editing controls from a reviewer", async () => {
+    stubFetch({ "GET /api/sites?archived=false": () => ({ status: 200, body: [site] }) });
+    renderWithApp(<SitesPage />, { me: testMe({ role: "reviewer" }) });
+    await screen.findByRole("link", { name: "Quarry Lane cut" });
+    expect(screen.queryByRole("button", { name: "New site" })).toBeNull();
+    expect(screen.queryByRole("button", { name: /Rename/ })).toBeNull();
+  });
+
+  it("refuses an empty name inline and creates a site with a valid one", async () => {
+    let listed: SiteSummary[] = [];
+    const calls = stubFetch({
+      "GET /api/sites?archived=false": () => ({ status: 200, body: listed }),
+      "POST /api/sites": (body) => {
+        const created = {
+          ...site,
+          ...(body as object),
+          id: "22222222-2222-4222-8222-222222222222",
+          planCount: 0,
+        };
+        listed = [created];
+        return { status: 201, body: created };
+      },
+    });
+    renderWithApp(<SitesPage />);
+    await screen.findByText("No sites yet");
+    await userEvent.click(screen.getByRole("button", { name: "New site" }));
+    await userEvent.click(screen.getByRole("button", { name: "Create site" }));
+    expect(await screen.findByText("name is required")).toBeInTheDocument();
+    await userEvent.type(screen.getByLabelText("Site name"), "Mill Brook landfill cell");
+    await userEvent.click(screen.getByRole("button", { name: "Create site" }));
+    expect(
+      await screen.findByRole("link", { name: "Mill Brook landfill cell" }),
+    ).toBeInTheDocument();
+    await waitFor(() => expect(calls.filter((c) => c.method === "POST")).toHaveLength(1));
+    expect(calls.find((c) => c.method === "POST")?.body).toEqual({
+      name: "Mill Brook landfill cell",
+      description: "",
+    });
+  });
+});
