@@ -1,0 +1,98 @@
+import { describe, expect, it } from "vitest";
+import fc from "fast-check";
+import {
+  formatInput,
+  formatQuantity,
+  fromDisplay,
+  localiseMessage,
+  METRES_PER_FOOT,
+  parseInput,
+  toDisplay,
+  unitLabel,
+} from "../units";
+
+describe("units", () => {
+  it("converts metres to feet with the international foot (1 ft = 0.3048 m exactly, NIST SP 811)", () => {
+    expect(toDisplay("length", 0.3048, "imperial")).toBeCloseTo(1, 12);
+    expect(toDisplay("length", 100, "imperial")).toBeCloseTo(328.083989501, 8);
+    expect(METRES_PER_FOOT).toBe(0.3048);
+  });
+
+  it("converts velocities the same way (m/s ↔ ft/s)", () => {
+    expect(toDisplay("velocity", 1500, "imperial")).toBeCloseTo(4921.2598425, 6);
+    expect(fromDisplay("velocity", 5000, "imperial")).toBeCloseTo(1524, 9);
+  });
+
+  it("leaves metric values alone and shows times in milliseconds in both systems", () => {
+    expect(toDisplay("length", 12.5, "metric")).toBe(12.5);
+    expect(toDisplay("time", 0.0125, "metric")).toBeCloseTo(12.5, 12);
+    expect(toDisplay("time", 0.0125, "imperial")).toBeCloseTo(12.5, 12);
+    expect(fromDisplay("time", 0.5, "imperial")).toBeCloseTo(0.0005, 12);
+    expect(toDisplay("angle", 7, "imperial")).toBe(7);
+  });
+
+  it("round-trips any finite value through the display units", () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom("length", "velocity", "time", "angle" as const),
+        fc.constantFrom("metric", "imperial" as const),
+        fc.double({ min: -1e6, max: 1e6, noNaN: true }),
+        (q, system, v) => {
+          const back = fromDisplay(q, toDisplay(q, v, system), system);
+          expect(Math.abs(back - v)).toBeLessThanOrEqual(1e-9 * Math.max(1, Math.abs(v)));
+        },
+      ),
+    );
+  });
+
+  it("names the unit for each quantity and system", () => {
+    expect(unitLabel("length", "metric")).toBe("m");
+    expect(unitLabel("length", "imperial")).toBe("ft");
+    expect(unitLabel("velocity", "metric")).toBe("m/s");
+    expect(unitLabel("velocity", "imperial")).toBe("ft/s");
+    expect(unitLabel("time", "imperial")).toBe("ms");
+  });
+
+  it("formats a value with its unit and never prints NaN", () => {
+    expect(formatQuantity("length", 3.048, "imperial")).toBe("10.00 ft");
+    expect(formatQuantity("velocity", 1500, "metric")).toBe("1,500 m/s");
+    expect(formatQuantity("time", 0.0021, "metric")).toBe("2.10 ms");
+    expect(formatQuantity("length", Number.NaN, "metric")).toBe("—");
+    expect(formatQuantity("length", null, "metric")).toBe("—");
+    expect(formatQuantity("angle", 4, "metric")).toBe("4.0°");
+  });
+
+  it("parses typed input into SI: empty is undefined, junk is NaN, commas are refused", () => {
+    expect(parseInput("length", "10", "imperial")).toBeCloseTo(3.048, 12);
+    expect(parseInput("length", " 2.5 ", "metric")).toBe(2.5);
+    expect(parseInput("length", "", "metric")).toBeUndefined();
+    expect(parseInput("length", "  ", "metric")).toBeUndefined();
+    expect(parseInput("velocity", "1,500", "metric")).toBeNaN();
+    expect(parseInput("velocity", "fast", "metric")).toBeNaN();
+    expect(parseInput("angle", "-4", "metric")).toBe(-4);
+    expect(parseInput("time", "0.5", "metric")).toBeCloseTo(0.0005, 12);
+  });
+
+  it("fills an input box with a short, exact-looking number", () => {
+    expect(formatInput("length", 3.048, "imperial")).toBe("10");
+    expect(formatInput("length", 2.5, "metric")).toBe("2.5");
+    expect(formatInput("velocity", 1524, "imperial")).toBe("5000");
+    expect(formatInput("length", undefined, "metric")).toBe("");
+    expect(formatInput("time", 0.0005, "metric")).toBe("0.5");
+  });
+
+  it("adds the feet figure to SI limits in messages for an imperial user only", () => {
+    expect(localiseMessage("velocity must be at most 10000 m/s", "imperial")).toBe(
+      "velocity must be at most 10000 m/s (32808 ft/s)",
+    );
+    expect(localiseMessage("thickness must be at most 1000 m", "imperial")).toBe(
+      "thickness must be at most 1000 m (3280.8 ft)",
+    );
+    expect(localiseMessage("velocity must be at most 10000 m/s", "metric")).toBe(
+      "velocity must be at most 10000 m/s",
+    );
+    expect(localiseMessage("dip must be between -45 and 45 degrees", "imperial")).toBe(
+      "dip must be between -45 and 45 degrees",
+    );
+  });
+});
