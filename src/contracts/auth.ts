@@ -42,6 +42,9 @@ export interface MeResponse {
   preferences: Preferences;
   /** True when the server runs in demo mode (fake mailbox available to admins). */
   demo: boolean;
+  /** True when the built-in fake mailbox catches outgoing e-mail (no SMTP_URL set); admins may
+   * then read it at GET /api/mailbox. Usually equal to `demo`. Always sent by the server. */
+  mailbox?: boolean;
 }
 
 export interface InvitationSummary {
@@ -60,3 +63,6 @@ export interface InvitationPreview {
   teamName: string;
   expiresAt: string;
 }
+
+/** POST /api/auth/sign-out takes no fields (an empty body or `{}`). */
+export const signOutSchema = z.strictObject({});

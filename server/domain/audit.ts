@@ -1,0 +1,52 @@
+/** The audit trail: one row per sign-in, invitation, membership change and site change. */
+import { randomUUID } from "node:crypto";
+import type { DataSource, EntityManager } from "typeorm";
+import type { AuditEventSummary } from "@/contracts/audit";
+import { AuditEvent, type AuditDetail } from "../data/entities/audit-event";
+import type { Actor } from "./actor";
+
+export interface AuditEntry {
+  teamId: string;
+  actorId: string | null;
+  action: string;
+  targetType: string;
+  targetId?: string | null;
+  detail?: AuditDetail;
+}
+
+/** Inserts an audit row with `manager`, so it commits or rolls back with the change it records. */
+export async function recordAudit(manager: EntityManager, entry: AuditEntry): Promise<void> {
+  await manager.getRepository(AuditEvent).insert({
+    id: randomUUID(),
+    teamId: entry.teamId,
+    actorId: entry.actorId,
+    action: entry.action,
+    targetType: entry.targetType,
+    targetId: entry.targetId ?? null,
+    detail: entry.detail ?? {},
+    createdAt: new Date(),
+  });
+}
+
+/** The actor's team's events, newest first. */
+export async function listAudit(
+  dataSource: DataSource,
+  actor: Actor,
+  limit: number,
+): Promise<AuditEventSummary[]> {
+  const rows = await dataSource.getRepository(AuditEvent).find({
+    where: { teamId: actor.teamId },
+    relations: { actor: true },
+    order: { createdAt: "DESC", id: "ASC" },
+    take: limit,
+  });
+  return rows.map((row) => ({
+    id: row.id,
+    action: row.action,
+    actor: row.actor ? { id: row.actor.id, name: row.actor.name } : null,
+    targetType: row.targetType,
+    targetId: row.targetId,
+    detail: row.detail,
+    createdAt: row.createdAt.toISOString(),
+  }));
+}

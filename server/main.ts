@@ -1,0 +1,87 @@
+/**
+ * Command-line entry: `node --import tsx server/main.ts [--demo]` (npm start / npm run demo).
+ *
+ * Environment: PORT (3000), HOST (127.0.0.1), SPREADSIGHT_DB (./data/spreadsight.sqlite),
+ * SMTP_URL (unset: built-in fake mailbox), MAIL_FROM, PUBLIC_URL (http://HOST:PORT),
+ * SPREADSIGHT_DEMO=1 (same as --demo), TRUST_PROXY, LOG_LEVEL (info).
+ */
+import { resolve } from "node:path";
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "./data/seed-demo";
+import { createLogger } from "./logger";
+import { startServer } from "./start";
+
+function parsePort(value: string | undefined): number {
+  if (value === undefined || value === "") return 3000;
+  const port = Number(value);
+  if (!Number.isInteger(port) || port < 0 || port > 65535) {
+    throw new Error(`PORT must be a whole number from 0 to 65535, got "${value}"`);
+  }
+  return port;
+}
+
+function parseTrustProxy(value: string | undefined): boolean | number | string {
+  if (value === undefined || value === "" || value === "0" || value === "false") return false;
+  if (value === "1" || value === "true") return true;
+  return /^\d+$/.test(value) ? Number(value) : value;
+}
+
+async function main(): Promise<void> {
+  const env = process.env;
+  const demo = process.argv.includes("--demo") || env.SPREADSIGHT_DEMO === "1";
+  const logger = createLogger();
+  const dbPath = resolve(env.SPREADSIGHT_DB || "data/spreadsight.sqlite");
+  const server = await startServer({
+    dbPath,
+    port: parsePort(env.PORT),
+    host: env.HOST || "127.0.0.1",
+    demo,
+    serveClient: true,
+    smtpUrl: env.SMTP_URL || null,
+    mailFrom: env.MAIL_FROM || undefined,
+    publicUrl: env.PUBLIC_URL || undefined,
+    trustProxy: parseTrustProxy(env.TRUST_PROXY),
+    logger,
+  });
+
+  const lines = [
+    "",
+    `Spreadsight is running at ${server.url}`,
+    `  database: ${dbPath}`,
+    `  e-mail:   ${server.mailbox ? "built-in fake mailbox (admins: Mailbox page)" : "SMTP_URL"}`,
+  ];
+  if (server.publicUrl !== server.url) lines.push(`  links in e-mails use ${server.publicUrl}`);
+  if (demo) {
+    lines.push(
+      server.seeded ? "  demo data: created" : "  demo data: already present",
+      `  demo accounts (password "${DEMO_PASSWORD}"):`,
+      ...DEMO_ACCOUNTS.map((a) => `    ${a.role.padEnd(9)} ${a.email}`),
+    );
+  }
+  if (!server.mailbox && demo) lines.push("  (SMTP_URL is set: mail goes to the real server)");
+  if (server.mailbox && !demo) {
+    logger.warn("SMTP_URL is not set: e-mail is caught by the built-in fake mailbox");
+  }
+  lines.push("Press Ctrl+C to stop.", "");
+  console.log(lines.join("\n"));
+
+  let stopping = false;
+  const stop = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    logger.info({ signal }, "shutting down");
+    server.close().then(
+      () => process.exit(0),
+      (error: unknown) => {
+        logger.error({ err: error }, "shutdown failed");
+        process.exit(1);
+      },
+    );
+  };
+  process.on("SIGINT", () => stop("SIGINT"));
+  process.on("SIGTERM", () => stop("SIGTERM"));
+}
+
+main().catch((error: unknown) => {
+  console.error("Spreadsight could not start:", error instanceof Error ? error.message : error);
+  process.exit(1);
+});

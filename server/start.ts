@@ -1,0 +1,143 @@
+/**
+ * Start and stop a complete Spreadsight server: database (migrations), e-mail (real SMTP or
+ * the built-in fake), the Express app on a port, optional demo data and the built client.
+ *
+ *   const server = await startServer({ port: 0, dbPath, demo: true, serveClient: true });
+ *   // server.url === "http://127.0.0.1:<port>"
+ *   const mail = await server.mailbox!.waitFor((m) => m.to.includes("new@spreadsight.test"));
+ *   await server.close();
+ */
+import { createServer, type Server } from "node:http";
+import type { AddressInfo } from "node:net";
+import { fileURLToPath } from "node:url";
+import type { Logger } from "pino";
+import type { DataSource } from "typeorm";
+import { openDatabase } from "./data/data-source";
+import { seedDemo } from "./data/seed-demo";
+import { createApp, type AppLocals } from "./http/app";
+import type { RateLimitConfig } from "./http/rate-limit";
+import { createLogger } from "./logger";
+import { startFakeSmtp, type FakeSmtp } from "./mail/fake-smtp";
+import { createMailer } from "./mail/mailer";
+
+export interface StartOptions {
+  /** SQLite file (created with its folder when missing), or ":memory:". */
+  dbPath: string;
+  /** TCP port; 0 picks a free one. Default 3000. */
+  port?: number;
+  /** Interface to listen on. Default 127.0.0.1. */
+  host?: string;
+  /** Seed the demo team once (idempotent) and report demo mode to the client. Default false. */
+  demo?: boolean;
+  /** Serve the built client from `clientDir` with SPA fallback. Default true. */
+  serveClient?: boolean;
+  /** Default: dist/ at the project root. */
+  clientDir?: string;
+  /** A real SMTP server (nodemailer URL). When absent the built-in fake SMTP server starts and
+   * its messages are readable at /api/mailbox (admins) and through `mailbox` below. */
+  smtpUrl?: string | null;
+  /** Sender address of outgoing mail. Default "Spreadsight <no-reply@spreadsight.test>". */
+  mailFrom?: string;
+  /** Base URL for links in e-mails. Default http://<host>:<actual port>. */
+  publicUrl?: string;
+  /** Override sign-in / reset rate limits. */
+  rateLimits?: Partial<RateLimitConfig>;
+  /** Express `trust proxy`. Default false. */
+  trustProxy?: boolean | number | string;
+  /** Further origins allowed on state-changing requests (e.g. the Vite dev server). */
+  extraOrigins?: string[];
+  /** A pino logger; default one at LOG_LEVEL (silent under tests). */
+  logger?: Logger;
+}
+
+export interface RunningServer {
+  /** http://<host>:<port> */
+  url: string;
+  port: number;
+  publicUrl: string;
+  dataSource: DataSource;
+  logger: Logger;
+  /** The fake mailbox (all teams) when no smtpUrl was given, else null. */
+  mailbox: AppLocals["mailbox"];
+  /** True when demo data was inserted by this start (false when it already existed). */
+  seeded: boolean;
+  /** Stops accepting connections, ends open ones, stops SMTP, closes the database. */
+  close(): Promise<void>;
+}
+
+export const DEFAULT_CLIENT_DIR = fileURLToPath(new URL("../dist", import.meta.url));
+
+export async function startServer(options: StartOptions): Promise<RunningServer> {
+  const logger = options.logger ?? createLogger();
+  const host = options.host ?? "127.0.0.1";
+  const dataSource = await openDatabase({ path: options.dbPath });
+  let fakeSmtp: FakeSmtp | null = null;
+  let httpServer: Server | null = null;
+  try {
+    const seeded = options.demo ? (await seedDemo(dataSource)).created : false;
+    if (!options.smtpUrl) fakeSmtp = await startFakeSmtp(dataSource, logger);
+    const mailer = createMailer({
+      smtpUrl: options.smtpUrl || fakeSmtp!.url,
+      from: options.mailFrom ?? "Spreadsight <no-reply@spreadsight.test>",
+    });
+
+    const server = createServer();
+    httpServer = server;
+    await new Promise<void>((resolve, reject) => {
+      server.once("error", reject);
+      server.listen(options.port ?? 3000, host, () => {
+        server.off("error", reject);
+        resolve();
+      });
+    });
+    const { port } = server.address() as AddressInfo;
+    const urlHost = host.includes(":") ? `[${host}]` : host;
+    const url = `http://${urlHost}:${port}`;
+    const publicUrl = (options.publicUrl ?? url).replace(/\/+$/, "");
+    const app = createApp({
+      dataSource,
+      mailer,
+      logger,
+      publicUrl,
+      demo: options.demo ?? false,
+      mailboxEnabled: fakeSmtp !== null,
+      rateLimits: options.rateLimits,
+      clientDir: options.serveClient === false ? null : (options.clientDir ?? DEFAULT_CLIENT_DIR),
+      trustProxy: options.trustProxy,
+      extraOrigins: options.extraOrigins,
+    });
+    server.on("request", app);
+    const locals = app.locals.spreadsight as AppLocals;
+
+    let closing: Promise<void> | null = null;
+    const close = () => {
+      closing ??= (async () => {
+        await new Promise<void>((resolve) => {
+          server.close(() => resolve());
+          server.closeIdleConnections();
+          setTimeout(() => server.closeAllConnections(), 2000).unref();
+        });
+        mailer.close();
+        await fakeSmtp?.close();
+        if (dataSource.isInitialized) await dataSource.destroy();
+        logger.info("Spreadsight stopped");
+      })();
+      return closing;
+    };
+    return {
+      url,
+      port,
+      publicUrl,
+      dataSource,
+      logger,
+      mailbox: locals.mailbox,
+      seeded,
+      close,
+    };
+  } catch (error) {
+    httpServer?.close();
+    await fakeSmtp?.close();
+    if (dataSource.isInitialized) await dataSource.destroy();
+    throw error;
+  }
+}

@@ -1,0 +1,24 @@
+/** The team's audit trail (GET /api/audit). */
+import { z } from "zod";
+
+export const auditQuerySchema = z.strictObject({
+  limit: z.coerce
+    .number({ error: "limit must be a number" })
+    .int("limit must be a whole number")
+    .min(1, "limit must be at least 1")
+    .max(500, "limit must be at most 500")
+    .default(100),
+});
+
+export interface AuditEventSummary {
+  id: string;
+  /** Dotted verb: auth.sign_in, auth.password_reset, invitation.create, invitation.revoke,
+   * invitation.accept, member.role_change, member.remove, site.create, site.rename,
+   * site.describe, site.archive, site.unarchive. */
+  action: string;
+  actor: { id: string; name: string } | null;
+  targetType: string;
+  targetId: string | null;
+  detail: Record<string, string | number | boolean | null>;
+  createdAt: string;
+}
