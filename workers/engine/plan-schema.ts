@@ -140,7 +140,9 @@ export type PlanInput = z.input<typeof planSchema>;
 export function describePlanIssues(error: z.ZodError): string[] {
   return error.issues.map((issue) => {
     const path = issue.path
-      .map((part, i) => (typeof part === "number" ? `[${part}]` : `${i === 0 ? "" : "."}${String(part)}`))
+      .map((part, i) =>
+        typeof part === "number" ? `[${part}]` : `${i === 0 ? "" : "."}${String(part)}`,
+      )
       .join("");
     return `${path || "(plan)"}: ${issue.message}`;
   });

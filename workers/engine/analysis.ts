@@ -1,0 +1,670 @@
+/**
+ * The full analysis of a plan: for every candidate ground model the verdict per refractor
+ * and per shot branch, what a practitioner would interpret, pick uncertainty, and design
+ * figures with a recommendation; the plan is judged on its worst model.
+ *
+ * Units: m, s, m/s, degrees. Layers are numbered from 1 (top); a refractor's `layer` is the
+ * layer whose top it is. Shots are 0-based indexes into `spread.shots`. The output is plain
+ * JSON: no NaN or Infinity (null instead), so the command line and the worker agree.
+ */
+import { layoutExtent, type Branch, type Layout, type Side } from "./branches";
+import { checkedEarth, interfaceDepth, type Earth } from "./geometry";
+import { linesFor, prepareEarth, type PreparedEarth } from "./head-waves";
+import { createLineSet, type LineSet } from "./lines";
+import {
+  crossoverMethod,
+  interceptTimeMethod,
+  recoverDip,
+  type ObservedLine,
+} from "./interpretation";
+import { degrees, finiteOrNull } from "./numbers";
+import type { Criteria, GroundModel, Plan } from "./plan-schema";
+import {
+  countOnSegments,
+  createPieces,
+  firstArrivalPieces,
+  segmentHull,
+  type Pieces,
+} from "./segments";
+import { STATUS_CODE, statusFromCode, worstStatus, type Status } from "./statuses";
+import { lineCovariance, pickStats, propagateUncertainty } from "./uncertainty";
+import {
+  lastCrossover,
+  maxSpacingFor,
+  minimumThickness,
+  OTHER_EVIDENCE,
+  spreadLengthFor,
+} from "./design";
+import { branchCodes, judgedBranches, primaryBranch } from "./verdicts";
+import { layoutOf } from "./validate";
+
+/** An offset interval, m; `to` is null when unbounded. */
+export interface Segment {
+  from: number;
+  to: number | null;
+}
+
+/** One arrival (direct wave or a refractor's head wave) on one shot branch. */
+export interface BranchVerdict {
+  /** Shot index (0-based into spread.shots). */
+  shot: number;
+  /** Shot position, m. */
+  shotPosition: number;
+  /** "forward": geophones at larger positions than the shot; "reverse": smaller. */
+  side: Side;
+  /** Geophones on the whole branch. */
+  branchGeophones: number;
+  /** Largest offset on the branch, m. */
+  maxOffset: number;
+  /** The arrival reaches the surface on this branch (always true for the direct wave). */
+  headWave: boolean;
+  /** Intercept time of the arrival's line, s (0 for the direct wave; null without a head wave). */
+  interceptTime: number | null;
+  /** Apparent velocity along this branch, m/s (null without a head wave). */
+  apparentVelocity: number | null;
+  /** Critical distance (offset), m (0 for the direct wave; null without a head wave). */
+  criticalDistance: number | null;
+  /** Offsets where it is the first arrival; null when it never is. */
+  segment: Segment | null;
+  /** Geophones of the branch on the segment. */
+  geophones: number;
+  status: Status;
+  /** Crossover distance of this line with each shallower arrival's line (layer 1 = direct wave), m. */
+  crossovers: { with: number; distance: number | null }[];
+}
+
+/** The direct wave (travelling in layer 1) over every judged branch. */
+export interface DirectWaveAnalysis {
+  layer: 1;
+  velocity: number;
+  /** Segment and count on the first shot's longest branch. */
+  segment: Segment | null;
+  geophones: number;
+  /** Worst over all judged branches: "resolved" or "under-sampled". */
+  status: Status;
+  branches: BranchVerdict[];
+}
+
+/** The refractor at the top of one layer (below the first). */
+export interface RefractorAnalysis {
+  /** 1-based number of the layer whose top this refractor is. */
+  layer: number;
+  name: string | null;
+  /** True velocity of the layer, m/s. */
+  velocity: number;
+  /** True vertical depth to its top under the first shot, m. */
+  depth: number;
+  /** Head-wave existence rule: faster than every layer above. */
+  headWave: boolean;
+  /** On the first shot's longest branch: intercept time s, critical distance m, apparent velocity m/s. */
+  interceptTime: number | null;
+  criticalDistance: number | null;
+  apparentVelocity: number | null;
+  /** First-arrival segment and its geophone count on the first shot's longest branch. */
+  segment: Segment | null;
+  geophones: number;
+  /** Worst verdict over every judged shot branch. */
+  status: Status;
+  /** True when it is blind on every judged branch (no spread can reveal it). */
+  blindEverywhere: boolean;
+  /** Minimum thickness of this layer (m) for its refractor to be resolved with this spread; null when none up to 1000 m or for the half-space. */
+  minimumThickness: number | null;
+  branches: BranchVerdict[];
+}
+
+/** A refractor as a practitioner would interpret it with the intercept-time method. */
+export interface InterpretedRefractor {
+  layer: number;
+  /** Interpreted (apparent) velocity below the refractor, m/s. */
+  velocity: number;
+  trueVelocity: number;
+  /** True vertical depth under the shot, m. */
+  trueDepth: number;
+  /** Interpreted depth, m (null when the velocities do not increase and it cannot be computed). */
+  interpretedDepth: number | null;
+  /** interpretedDepth − trueDepth, m (positive: interpreted too deep). */
+  error: number | null;
+  /** Error as a percentage of the true depth. */
+  errorPercent: number | null;
+  /** |error| exceeds the plan's depth tolerance. */
+  exceedsTolerance: boolean;
+}
+
+/** Dip and true velocity recovered from a reversed pair of shots. */
+export interface DipCheck {
+  layer: number;
+  /** Shot shooting towards increasing position (its forward branch) and the one shooting back. */
+  forwardShot: number;
+  reverseShot: number;
+  forwardApparentVelocity: number;
+  reverseApparentVelocity: number;
+  /** Recovered true velocity (m/s) and dip (degrees, positive deepening towards +position). */
+  velocity: number | null;
+  dip: number | null;
+  trueVelocity: number;
+  trueDip: number;
+  /** Two-layer formula only (refractor directly under the direct-wave layer): vertical depth under each shot, m. */
+  depthUnderForwardShot: number | null;
+  depthUnderReverseShot: number | null;
+  trueDepthUnderForwardShot: number;
+  trueDepthUnderReverseShot: number;
+  /** Reciprocal times of the refractor's head wave between the two shots, s. */
+  reciprocalTime: { forward: number; reverse: number; difference: number; observable: boolean };
+}
+
+/** What a practitioner would conclude from the resolved segments of the first shot's longest branch. */
+export interface Interpretation {
+  shot: number;
+  side: Side;
+  /** Interpreted layers from the top: velocity m/s, thickness m (null for the last). */
+  layers: { velocity: number; thickness: number | null }[];
+  refractors: InterpretedRefractor[];
+  /** Crossover method for the first layer (Kearey et al. 2002 ch. 5), null without a resolved refractor. */
+  crossover: { distance: number; thickness: number; trueThickness: number } | null;
+  dips: DipCheck[];
+}
+
+/** Pick error propagated to the interpretation. */
+export interface Uncertainty {
+  /** σ of a pick, s. */
+  pickError: number;
+  direct: { picks: number; velocity: number; velocitySigma: number | null };
+  refractors: {
+    layer: number;
+    picks: number;
+    velocity: number;
+    velocitySigma: number | null;
+    depth: number | null;
+    depthSigma: number | null;
+    /** depthSigma exceeds the plan's depth tolerance. */
+    exceedsTolerance: boolean;
+  }[];
+}
+
+/** A layer no spread can reveal from first arrivals, with a plain statement. */
+export interface HiddenLayer {
+  layer: number;
+  status: "blind" | "inverted";
+  statement: string;
+}
+
+/** Design figures and the recommendation for one model. */
+export interface Recommendation {
+  /** Largest spacing guaranteeing the minimum count on every bounded segment, m (null: any). */
+  maxSpacing: number | null;
+  /** Largest offset every shot branch must reach, m, at spacing maxSpacing (or the plan's). */
+  spreadLength: number;
+  /** Channels for a branch from offset 0 to spreadLength at that spacing. */
+  channels: number;
+  /** Start offset of the deepest visible refractor's unbounded segment, m. */
+  lastCrossover: number;
+  /** The plan's spacing is at most maxSpacing. */
+  spacingOk: boolean;
+  /** Every judged branch reaches spreadLength. */
+  lengthOk: boolean;
+  text: string;
+  hidden: HiddenLayer[];
+}
+
+/** Analysis of one ground model. */
+export interface ModelAnalysis {
+  model: number;
+  name: string;
+  worstStatus: Status;
+  direct: DirectWaveAnalysis;
+  refractors: RefractorAnalysis[];
+  /** Null when the direct wave is itself under-sampled on the first shot's longest branch. */
+  interpretation: Interpretation | null;
+  uncertainty: Uncertainty | null;
+  recommendation: Recommendation;
+}
+
+/** Analysis of a plan (the command line prints exactly this). */
+export interface PlanAnalysis {
+  format: "spreadsight-analysis/1";
+  plan: string;
+  criteria: Criteria;
+  /** Worst verdict over every model. */
+  worstStatus: Status;
+  models: ModelAnalysis[];
+  /** Combined over models: smallest maxSpacing, largest spreadLength. */
+  recommendation: {
+    maxSpacing: number | null;
+    spreadLength: number;
+    channels: number;
+    text: string;
+  };
+}
+
+/** Options of analyzePlan. */
+export interface AnalyzeOptions {
+  /** Compute minimum thicknesses (bisection per layer). Default true. */
+  minimumThickness?: boolean;
+}
+
+interface BranchState {
+  shot: number;
+  branch: Branch;
+  lines: LineSet;
+  pieces: Pieces;
+  counts: Int32Array;
+  codes: Uint8Array;
+}
+
+function evaluateBranch(
+  prep: PreparedEarth,
+  layout: Layout,
+  shot: number,
+  branch: Branch,
+  minGeophones: number,
+): BranchState {
+  const n = prep.earth.layerCount;
+  const lines = linesFor(prep, branch.shot, branch.sign, createLineSet(n));
+  const pieces = firstArrivalPieces(lines, n, createPieces(n));
+  const counts = countOnSegments(pieces, layout, branch, new Int32Array(n));
+  const codes = branchCodes(prep, lines, pieces, counts, minGeophones, new Uint8Array(n));
+  return { shot, branch, lines, pieces, counts, codes };
+}
+
+function segmentOf(pieces: Pieces, arrival: number): Segment | null {
+  const hull = segmentHull(pieces, arrival);
+  return hull ? { from: hull.from, to: finiteOrNull(hull.to) } : null;
+}
+
+function maxOffsetOf(layout: Layout, b: Branch): number {
+  if (b.count === 0) return 0;
+  return (
+    b.sign * (layout.firstGeophone + (b.start + b.sign * (b.count - 1)) * layout.spacing - b.shot)
+  );
+}
+
+function branchVerdict(layout: Layout, state: BranchState, m: number): BranchVerdict {
+  const { lines, pieces, branch } = state;
+  const exists = lines.exists[m] === 1;
+  const crossovers: BranchVerdict["crossovers"] = [];
+  for (let j = 0; j < m; j++) {
+    if (lines.exists[j] !== 1) continue;
+    const dp = lines.slowness[j] - lines.slowness[m];
+    const x = exists && dp > 0 ? (lines.intercept[m] - lines.intercept[j]) / dp : NaN;
+    crossovers.push({ with: j + 1, distance: finiteOrNull(x) });
+  }
+  return {
+    shot: state.shot,
+    shotPosition: branch.shot,
+    side: branch.side,
+    branchGeophones: branch.count,
+    maxOffset: maxOffsetOf(layout, branch),
+    headWave: exists,
+    interceptTime: exists ? finiteOrNull(lines.intercept[m]) : null,
+    apparentVelocity: exists ? finiteOrNull(1 / lines.slowness[m]) : null,
+    criticalDistance: exists ? finiteOrNull(lines.start[m]) : null,
+    segment: segmentOf(pieces, m),
+    geophones: state.counts[m],
+    status: statusFromCode(state.codes[m]),
+    crossovers,
+  };
+}
+
+function interpret(
+  earth: Earth,
+  layout: Layout,
+  criteria: Criteria,
+  primary: BranchState,
+  states: BranchState[],
+): { interpretation: Interpretation; uncertainty: Uncertainty } | null {
+  const n = earth.layerCount;
+  const { lines, codes } = primary;
+  if (codes[0] !== STATUS_CODE.resolved) return null;
+  const shotX = primary.branch.shot;
+  const layersSeen: number[] = [];
+  for (let m = 1; m < n; m++) if (codes[m] === STATUS_CODE.resolved) layersSeen.push(m);
+  const observed: ObservedLine[] = layersSeen.map((m) => ({
+    intercept: lines.intercept[m],
+    slowness: lines.slowness[m],
+  }));
+  const p0 = lines.slowness[0];
+  const result = interceptTimeMethod(p0, observed);
+  const refractors: InterpretedRefractor[] = layersSeen.map((m, j) => {
+    const trueDepth = interfaceDepth(earth, m, shotX);
+    const depth = finiteOrNull(result.depths[j]);
+    const error = depth === null ? null : depth - trueDepth;
+    return {
+      layer: m + 1,
+      velocity: result.velocities[j + 1],
+      trueVelocity: earth.velocity[m],
+      trueDepth,
+      interpretedDepth: depth,
+      error,
+      errorPercent: error === null ? null : finiteOrNull((100 * error) / trueDepth),
+      exceedsTolerance: error !== null && Math.abs(error) > criteria.depthTolerance,
+    };
+  });
+  let crossover: Interpretation["crossover"] = null;
+  if (observed.length > 0) {
+    const c = crossoverMethod(p0, observed[0]);
+    if (Number.isFinite(c.distance) && Number.isFinite(c.thickness)) {
+      crossover = {
+        distance: c.distance,
+        thickness: c.thickness,
+        trueThickness: interfaceDepth(earth, layersSeen[0], shotX),
+      };
+    }
+  }
+  const interpretation: Interpretation = {
+    shot: primary.shot,
+    side: primary.branch.side,
+    layers: result.velocities.map((velocity, j) => ({
+      velocity,
+      thickness: j < result.thicknesses.length ? finiteOrNull(result.thicknesses[j]) : null,
+    })),
+    refractors,
+    crossover,
+    dips: dipChecks(earth, states),
+  };
+  // least-squares pick uncertainty on the same segments
+  const sigma = criteria.pickError;
+  const directStats = pickStats(layout, primary.branch, primary.pieces, 0);
+  const directCov = lineCovariance(directStats, sigma, true);
+  const covs = layersSeen.map((m) =>
+    lineCovariance(pickStats(layout, primary.branch, primary.pieces, m), sigma),
+  );
+  const prop = propagateUncertainty(p0, directCov.varSlowness, observed, covs);
+  const uncertainty: Uncertainty = {
+    pickError: sigma,
+    direct: {
+      picks: directStats.n,
+      velocity: 1 / p0,
+      velocitySigma: finiteOrNull(prop.velocitySigma[0]),
+    },
+    refractors: layersSeen.map((m, j) => {
+      const depthSigma = finiteOrNull(prop.depthSigma[j]);
+      return {
+        layer: m + 1,
+        picks: pickStats(layout, primary.branch, primary.pieces, m).n,
+        velocity: result.velocities[j + 1],
+        velocitySigma: finiteOrNull(prop.velocitySigma[j + 1]),
+        depth: finiteOrNull(result.depths[j]),
+        depthSigma,
+        exceedsTolerance: depthSigma !== null && depthSigma > criteria.depthTolerance,
+      };
+    }),
+  };
+  return { interpretation, uncertainty };
+}
+
+/**
+ * Reversed pairs: a forward branch of shot A and a reverse branch of shot B with B beyond A,
+ * both resolving the refractor; the widest pair is used. Velocities above are recovered in
+ * depth order on the same pair, starting from the direct wave.
+ */
+function dipChecks(earth: Earth, states: BranchState[]): DipCheck[] {
+  const n = earth.layerCount;
+  const checks: DipCheck[] = [];
+  const forward = states.filter((s) => s.branch.side === "forward");
+  const reverse = states.filter((s) => s.branch.side === "reverse");
+  for (let m = 1; m < n; m++) {
+    let best: [BranchState, BranchState] | null = null;
+    for (const a of forward) {
+      for (const b of reverse) {
+        if (!(b.branch.shot > a.branch.shot)) continue;
+        if (a.codes[m] !== STATUS_CODE.resolved || b.codes[m] !== STATUS_CODE.resolved) continue;
+        if (a.codes[0] !== STATUS_CODE.resolved || b.codes[0] !== STATUS_CODE.resolved) continue;
+        if (!best || b.branch.shot - a.branch.shot > best[1].branch.shot - best[0].branch.shot)
+          best = [a, b];
+      }
+    }
+    if (!best) continue;
+    const [a, b] = best;
+    let vAbove = 1 / a.lines.slowness[0];
+    let recovered: ReturnType<typeof recoverDip> = null;
+    let twoLayer = true;
+    for (let j = 1; j <= m; j++) {
+      if (a.codes[j] !== STATUS_CODE.resolved || b.codes[j] !== STATUS_CODE.resolved) continue;
+      recovered = recoverDip(vAbove, a.lines.slowness[j], b.lines.slowness[j]);
+      if (!recovered) break;
+      if (j < m) {
+        vAbove = recovered.velocity;
+        twoLayer = false;
+      }
+    }
+    const xa = a.branch.shot;
+    const xb = b.branch.shot;
+    const span = xb - xa;
+    const tf = a.lines.intercept[m] + a.lines.slowness[m] * span;
+    const tr = b.lines.intercept[m] + b.lines.slowness[m] * span;
+    let depthA: number | null = null;
+    let depthB: number | null = null;
+    if (recovered && twoLayer) {
+      const theta = (recovered.criticalAngle * Math.PI) / 180;
+      const phi = (recovered.dip * Math.PI) / 180;
+      const perp = (tau: number) => (tau * vAbove) / (2 * Math.cos(theta)) / Math.cos(phi);
+      depthA = finiteOrNull(perp(a.lines.intercept[m]));
+      depthB = finiteOrNull(perp(b.lines.intercept[m]));
+    }
+    checks.push({
+      layer: m + 1,
+      forwardShot: a.shot,
+      reverseShot: b.shot,
+      forwardApparentVelocity: 1 / a.lines.slowness[m],
+      reverseApparentVelocity: 1 / b.lines.slowness[m],
+      velocity: recovered ? finiteOrNull(recovered.velocity) : null,
+      dip: recovered ? finiteOrNull(recovered.dip) : null,
+      trueVelocity: earth.velocity[m],
+      trueDip: degrees(Math.atan(earth.slope[m])),
+      depthUnderForwardShot: depthA,
+      depthUnderReverseShot: depthB,
+      trueDepthUnderForwardShot: interfaceDepth(earth, m, xa),
+      trueDepthUnderReverseShot: interfaceDepth(earth, m, xb),
+      reciprocalTime: {
+        forward: tf,
+        reverse: tr,
+        difference: tf - tr,
+        observable: span >= a.lines.start[m] && span >= b.lines.start[m],
+      },
+    });
+  }
+  return checks;
+}
+
+const fmt = (x: number, digits = 1): string => {
+  const r = Number(x.toFixed(digits));
+  return String(Object.is(r, -0) ? 0 : r);
+};
+
+function hiddenStatement(
+  model: Pick<GroundModel, "layers">,
+  earth: Earth,
+  r: RefractorAnalysis,
+): HiddenLayer | null {
+  const label = model.layers[r.layer - 1]?.name ? ` (${model.layers[r.layer - 1].name})` : "";
+  const v = `${fmt(earth.velocity[r.layer - 1], 0)} m/s`;
+  if (r.status === "inverted") {
+    return {
+      layer: r.layer,
+      status: "inverted",
+      statement:
+        `Layer ${r.layer}${label}, ${v}, is a velocity inversion: it is not faster than every layer above, ` +
+        `sends no head wave, and no spread can reveal it from first arrivals; the refractor below it will be ` +
+        `interpreted too deep. Seek other evidence: ${OTHER_EVIDENCE}.`,
+    };
+  }
+  if (r.status === "blind" && r.blindEverywhere) {
+    const thick =
+      r.minimumThickness === null
+        ? ""
+        : ` It would need to be at least ${fmt(r.minimumThickness, 2)} m thick to be resolved with this spread.`;
+    return {
+      layer: r.layer,
+      status: "blind",
+      statement:
+        `Layer ${r.layer}${label}, ${v}, is a blind layer: its head wave is never a first arrival, so no spread ` +
+        `can reveal it from first arrivals; the refractor below it will be interpreted too shallow.${thick} ` +
+        `Seek other evidence: ${OTHER_EVIDENCE}.`,
+    };
+  }
+  return null;
+}
+
+function recommendationText(
+  maxSpacing: number | null,
+  spreadLength: number,
+  channels: number,
+  spacing: number,
+  hidden: HiddenLayer[],
+  refractors: RefractorAnalysis[],
+): string {
+  const spacingPart =
+    maxSpacing === null
+      ? `any spacing (now ${fmt(spacing, 2)} m)`
+      : `spacing at most ${fmt(maxSpacing, 2)} m`;
+  const recSpacing = maxSpacing ?? spacing;
+  let text =
+    `Use ${spacingPart} and shot branches reaching ${fmt(spreadLength)} m offset ` +
+    `(${channels} channels at ${fmt(recSpacing, 2)} m).`;
+  const partly = refractors
+    .filter((r) => r.status === "blind" && !r.blindEverywhere)
+    .map((r) => r.layer);
+  if (partly.length > 0) {
+    text += ` Layer ${partly.join(", ")} is blind on some shot directions only: shoot both ends.`;
+  }
+  if (hidden.length > 0) {
+    const list = hidden.map((h) => `layer ${h.layer} (${h.status})`).join(", ");
+    text += ` No spread can reveal ${list} from first arrivals.`;
+  }
+  return text;
+}
+
+function analyzeModel(
+  model: GroundModel,
+  index: number,
+  layout: Layout,
+  criteria: Criteria,
+  options: AnalyzeOptions,
+): ModelAnalysis {
+  const extent = layoutExtent(layout);
+  const earth = checkedEarth(model, extent.from, extent.to);
+  const prep = prepareEarth(earth);
+  const n = earth.layerCount;
+  const min = criteria.minGeophones;
+  const states = judgedBranches(layout).map(({ shot, branch }) =>
+    evaluateBranch(prep, layout, shot, branch, min),
+  );
+  const primaryGeom = primaryBranch(layout);
+  const primary =
+    states.find((s) => s.shot === 0 && s.branch.side === primaryGeom.side) ??
+    evaluateBranch(prep, layout, 0, primaryGeom, min);
+  const worstCode = (m: number) => states.reduce((w, s) => Math.max(w, s.codes[m]), 0);
+
+  const direct: DirectWaveAnalysis = {
+    layer: 1,
+    velocity: earth.velocity[0],
+    segment: segmentOf(primary.pieces, 0),
+    geophones: primary.counts[0],
+    status: statusFromCode(worstCode(0)),
+    branches: states.map((s) => branchVerdict(layout, s, 0)),
+  };
+  const withDesign = options.minimumThickness !== false;
+  const refractors: RefractorAnalysis[] = [];
+  for (let m = 1; m < n; m++) {
+    const pv = primary.lines;
+    const exists = pv.exists[m] === 1;
+    refractors.push({
+      layer: m + 1,
+      name: model.layers[m].name ?? null,
+      velocity: earth.velocity[m],
+      depth: interfaceDepth(earth, m, layout.shots[0]),
+      headWave: prep.rule[m] === 1,
+      interceptTime: exists ? finiteOrNull(pv.intercept[m]) : null,
+      criticalDistance: exists ? finiteOrNull(pv.start[m]) : null,
+      apparentVelocity: exists ? finiteOrNull(1 / pv.slowness[m]) : null,
+      segment: segmentOf(primary.pieces, m),
+      geophones: primary.counts[m],
+      status: statusFromCode(worstCode(m)),
+      blindEverywhere: prep.rule[m] === 1 && states.every((s) => s.codes[m] === STATUS_CODE.blind),
+      minimumThickness: withDesign ? minimumThickness(earth, layout, min, m, extent) : null,
+      branches: states.map((s) => branchVerdict(layout, s, m)),
+    });
+  }
+  const interp = interpret(earth, layout, criteria, primary, states);
+
+  const piecesList = states.map((s) => s.pieces);
+  const maxSpacing = maxSpacingFor(piecesList, n, min);
+  const crossover = lastCrossover(piecesList);
+  const recSpacing = maxSpacing ?? layout.spacing;
+  const { spreadLength, channels } = spreadLengthFor(crossover, recSpacing, min);
+  const hidden = refractors
+    .map((r) => hiddenStatement(model, earth, r))
+    .filter((h): h is HiddenLayer => h !== null);
+  const recommendation: Recommendation = {
+    maxSpacing,
+    spreadLength,
+    channels,
+    lastCrossover: crossover,
+    spacingOk: maxSpacing === null || layout.spacing <= maxSpacing,
+    lengthOk: states.every((s) => maxOffsetOf(layout, s.branch) >= spreadLength),
+    text: recommendationText(
+      maxSpacing,
+      spreadLength,
+      channels,
+      layout.spacing,
+      hidden,
+      refractors,
+    ),
+    hidden,
+  };
+  const statuses: Status[] = [direct.status, ...refractors.map((r) => r.status)];
+  return {
+    model: index,
+    name: model.name,
+    worstStatus: worstStatus(statuses),
+    direct,
+    refractors,
+    interpretation: interp?.interpretation ?? null,
+    uncertainty: interp?.uncertainty ?? null,
+    recommendation,
+  };
+}
+
+/**
+ * Analyse a validated plan (see parsePlan): every model in order, then the plan's worst
+ * verdict and combined recommendation. Throws RangeError when a model's interfaces cross
+ * within the spread or the spread is malformed (unvalidated input).
+ */
+export function analyzePlan(plan: Plan, options: AnalyzeOptions = {}): PlanAnalysis {
+  const { spread, criteria } = plan;
+  if (!(spread.spacing > 0) || !(spread.channels >= 1) || spread.shots.length === 0) {
+    throw new RangeError("spread needs spacing > 0, at least 1 channel and at least 1 shot");
+  }
+  const layout = layoutOf(spread);
+  const models = plan.models.map((m, i) => analyzeModel(m, i, layout, criteria, options));
+  let maxSpacing: number | null = null;
+  let crossover = 0;
+  for (const m of models) {
+    const s = m.recommendation.maxSpacing;
+    if (s !== null) maxSpacing = maxSpacing === null ? s : Math.min(maxSpacing, s);
+    crossover = Math.max(crossover, m.recommendation.lastCrossover);
+  }
+  const { spreadLength, channels } = spreadLengthFor(
+    crossover,
+    maxSpacing ?? spread.spacing,
+    criteria.minGeophones,
+  );
+  const hidden = models.flatMap((m) =>
+    m.recommendation.hidden.map((h) => `${m.name}: layer ${h.layer} (${h.status})`),
+  );
+  const spacingPart =
+    maxSpacing === null ? "any spacing" : `spacing at most ${fmt(maxSpacing, 2)} m`;
+  let text =
+    `Across ${models.length} ground model${models.length === 1 ? "" : "s"}: use ${spacingPart} and shot ` +
+    `branches reaching ${fmt(spreadLength)} m offset (${channels} channels at ` +
+    `${fmt(maxSpacing ?? spread.spacing, 2)} m).`;
+  if (hidden.length > 0) text += ` Not revealed by any spread: ${hidden.join("; ")}.`;
+  return {
+    format: "spreadsight-analysis/1",
+    plan: plan.name,
+    criteria,
+    worstStatus: worstStatus(models.map((m) => m.worstStatus)),
+    models,
+    recommendation: { maxSpacing, spreadLength, channels, text },
+  };
+}

@@ -1,0 +1,69 @@
+/**
+ * Spreadsight's modeller engine: the only public surface of workers/engine.
+ * Pure TypeScript (no DOM, Node, React or comlink). Units: m, s, m/s, degrees.
+ */
+export * from "./plan-schema";
+export { parsePlan, geometryIssues, layoutOf, type ParsePlanResult } from "./validate";
+export {
+  analyzePlan,
+  type AnalyzeOptions,
+  type PlanAnalysis,
+  type ModelAnalysis,
+  type DirectWaveAnalysis,
+  type RefractorAnalysis,
+  type BranchVerdict,
+  type Segment,
+  type Interpretation,
+  type InterpretedRefractor,
+  type DipCheck,
+  type Uncertainty,
+  type Recommendation,
+  type HiddenLayer,
+} from "./analysis";
+export {
+  computeArrivals,
+  sampleCurves,
+  type ArrivalKind,
+  type GeophoneArrivals,
+  type ShotArrivals,
+  type ArrivalCurves,
+} from "./arrivals";
+export { firstArrivalRayPath, type RayPath } from "./ray-paths";
+export {
+  runSweep,
+  createSweepRunner,
+  followShots,
+  sweepSpecSchema,
+  MAX_SWEEP_CELLS,
+  type SweepSpec,
+  type SweepResult,
+  type SweepHooks,
+  type SweepRunner,
+} from "./sweep";
+export {
+  STATUSES,
+  STATUS_CODE,
+  CELL_INVALID,
+  CELL_NOT_COMPUTED,
+  worseStatus,
+  worstStatus,
+  statusFromCode,
+  type Status,
+} from "./statuses";
+export type { Side } from "./branches";
+export {
+  interceptTimeMethod,
+  crossoverMethod,
+  recoverDip,
+  type ObservedLine,
+  type InterceptTimeResult,
+  type DipRecovery,
+} from "./interpretation";
+export {
+  MATERIALS,
+  MATERIALS_SOURCE,
+  findMaterial,
+  matchMaterial,
+  type Material,
+} from "./materials";
+export { modellerApi, type ModellerApi } from "./worker-api";
