@@ -13,6 +13,7 @@ import { fileURLToPath } from "node:url";
 import type { Logger } from "pino";
 import type { DataSource } from "typeorm";
 import { openDatabase } from "./data/data-source";
+import { TypeormLuciaAdapter } from "./data/lucia-adapter";
 import { seedDemo } from "./data/seed-demo";
 import { createApp, type AppLocals } from "./http/app";
 import type { RateLimitConfig } from "./http/rate-limit";
@@ -75,9 +76,13 @@ export async function startServer(options: StartOptions): Promise<RunningServer>
   let httpServer: Server | null = null;
   try {
     const seeded = options.demo ? (await seedDemo(dataSource)).created : false;
-    if (!options.smtpUrl) fakeSmtp = await startFakeSmtp(dataSource, logger);
+    let smtpUrl = options.smtpUrl;
+    if (!smtpUrl) {
+      fakeSmtp = await startFakeSmtp(dataSource, logger);
+      smtpUrl = fakeSmtp.url;
+    }
     const mailer = createMailer({
-      smtpUrl: options.smtpUrl || fakeSmtp!.url,
+      smtpUrl,
       from: options.mailFrom ?? "Spreadsight <no-reply@spreadsight.test>",
     });
 
@@ -109,9 +114,19 @@ export async function startServer(options: StartOptions): Promise<RunningServer>
     server.on("request", app);
     const locals = app.locals.spreadsight as AppLocals;
 
+    // lucia deletes an expired session when it is presented; sweep the ones never seen again.
+    const sweepSessions = () =>
+      new TypeormLuciaAdapter(dataSource)
+        .deleteExpiredSessions()
+        .catch((error: unknown) => logger.warn({ err: error }, "session sweep failed"));
+    await sweepSessions();
+    const sweeper = setInterval(sweepSessions, 60 * 60 * 1000);
+    sweeper.unref();
+
     let closing: Promise<void> | null = null;
     const close = () => {
       closing ??= (async () => {
+        clearInterval(sweeper);
         await new Promise<void>((resolve) => {
           server.close(() => resolve());
           server.closeIdleConnections();
