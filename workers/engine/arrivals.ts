@@ -101,13 +101,14 @@ export function computeArrivals(
     }));
     const piece = side === null ? -1 : pieceAt(pieces, offset);
     const arrival = piece < 0 ? 0 : pieces.arrival[piece];
-    const time = lines.intercept[arrival] + lines.slowness[arrival] * offset;
+    const direct = offset / earth.velocity[0];
+    const time = arrival === 0 ? direct : (head[arrival - 1].time as number);
     geophones.push({
       channel,
       position,
       offset,
       side,
-      direct: offset / earth.velocity[0],
+      direct,
       head,
       reflections,
       first: { ...kindOf(arrival), time },
