@@ -2,8 +2,8 @@
  * Borehole or probe logs uploaded as CSV: depth_from, depth_to (m), material and an optional
  * velocity (m/s). The intervals must run from the ground surface without gaps or overlaps;
  * they become a candidate ground model in the plan schema's form (workers/engine/plan-schema.ts),
- * the deepest interval taken as the half-space. Missing velocities come from a material table
- * passed in by the caller (see material-lookup.ts).
+ * the deepest interval taken as the half-space. Missing velocities come from a material table:
+ * the engine's `MATERIALS` unless the caller passes another (see material-lookup.ts).
  *
  * Header names are matched after normalisation (see `normalizeHeader`). Accepted names:
  * - top: depth_from, from, top, depth_top, top_depth, from_depth — each also with `_m`;
@@ -12,7 +12,7 @@
  * - velocity (optional): velocity, vp, v, p_velocity, p_wave_velocity, bare or with `_m_s` or
  *   `_ms` (m/s), or with `_km_s` (km/s, converted).
  */
-import { groundModelSchema, MAX_LAYERS, type GroundModel, type Layer } from "../engine/plan-schema";
+import { groundModelSchema, MATERIALS, MAX_LAYERS, type GroundModel, type Layer } from "@engine";
 import {
   capIssues,
   csvIssue,
@@ -84,14 +84,15 @@ const MAX_VELOCITY = 10000;
 /**
  * Reads a borehole or probe log and builds a ground model from it.
  * @param text the file's text
- * @param materialTable velocities by material, used where the log gives none
+ * @param materialTable velocities by material, used where the log gives none (default: the
+ *   engine's `MATERIALS`, typical velocity = middle of the range)
  * @param options.name model name (default "Borehole log")
  * @param options.mergeEqualNeighbours join adjacent intervals of the same material and
  *   velocity into one layer (default true)
  */
 export function parseBoreholeCsv(
   text: string,
-  materialTable: MaterialTable,
+  materialTable: MaterialTable = MATERIALS,
   options: { name?: string; mergeEqualNeighbours?: boolean } = {},
 ): BoreholeCsvResult {
   const table = readCsvTable(text);

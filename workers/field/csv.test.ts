@@ -7,6 +7,7 @@ import { parseBoreholeCsv } from "./borehole-csv";
 import { materialLookup } from "./material-lookup";
 import { stationLayout, stationLayoutCsv } from "./station-csv";
 import { normalizeHeader, readCsvTable } from "./csv-table";
+import { findMaterial } from "@engine";
 
 const materials = [
   { key: "dry-sand", name: "Dry sand", velocityRange: [200, 1000] as const },
@@ -189,6 +190,19 @@ describe("parseBoreholeCsv", () => {
     expect(!bad.ok && bad.errors[0].message).toBe(
       "line 2, column velocity: -3 is outside 0–10000 m/s",
     );
+  });
+
+  it("fills velocities from the engine's material table by default", () => {
+    const result = parseBoreholeCsv("from,to,material\n0,3,dry sand\n3,9,granite\n");
+    expect(result.ok && result.model.layers).toEqual([
+      {
+        name: "dry sand",
+        material: "dry-sand",
+        velocity: findMaterial("dry-sand")?.typical,
+        thickness: 3,
+      },
+      { name: "granite", material: "granite", velocity: findMaterial("granite")?.typical },
+    ]);
   });
 
   it("refuses a log with more layers than a ground model holds", () => {

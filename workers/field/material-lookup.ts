@@ -1,10 +1,11 @@
 /**
  * Velocity look-up by material name, for filling the velocities a borehole or probe log does
- * not state. The table is a parameter: the engine's material table (workers/engine/materials.ts,
- * not yet published when this was written) or any list the caller supplies, in either form:
- * - an array of entries `{ key, name?, aliases?, velocity?, velocityRange? }`, or
+ * not state. The table is a parameter (the borehole reader defaults to the engine's
+ * `MATERIALS`), in either form:
+ * - an array of entries `{ key, name? | label?, aliases?, velocity? | typical?,
+ *   velocityRange? | min? & max? }` — the engine's `Material` fits this shape; or
  * - a record `{ "dry sand": 600, clay: { velocity: 1800 }, till: { velocityRange: [1500, 2500] } }`.
- * An entry without a velocity but with a range gives the range's midpoint.
+ * The velocity used is `velocity`, else `typical`, else the midpoint of the range.
  */
 
 /** One material of a velocity table. */
@@ -13,12 +14,19 @@ export interface MaterialEntry {
   key: string;
   /** Display name, matched like the key. */
   name?: string;
+  /** Display name (the engine's spelling), matched like the key. */
+  label?: string;
   /** Other names that mean this material. */
   aliases?: readonly string[];
   /** Typical P-wave velocity, m/s. */
   velocity?: number;
-  /** Velocity range, m/s; its midpoint is used when `velocity` is absent. */
+  /** Typical velocity (the engine's spelling), m/s. */
+  typical?: number;
+  /** Velocity range, m/s; its midpoint is used when no velocity is given. */
   velocityRange?: readonly [number, number];
+  /** Velocity range as two fields (the engine's spelling), m/s. */
+  min?: number;
+  max?: number;
 }
 
 /** A velocity table in one of the accepted forms. */
@@ -46,14 +54,15 @@ function entries(table: MaterialTable): MaterialEntry[] {
   );
 }
 
+const positive = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v) && v > 0;
+
 function velocityOf(entry: MaterialEntry): number | null {
-  if (typeof entry.velocity === "number" && Number.isFinite(entry.velocity) && entry.velocity > 0) {
-    return entry.velocity;
-  }
-  const r = entry.velocityRange;
-  if (r && Number.isFinite(r[0]) && Number.isFinite(r[1]) && r[0] > 0 && r[1] >= r[0]) {
-    return (r[0] + r[1]) / 2;
-  }
+  if (positive(entry.velocity)) return entry.velocity;
+  if (positive(entry.typical)) return entry.typical;
+  const r =
+    entry.velocityRange ??
+    (entry.min !== undefined && entry.max !== undefined ? [entry.min, entry.max] : null);
+  if (r && positive(r[0]) && positive(r[1]) && r[1] >= r[0]) return (r[0] + r[1]) / 2;
   return null;
 }
 
@@ -66,7 +75,7 @@ export function materialLookup(table: MaterialTable): (material: string) => Mate
   for (const entry of entries(table)) {
     const velocity = velocityOf(entry);
     if (velocity === null) continue;
-    for (const name of [entry.key, entry.name, ...(entry.aliases ?? [])]) {
+    for (const name of [entry.key, entry.name, entry.label, ...(entry.aliases ?? [])]) {
       if (!name) continue;
       const k = materialName(name);
       if (k && !index.has(k)) index.set(k, { key: entry.key, velocity });

@@ -3,7 +3,7 @@
  * its position along the line, as rows and as CSV text.
  */
 import Papa from "papaparse";
-import { spreadSchema, type Spread } from "../engine/plan-schema";
+import { spreadSchema, type Spread } from "@engine";
 
 /** One station to peg out. */
 export interface StationRow {

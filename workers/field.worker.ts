@@ -1,0 +1,19 @@
+/**
+ * Field worker entry: exposes the SEG-2 reader and the first-break pickers through comlink.
+ * The samples of a read record are transferred, not copied.
+ */
+import { expose, transfer } from "comlink";
+import { fieldApi, type FieldApi } from "./field/worker-api";
+
+const api: FieldApi = {
+  ...fieldApi,
+  readSeg2(input) {
+    const record = fieldApi.readSeg2(input);
+    return transfer(
+      record,
+      record.traces.map((t) => t.samples.buffer as ArrayBuffer),
+    );
+  },
+};
+
+expose(api);

@@ -1,0 +1,22 @@
+/**
+ * The functions the field worker exposes (plain data in, plain data out). Kept apart from the
+ * worker entry (workers/field.worker.ts) so the same object can be exercised without a worker.
+ */
+import { pickAic } from "./aic-picker";
+import { pickEnergyRatio } from "./energy-ratio-picker";
+import { pickRecord, pickTrace } from "./pick-record";
+import { readSeg2 } from "./seg2-reader";
+import { pickStaLta } from "./sta-lta-picker";
+
+/** SEG-2 reading and first-break picking offered by the field worker. */
+export const fieldApi = {
+  readSeg2,
+  pickRecord,
+  pickTrace,
+  pickStaLta,
+  pickAic,
+  pickEnergyRatio,
+};
+
+/** Type of the field worker's API (wrap it with comlink's Remote<>). */
+export type FieldApi = typeof fieldApi;
