@@ -66,10 +66,11 @@ describe("computeArrivals", () => {
             ];
             const min = Math.min(...valid);
             expect(Math.abs(g.first.time - min)).toBeLessThanOrEqual(1e-12 * Math.max(1, min));
+            const first = g.first;
             const own =
-              g.first.kind === "direct"
+              first.kind === "direct"
                 ? g.direct
-                : g.head.find((h) => h.layer === g.first.layer)?.time;
+                : g.head.find((h) => h.layer === first.layer)?.time;
             expect(own).toBe(g.first.time);
           }
         },
