@@ -16,9 +16,11 @@ import { groundModelSchema, MATERIALS, MAX_LAYERS, type GroundModel, type Layer 
 import {
   capIssues,
   csvIssue,
+  findColumn,
   normalizeHeader,
-  parseCsvNumber,
+  numberCell,
   readCsvTable,
+  withMetreSuffix,
   type CsvIssue,
 } from "./csv-table";
 import { materialLookup, materialName, type MaterialTable } from "./material-lookup";
@@ -44,8 +46,7 @@ export interface LogRow {
 export type BoreholeCsvResult =
   { ok: true; rows: LogRow[]; model: GroundModel } | { ok: false; errors: CsvIssue[] };
 
-const withMetres = (names: string[]) => names.flatMap((n) => [n, `${n}_m`]);
-const FROM_NAMES = withMetres([
+const FROM_NAMES = withMetreSuffix([
   "depth_from",
   "from",
   "top",
@@ -53,7 +54,7 @@ const FROM_NAMES = withMetres([
   "top_depth",
   "from_depth",
 ]);
-const TO_NAMES = withMetres([
+const TO_NAMES = withMetreSuffix([
   "depth_to",
   "to",
   "bottom",
@@ -97,11 +98,11 @@ export function parseBoreholeCsv(
 ): BoreholeCsvResult {
   const table = readCsvTable(text);
   if (Array.isArray(table)) return { ok: false, errors: table };
-  const { header, headerLine, delimiter } = table;
+  const { header, headerLine } = table;
   const errors: CsvIssue[] = [];
-  const fromAt = header.findIndex((h) => FROM_NAMES.includes(normalizeHeader(h)));
-  const toAt = header.findIndex((h) => TO_NAMES.includes(normalizeHeader(h)));
-  const materialAt = header.findIndex((h) => MATERIAL_NAMES.includes(normalizeHeader(h)));
+  const fromAt = findColumn(header, FROM_NAMES);
+  const toAt = findColumn(header, TO_NAMES);
+  const materialAt = findColumn(header, MATERIAL_NAMES);
   const velocity = velocityColumn(header);
   if (fromAt < 0) errors.push(csvIssue(headerLine, undefined, "no depth_from column"));
   if (toAt < 0) errors.push(csvIssue(headerLine, undefined, "no depth_to column"));
@@ -117,17 +118,10 @@ export function parseBoreholeCsv(
   const lookup = materialLookup(materialTable);
   const rows: LogRow[] = [];
   let previous: { line: number; depthTo: number } | null = null;
-  for (const [index, { line, cells }] of table.rows.entries()) {
-    const number = (column: number, required: boolean): number | null | undefined => {
-      const cell = cells[column] ?? "";
-      if (cell === "") {
-        if (required) errors.push(csvIssue(line, header[column], "value is missing"));
-        return required ? null : undefined;
-      }
-      const v = parseCsvNumber(cell, delimiter);
-      if (v === null) errors.push(csvIssue(line, header[column], `'${cell}' is not a number`));
-      return v;
-    };
+  for (const [index, record] of table.rows.entries()) {
+    const { line, cells } = record;
+    const number = (column: number, required: boolean) =>
+      numberCell(record, table, column, errors, required);
     const from = number(fromAt, true);
     const to = number(toAt, true);
     const rawVelocity = velocity.index >= 0 ? number(velocity.index, false) : undefined;

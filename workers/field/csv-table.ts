@@ -132,3 +132,31 @@ export function readCsvTable(text: string): CsvTable | CsvIssue[] {
 export function findColumn(header: string[], names: readonly string[]): number {
   return header.findIndex((h) => names.includes(normalizeHeader(h)));
 }
+
+/** Each name bare and with a `_m` (metres) suffix. */
+export function withMetreSuffix(names: readonly string[]): string[] {
+  return names.flatMap((n) => [n, `${n}_m`]);
+}
+
+/**
+ * Reads the number in one cell of a record. An empty cell is an issue when `required` (null
+ * returned) and `undefined` otherwise; a cell that is not a number is an issue (null returned).
+ */
+export function numberCell(
+  record: { line: number; cells: string[] },
+  table: Pick<CsvTable, "header" | "delimiter">,
+  column: number,
+  issues: CsvIssue[],
+  required = true,
+): number | null | undefined {
+  const name = table.header[column];
+  const cell = record.cells[column] ?? "";
+  if (cell === "") {
+    if (!required) return undefined;
+    issues.push(csvIssue(record.line, name, "value is missing"));
+    return null;
+  }
+  const v = parseCsvNumber(cell, table.delimiter);
+  if (v === null) issues.push(csvIssue(record.line, name, `'${cell}' is not a number`));
+  return v;
+}

@@ -17,9 +17,11 @@
 import {
   capIssues,
   csvIssue,
+  findColumn,
   normalizeHeader,
-  parseCsvNumber,
+  numberCell,
   readCsvTable,
+  withMetreSuffix,
   type CsvIssue,
 } from "./csv-table";
 
@@ -39,9 +41,7 @@ export interface PickRow {
 export type PicksCsvResult =
   { ok: true; rows: PickRow[]; timeUnit: "ms" | "s" } | { ok: false; errors: CsvIssue[] };
 
-const withMetres = (names: string[]) => names.flatMap((n) => [n, `${n}_m`]);
-
-const SHOT_NAMES = withMetres([
+const SHOT_NAMES = withMetreSuffix([
   "shot",
   "shot_position",
   "shot_pos",
@@ -55,7 +55,7 @@ const SHOT_NAMES = withMetres([
   "source_x",
   "source_location",
 ]);
-const GEOPHONE_NAMES = withMetres([
+const GEOPHONE_NAMES = withMetreSuffix([
   "geophone",
   "geophone_position",
   "geophone_pos",
@@ -106,11 +106,11 @@ export function parsePicksCsv(
 ): PicksCsvResult {
   const table = readCsvTable(text);
   if (Array.isArray(table)) return { ok: false, errors: table };
-  const { header, headerLine, delimiter } = table;
+  const { header, headerLine } = table;
   const errors: CsvIssue[] = [];
 
-  const shotAt = header.findIndex((h) => SHOT_NAMES.includes(normalizeHeader(h)));
-  const geophoneAt = header.findIndex((h) => GEOPHONE_NAMES.includes(normalizeHeader(h)));
+  const shotAt = findColumn(header, SHOT_NAMES);
+  const geophoneAt = findColumn(header, GEOPHONE_NAMES);
   const time = timeColumn(header);
   if (shotAt < 0)
     errors.push(csvIssue(headerLine, undefined, "no shot position column (e.g. shot_m)"));
@@ -147,18 +147,9 @@ export function parsePicksCsv(
   const divisor = unit === "ms" ? 1000 : 1;
   const rows: PickRow[] = [];
   const seen = new Map<string, number>();
-  for (const { line, cells } of table.rows) {
-    const read = (index: number): number | null => {
-      const column = header[index];
-      const cell = cells[index] ?? "";
-      if (cell === "") {
-        errors.push(csvIssue(line, column, "value is missing"));
-        return null;
-      }
-      const v = parseCsvNumber(cell, delimiter);
-      if (v === null) errors.push(csvIssue(line, column, `'${cell}' is not a number`));
-      return v;
-    };
+  for (const record of table.rows) {
+    const { line } = record;
+    const read = (column: number) => numberCell(record, table, column, errors) ?? null;
     const shot = read(shotAt);
     const geophone = read(geophoneAt);
     const raw = read(time.index);
