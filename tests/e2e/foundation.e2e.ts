@@ -84,7 +84,7 @@ describe("foundation in the browser", () => {
     await page.getByRole("link", { name: "Team" }).click();
     await page.getByRole("heading", { name: "Team" }).waitFor();
     await page.getByLabel("E-mail").fill("new.trainee@spreadsight.test");
-    await page.getByLabel("Role").selectOption("trainee");
+    await page.getByLabel("Role", { exact: true }).selectOption("trainee");
     await page.getByRole("button", { name: "Send invitation" }).click();
     await page.getByText("Invitation sent to new.trainee@spreadsight.test.").waitFor();
     await screenshot(page, "team");
