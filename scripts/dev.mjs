@@ -1,7 +1,11 @@
 // Development: the API with demo data on port 3001 (watch mode) and Vite with its proxy on 5173.
 import { spawn } from "node:child_process";
 
-const env = { ...process.env, PORT: process.env.SPREADSIGHT_API_PORT ?? "3001" };
+const env = {
+  ...process.env,
+  PORT: process.env.SPREADSIGHT_API_PORT ?? "3001",
+  PUBLIC_URL: process.env.PUBLIC_URL ?? "http://127.0.0.1:5173",
+};
 const children = [
   spawn(process.execPath, ["--import", "tsx", "--watch", "server/main.ts", "--demo"], {
     stdio: "inherit",

@@ -19,6 +19,10 @@ const roles =
 export const navItems: NavItem[] = [
   { to: paths.sites, label: "Sites", visible: anyRole },
   { to: paths.team, label: "Team", visible: roles("admin") },
-  { to: paths.mailbox, label: "Mailbox", visible: (me) => me.role === "admin" && me.demo },
+  {
+    to: paths.mailbox,
+    label: "Mailbox",
+    visible: (me) => me.role === "admin" && (me.mailbox ?? me.demo),
+  },
   { to: paths.settings, label: "Settings", visible: anyRole },
 ];

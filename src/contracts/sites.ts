@@ -2,14 +2,26 @@
 import { z } from "zod";
 
 export const siteCreateSchema = z.strictObject({
-  name: z.string().trim().min(1, "name is required").max(120, "name must be at most 120 characters"),
-  description: z.string().trim().max(2000, "description must be at most 2000 characters").default(""),
+  name: z
+    .string()
+    .trim()
+    .min(1, "name is required")
+    .max(120, "name must be at most 120 characters"),
+  description: z
+    .string()
+    .trim()
+    .max(2000, "description must be at most 2000 characters")
+    .default(""),
 });
 export type SiteCreateInput = z.input<typeof siteCreateSchema>;
 
 export const siteUpdateSchema = z
   .strictObject({
-    name: z.string().trim().min(1, "name is required").max(120, "name must be at most 120 characters"),
+    name: z
+      .string()
+      .trim()
+      .min(1, "name is required")
+      .max(120, "name must be at most 120 characters"),
     description: z.string().trim().max(2000, "description must be at most 2000 characters"),
     archived: z.boolean({ error: "archived must be true or false" }),
   })
