@@ -7,6 +7,7 @@ export const paths = {
   home: "/",
   sites: "/sites",
   site: (id = ":siteId") => `/sites/${id}`,
+  plan: (id = ":planId") => `/plans/${id}`,
   team: "/team",
   mailbox: "/mailbox",
   settings: "/settings",

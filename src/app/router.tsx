@@ -5,6 +5,8 @@ import { ForgotPasswordPage, ResetPasswordPage } from "@/features/auth/component
 import { AcceptInvitationPage } from "@/features/auth/components/accept-invitation-page";
 import { SitesPage } from "@/features/sites/components/sites-page";
 import { SitePage } from "@/features/sites/components/site-page";
+import { PlansList } from "@/features/plans/components/plans-list";
+import { PlanDesignerPage } from "@/features/plans/components/designer/plan-designer-page";
 import { TeamPage } from "@/features/team/components/team-page";
 import { MailboxPage } from "@/features/mailbox/components/mailbox-page";
 import { SettingsPage } from "@/features/settings/components/settings-page";
@@ -17,7 +19,15 @@ import { NotFoundPage } from "./not-found";
 export const appRoutes: RouteObject[] = [
   { index: true, element: <Navigate to={paths.sites} replace /> },
   { path: paths.sites, element: <SitesPage /> },
-  { path: paths.site(), element: <SitePage /> },
+  {
+    path: paths.site(),
+    element: (
+      <SitePage>
+        <PlansList />
+      </SitePage>
+    ),
+  },
+  { path: paths.plan(), element: <PlanDesignerPage /> },
   {
     path: paths.team,
     element: (
@@ -29,7 +39,7 @@ export const appRoutes: RouteObject[] = [
   {
     path: paths.mailbox,
     element: (
-      <RequireRole allow={(me) => can.readMailbox(me.role) && me.demo}>
+      <RequireRole allow={(me) => can.readMailbox(me.role) && (me.mailbox ?? me.demo)}>
         <MailboxPage />
       </RequireRole>
     ),

@@ -1,0 +1,459 @@
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { useQueryClient } from "@tanstack/react-query";
+import { FormProvider, useForm, useWatch } from "react-hook-form";
+import { Link, useBlocker, useNavigate, useParams, useSearchParams } from "react-router-dom";
+import type { Plan } from "@engine";
+import { PLAN_STATUS_LABELS, type PlanDetail } from "@/contracts/plans";
+import { useMe } from "@/features/auth/api/me";
+import { Button } from "@/components/button";
+import { ErrorBoundary } from "@/components/error-boundary";
+import { Card, ErrorNotice, Loading, Notice } from "@/components/feedback";
+import { paths } from "@/app/paths";
+import { formatInput, type UnitSystem } from "@/lib/units";
+import { planQueryOptions, usePlan } from "../../api/get-plan";
+import { isRevisionConflict, useSavePlan } from "../../api/save-plan";
+import { useCreatePlan } from "../../api/create-plan";
+import { parsePlanForm, planFormResolver, planToForm, type PlanForm } from "../../lib/plan-form";
+import { useDebouncedValue } from "../../hooks/use-debounced-value";
+import { useSaveShortcut } from "../../hooks/use-save-shortcut";
+import { usePlanAnalysis } from "../../hooks/use-plan-analysis";
+import { GroundModelsPanel } from "./ground-models-panel";
+import { MaterialSourceNote } from "./material-picker";
+import { SpreadPanel } from "./spread-panel";
+import { ResultsPanel } from "./results-panel";
+import { SweepView } from "./sweep-view";
+import { CompareView } from "./compare-view";
+
+/** The designer route: loads the plan, then hands it to the editor keyed by plan and units. */
+export function PlanDesignerPage() {
+  const { planId = "" } = useParams();
+  const plan = usePlan(planId);
+  const { data: me } = useMe();
+  if (plan.isPending) return <Loading label="Loading the plan…" />;
+  if (plan.isError)
+    return (
+      <ErrorNotice
+        error={plan.error}
+        title="Cannot open this plan"
+        onRetry={() => plan.refetch()}
+      />
+    );
+  if (!me) return null;
+  return (
+    <PlanDesigner
+      key={`${plan.data.id}:${me.preferences.units}`}
+      detail={plan.data}
+      units={me.preferences.units}
+    />
+  );
+}
+
+type View = "design" | "sweep" | "compare";
+const VIEWS: Array<{ view: View; label: string }> = [
+  { view: "design", label: "Design" },
+  { view: "sweep", label: "Design sweep" },
+  { view: "compare", label: "Side by side" },
+];
+
+function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem }) {
+  const [baseline, setBaseline] = useState(detail);
+  const readOnly = !baseline.permissions.edit;
+  const [search, setSearch] = useSearchParams();
+  const view = (VIEWS.find((v) => v.view === search.get("view"))?.view ?? "design") as View;
+  const editor = search.get("edit") === "spread" ? "spread" : "models";
+  const setParam = (key: string, value: string) =>
+    setSearch(
+      (prev) => {
+        const next = new URLSearchParams(prev);
+        next.set(key, value);
+        return next;
+      },
+      { replace: true },
+    );
+
+  const form = useForm<PlanForm, unknown, Plan>({
+    resolver: planFormResolver(units, baseline.name),
+    mode: "onChange",
+    defaultValues: planToForm(baseline.document, units),
+  });
+  const [selectedModel, setSelectedModel] = useState(0);
+
+  // Live analysis: the plan as typed, settled for a moment, parsed by the engine's schema.
+  const values = useWatch({ control: form.control }) as PlanForm;
+  const valuesKey = JSON.stringify(values);
+  const settledKey = useDebouncedValue(valuesKey, 250);
+  const livePlan = useMemo(
+    () => parsePlanForm(JSON.parse(settledKey) as PlanForm, units, baseline.name),
+    [settledKey, units, baseline.name],
+  );
+  const typing = settledKey !== valuesKey;
+  const analysis = usePlanAnalysis(livePlan);
+
+  // Saving.
+  const savePlan = useSavePlan(baseline.id);
+  const createPlan = useCreatePlan(baseline.siteId);
+  const navigate = useNavigate();
+  const [conflict, setConflict] = useState<Plan | null>(null);
+  const [reloadError, setReloadError] = useState<unknown>(null);
+  const queryClient = useQueryClient();
+  const leaving = useRef(false);
+  const dirty = form.formState.isDirty;
+  const save = useCallback(() => {
+    if (readOnly || savePlan.isPending) return;
+    void form.handleSubmit((document) => {
+      const submitted = form.getValues();
+      savePlan.mutate(
+        { baseRevision: baseline.revision, document },
+        {
+          onSuccess: (saved) => {
+            setBaseline(saved);
+            form.reset(structuredClone(submitted), { keepValues: true });
+          },
+          onError: (error) => {
+            if (isRevisionConflict(error)) setConflict(document);
+          },
+        },
+      );
+    })();
+  }, [readOnly, savePlan, form, baseline.revision]);
+  useSaveShortcut(save, !readOnly);
+
+  const blocker = useBlocker(
+    ({ currentLocation, nextLocation }) =>
+      dirty && !readOnly && !leaving.current && currentLocation.pathname !== nextLocation.pathname,
+  );
+  useEffect(() => {
+    if (!dirty || readOnly) return;
+    const onUnload = (event: BeforeUnloadEvent) => event.preventDefault();
+    window.addEventListener("beforeunload", onUnload);
+    return () => window.removeEventListener("beforeunload", onUnload);
+  }, [dirty, readOnly]);
+
+  const errorCount = countErrors(form.formState.errors);
+
+  return (
+    <FormProvider {...form}>
+      <div>
+        <p className="mb-2 text-sm">
+          <Link to={paths.sites} className="text-ink underline">
+            Sites
+          </Link>{" "}
+          ›{" "}
+          <Link to={paths.site(baseline.siteId)} className="text-ink underline">
+            {baseline.siteName}
+          </Link>
+        </p>
+        <header className="mb-4 flex flex-wrap items-end justify-between gap-4 border-b border-rule pb-4">
+          <div>
+            <h1 className="text-2xl font-semibold tracking-tight text-ink-deep">{baseline.name}</h1>
+            <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-ink-soft">
+              <span>{PLAN_STATUS_LABELS[baseline.status]}</span>
+              {baseline.sandbox ? (
+                <span className="rounded-full border border-ochre/60 bg-ochre-soft px-2 py-0.5 text-xs font-medium text-ink-deep">
+                  Sandbox
+                </span>
+              ) : null}
+              <span>· by {baseline.author.name}</span>
+              <span className="font-mono text-xs">· revision {baseline.revision}</span>
+              {readOnly ? <span className="font-medium text-ink">· read only</span> : null}
+            </p>
+          </div>
+          <div className="flex flex-wrap items-center gap-3">
+            <AnalysisState
+              typing={typing}
+              valid={livePlan !== null}
+              pending={analysis.pending}
+              current={analysis.current}
+              error={analysis.error}
+              errorCount={errorCount}
+            />
+            {!readOnly ? (
+              <>
+                <span
+                  className={`text-sm ${dirty ? "font-medium text-ochre" : "text-ink-soft"}`}
+                  aria-live="polite"
+                >
+                  {dirty ? "● Unsaved changes" : savePlan.isSuccess ? "Saved" : "No changes"}
+                </span>
+                <Button
+                  onClick={save}
+                  disabled={savePlan.isPending || !dirty}
+                  title="Save (Ctrl+S)"
+                >
+                  {savePlan.isPending ? "Saving…" : "Save"}
+                </Button>
+              </>
+            ) : null}
+          </div>
+        </header>
+
+        {savePlan.isError && !isRevisionConflict(savePlan.error) ? (
+          <div className="mb-4">
+            <ErrorNotice error={savePlan.error} title="Could not save the plan" />
+          </div>
+        ) : null}
+        {conflict ? (
+          <ConflictNotice
+            pendingCopy={createPlan.isPending}
+            copyError={createPlan.error}
+            reloadError={reloadError}
+            onReload={async () => {
+              // The user chose the saved version: their local edits are dropped on purpose.
+              setReloadError(null);
+              try {
+                const fresh = await queryClient.fetchQuery({
+                  ...planQueryOptions(baseline.id),
+                  staleTime: 0,
+                });
+                setBaseline(fresh);
+                form.reset(planToForm(fresh.document, units));
+                setConflict(null);
+                savePlan.reset();
+              } catch (error) {
+                setReloadError(error);
+              }
+            }}
+            onCopy={() =>
+              createPlan.mutate(
+                { name: `${baseline.name} (my copy)`.slice(0, 120), document: conflict },
+                {
+                  onSuccess: (copy) => {
+                    leaving.current = true;
+                    setConflict(null);
+                    navigate(paths.plan(copy.id));
+                  },
+                },
+              )
+            }
+          />
+        ) : null}
+        {blocker.state === "blocked" ? (
+          <div className="mb-4">
+            <Notice tone="caution">
+              <p className="font-medium">This plan has unsaved changes.</p>
+              <div className="mt-2 flex gap-2">
+                <Button variant="secondary" onClick={() => blocker.reset()}>
+                  Stay and keep editing
+                </Button>
+                <Button variant="danger" onClick={() => blocker.proceed()}>
+                  Leave without saving
+                </Button>
+              </div>
+            </Notice>
+          </div>
+        ) : null}
+
+        <nav aria-label="Designer views" className="mb-4 flex gap-1">
+          {VIEWS.map((v) => (
+            <button
+              key={v.view}
+              type="button"
+              aria-current={view === v.view ? "page" : undefined}
+              onClick={() => setParam("view", v.view)}
+              className={`rounded-md px-3 py-1.5 text-sm font-medium ${
+                view === v.view ? "bg-ink text-card" : "text-ink hover:bg-paper-deep"
+              }`}
+            >
+              {v.label}
+            </button>
+          ))}
+        </nav>
+
+        <div hidden={view !== "design"}>
+          <div className="grid gap-5 xl:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
+            <Card>
+              <div
+                role="tablist"
+                aria-label="Plan inputs"
+                className="mb-4 flex gap-4 border-b border-rule"
+              >
+                {(
+                  [
+                    ["models", "Ground models"],
+                    ["spread", "Spread"],
+                  ] as const
+                ).map(([key, label]) => (
+                  <button
+                    key={key}
+                    type="button"
+                    role="tab"
+                    aria-selected={editor === key}
+                    onClick={() => setParam("edit", key)}
+                    className={`-mb-px border-b-2 pb-2 text-base font-semibold ${
+                      editor === key
+                        ? "border-ink text-ink-deep"
+                        : "border-transparent text-ink-soft hover:text-ink"
+                    }`}
+                  >
+                    {label}
+                  </button>
+                ))}
+              </div>
+              <form
+                noValidate
+                aria-label="Plan inputs"
+                onSubmit={(e) => {
+                  e.preventDefault();
+                  save();
+                }}
+              >
+                <fieldset disabled={readOnly} className="min-w-0">
+                  <div hidden={editor !== "models"}>
+                    <ErrorBoundary title="The ground models panel failed to draw">
+                      <GroundModelsPanel
+                        units={units}
+                        selected={selectedModel}
+                        onSelect={setSelectedModel}
+                        readOnly={readOnly}
+                      />
+                      <MaterialSourceNote />
+                    </ErrorBoundary>
+                  </div>
+                  <div hidden={editor !== "spread"}>
+                    <ErrorBoundary title="The spread panel failed to draw">
+                      <SpreadPanel units={units} readOnly={readOnly} />
+                    </ErrorBoundary>
+                  </div>
+                </fieldset>
+              </form>
+            </Card>
+            <ErrorBoundary title="The analysis failed to draw">
+              <ResultsPanel
+                analysis={analysis}
+                units={units}
+                selectedModel={selectedModel}
+                onSelectModel={setSelectedModel}
+                readOnly={readOnly}
+                onApplyRecommendation={(spread) => {
+                  const opts = { shouldDirty: true, shouldValidate: true };
+                  form.setValue(
+                    "spread.spacing",
+                    formatInput("length", spread.spacing, units),
+                    opts,
+                  );
+                  form.setValue("spread.channels", String(spread.channels), opts);
+                  spread.shots.forEach((position, i) =>
+                    form.setValue(
+                      `spread.shots.${i}.position`,
+                      formatInput("length", position, units),
+                      opts,
+                    ),
+                  );
+                }}
+              />
+            </ErrorBoundary>
+          </div>
+        </div>
+        {view === "sweep" ? (
+          <ErrorBoundary title="The design sweep failed to draw">
+            <SweepView plan={livePlan} detail={baseline} units={units} />
+          </ErrorBoundary>
+        ) : null}
+        {view === "compare" ? (
+          <ErrorBoundary title="Side by side failed to draw">
+            <CompareView plan={livePlan} detail={baseline} units={units} />
+          </ErrorBoundary>
+        ) : null}
+      </div>
+    </FormProvider>
+  );
+}
+
+function countErrors(errors: unknown): number {
+  if (!errors || typeof errors !== "object") return 0;
+  let count = 0;
+  for (const [key, value] of Object.entries(errors)) {
+    if (key === "ref" || key === "type" || key === "types") continue;
+    if (key === "message" && typeof value === "string") count += 1;
+    else count += countErrors(value);
+  }
+  return count;
+}
+
+function AnalysisState({
+  typing,
+  valid,
+  pending,
+  current,
+  error,
+  errorCount,
+}: {
+  typing: boolean;
+  valid: boolean;
+  pending: boolean;
+  current: boolean;
+  error: unknown;
+  errorCount: number;
+}) {
+  let text: string;
+  let tone = "text-ink-soft";
+  if (!valid && !typing) {
+    text =
+      errorCount > 0
+        ? `Fix ${errorCount} marked field${errorCount === 1 ? "" : "s"} to update the analysis`
+        : "Fix the marked fields to update the analysis";
+    tone = "text-brick";
+  } else if (typing || pending) {
+    text = "Updating…";
+    tone = "text-ochre";
+  } else if (error) {
+    text = "The analysis failed";
+    tone = "text-brick";
+  } else if (current) {
+    text = "Analysis up to date";
+    tone = "text-moss";
+  } else {
+    text = "Waiting for the modeller…";
+  }
+  return (
+    <span role="status" aria-live="polite" className={`text-sm font-medium ${tone}`}>
+      {text}
+    </span>
+  );
+}
+
+function ConflictNotice({
+  onReload,
+  onCopy,
+  pendingCopy,
+  copyError,
+  reloadError,
+}: {
+  onReload: () => void;
+  onCopy: () => void;
+  pendingCopy: boolean;
+  copyError: unknown;
+  reloadError: unknown;
+}) {
+  return (
+    <div className="mb-4">
+      <Notice tone="caution">
+        <p className="font-medium">
+          Someone saved a newer revision of this plan while you were editing.
+        </p>
+        <p className="mt-1">
+          Your changes are still here and nothing has been lost. Reload to see their version (your
+          edits are discarded), or save your edits as a copy of the plan.
+        </p>
+        <div className="mt-2 flex gap-2">
+          <Button variant="secondary" onClick={onReload}>
+            Reload their version
+          </Button>
+          <Button onClick={onCopy} disabled={pendingCopy}>
+            {pendingCopy ? "Saving a copy…" : "Save as a copy"}
+          </Button>
+        </div>
+        {copyError ? (
+          <div className="mt-2">
+            <ErrorNotice error={copyError} title="Could not save the copy" />
+          </div>
+        ) : null}
+        {reloadError ? (
+          <div className="mt-2">
+            <ErrorNotice error={reloadError} title="Could not reload the plan" />
+          </div>
+        ) : null}
+      </Notice>
+    </div>
+  );
+}

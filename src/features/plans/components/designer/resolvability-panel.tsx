@@ -1,0 +1,242 @@
+import { Button } from "@/components/button";
+import { formatQuantity, type UnitSystem } from "@/lib/units";
+import type { ModelAnalysis, Plan, PlanAnalysis, Segment } from "../../lib/engine";
+import { applyRecommendation, type AppliedSpread } from "../../lib/apply-recommendation";
+import { VerdictBadge, VERDICT_MEANINGS } from "../verdict-badge";
+
+/** The cautions every design check carries (design.md). */
+export function Cautions() {
+  return (
+    <aside
+      aria-label="Cautions"
+      className="mt-4 rounded-md border border-ochre/50 bg-ochre-soft/60 px-4 py-3 text-sm text-ink-deep"
+    >
+      <p className="font-semibold">Before anyone goes to site</p>
+      <ul className="mt-1 list-disc space-y-1 pl-5">
+        <li>
+          A design check is a model, not ground truth: boreholes and a qualified geophysicist’s
+          review decide. Defer to local codes and licensed practice.
+        </li>
+        <li>
+          Explosive sources need a licensed blaster and local permits; hammer and weight-drop
+          sources need eye and hearing protection.
+        </li>
+        <li>
+          Clear buried utilities before spiking geophones or drilling shot holes; lines along roads
+          need traffic management.
+        </li>
+      </ul>
+    </aside>
+  );
+}
+
+function segmentText(segment: Segment | null, units: UnitSystem): string {
+  if (!segment) return "never first";
+  const from = formatQuantity("length", segment.from, units, 1);
+  return segment.to === null
+    ? `from ${from} on`
+    : `${from} – ${formatQuantity("length", segment.to, units, 1)}`;
+}
+
+/**
+ * Resolvability: per refractor of one ground model its verdict, first-arrival segment and
+ * geophone count, the depth a practitioner would interpret against the true depth, the pick
+ * uncertainty and the thinnest layer the spread would resolve; then the plan's
+ * recommendation with a one-click apply, the layers no spread can reveal, and the cautions.
+ */
+export function ResolvabilityPanel({
+  plan,
+  analysis,
+  model,
+  units,
+  readOnly,
+  current,
+  onApply,
+}: {
+  plan: Plan;
+  analysis: PlanAnalysis;
+  model: ModelAnalysis;
+  units: UnitSystem;
+  readOnly: boolean;
+  current: boolean;
+  onApply: (spread: AppliedSpread) => void;
+}) {
+  const interpreted = new Map(
+    (model.interpretation?.refractors ?? []).map((r) => [r.layer, r] as const),
+  );
+  const sigma = new Map((model.uncertainty?.refractors ?? []).map((r) => [r.layer, r] as const));
+  const tolerance = plan.criteria.depthTolerance;
+  const rec = analysis.recommendation;
+  const applied = applyRecommendation(plan.spread, rec, units);
+  const unchanged =
+    Math.abs(applied.spacing - plan.spread.spacing) < 1e-9 &&
+    applied.channels === plan.spread.channels;
+
+  return (
+    <div>
+      <div className="overflow-x-auto">
+        <table className="w-full text-sm" aria-label={`Resolvability of ${model.name}`}>
+          <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
+            <tr className="border-b border-rule">
+              <th scope="col" className="py-1.5 pr-3 font-semibold">
+                Refractor
+              </th>
+              <th scope="col" className="py-1.5 pr-3 font-semibold">
+                Verdict
+              </th>
+              <th scope="col" className="py-1.5 pr-3 font-semibold">
+                Segment
+              </th>
+              <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
+                Geophones
+              </th>
+              <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
+                True depth
+              </th>
+              <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
+                Interpreted
+              </th>
+              <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
+                Error
+              </th>
+              <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
+                ± σ
+              </th>
+              <th scope="col" className="py-1.5 text-right font-semibold">
+                Min. thickness
+              </th>
+            </tr>
+          </thead>
+          <tbody className="font-mono text-xs">
+            <tr className="border-b border-rule/60">
+              <th scope="row" className="py-2 pr-3 text-left font-sans text-sm font-medium">
+                Direct wave
+                <span className="block text-xs font-normal text-ink-soft">
+                  layer 1 · {formatQuantity("velocity", model.direct.velocity, units)}
+                </span>
+              </th>
+              <td className="py-2 pr-3">
+                <VerdictBadge verdict={model.direct.status} />
+              </td>
+              <td className="py-2 pr-3">{segmentText(model.direct.segment, units)}</td>
+              <td className="py-2 pr-3 text-right">{model.direct.geophones}</td>
+              <td className="py-2 pr-3 text-right">—</td>
+              <td className="py-2 pr-3 text-right">—</td>
+              <td className="py-2 pr-3 text-right">—</td>
+              <td className="py-2 pr-3 text-right">—</td>
+              <td className="py-2 text-right">—</td>
+            </tr>
+            {model.refractors.map((r) => {
+              const i = interpreted.get(r.layer);
+              const s = sigma.get(r.layer);
+              const tooFar = i?.exceedsTolerance;
+              return (
+                <tr key={r.layer} className="border-b border-rule/60" data-layer={r.layer}>
+                  <th scope="row" className="py-2 pr-3 text-left font-sans text-sm font-medium">
+                    Layer {r.layer}
+                    {r.name ? ` (${r.name})` : ""}
+                    <span className="block text-xs font-normal text-ink-soft">
+                      {formatQuantity("velocity", r.velocity, units)}
+                    </span>
+                  </th>
+                  <td className="py-2 pr-3">
+                    <span title={VERDICT_MEANINGS[r.status]}>
+                      <VerdictBadge verdict={r.status} />
+                    </span>
+                  </td>
+                  <td className="py-2 pr-3">{segmentText(r.segment, units)}</td>
+                  <td className="py-2 pr-3 text-right">{r.geophones}</td>
+                  <td className="py-2 pr-3 text-right">
+                    {formatQuantity("length", r.depth, units)}
+                  </td>
+                  <td className="py-2 pr-3 text-right">
+                    {i ? (
+                      formatQuantity("length", i.interpretedDepth, units)
+                    ) : (
+                      <span className="text-ink-faint">not seen</span>
+                    )}
+                  </td>
+                  <td
+                    className={`py-2 pr-3 text-right ${tooFar ? "font-semibold text-brick" : ""}`}
+                  >
+                    {i && i.error !== null ? (
+                      <>
+                        {i.error > 0 ? "+" : ""}
+                        {formatQuantity("length", i.error, units)}
+                        {i.errorPercent !== null ? (
+                          <span className="block text-ink-soft">
+                            {i.errorPercent > 0 ? "+" : ""}
+                            {formatQuantity("percent", i.errorPercent, units)}
+                          </span>
+                        ) : null}
+                      </>
+                    ) : (
+                      "—"
+                    )}
+                  </td>
+                  <td
+                    className={`py-2 pr-3 text-right ${s?.exceedsTolerance ? "font-semibold text-brick" : ""}`}
+                  >
+                    {s ? formatQuantity("length", s.depthSigma, units) : "—"}
+                  </td>
+                  <td className="py-2 text-right">
+                    {r.minimumThickness === null
+                      ? "—"
+                      : formatQuantity("length", r.minimumThickness, units)}
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      <p className="mt-2 text-xs text-ink-soft">
+        Segment and geophones: first shot’s longest branch; verdict: worst over every shot branch.
+        Interpreted depth: intercept-time method on the resolved segments only, under shot 1. Errors
+        beyond the depth tolerance ({formatQuantity("length", tolerance, units)}) are marked.
+      </p>
+
+      {model.recommendation.hidden.length > 0 ? (
+        <ul className="mt-3 space-y-2" aria-label="Layers no spread can reveal">
+          {model.recommendation.hidden.map((h) => (
+            <li
+              key={h.layer}
+              className="rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick"
+            >
+              <span aria-hidden>⚑ </span>
+              {h.statement}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+
+      <section
+        aria-label="Recommendation"
+        className="mt-4 rounded-md border border-rule bg-paper px-4 py-3"
+      >
+        <h3 className="text-sm font-semibold text-ink-deep">Recommendation</h3>
+        <p className="mt-1 text-sm">{rec.text}</p>
+        <p className="mt-1 font-mono text-xs text-ink-soft">
+          Largest spacing{" "}
+          {rec.maxSpacing === null ? "any" : formatQuantity("length", rec.maxSpacing, units)} ·
+          branch length {formatQuantity("length", rec.spreadLength, units)} · {rec.channels}{" "}
+          channels
+        </p>
+        {!readOnly ? (
+          <div className="mt-2 flex flex-wrap items-center gap-3">
+            <Button onClick={() => onApply(applied)} disabled={!current || unchanged}>
+              Apply: {formatQuantity("length", applied.spacing, units)} spacing, {applied.channels}{" "}
+              channels
+            </Button>
+            <span className="text-xs text-ink-soft">
+              {unchanged
+                ? "The spread already follows the recommendation."
+                : "Spacing rounded down to a practical value; shots move with the spread ends."}
+            </span>
+          </div>
+        ) : null}
+      </section>
+      <Cautions />
+    </div>
+  );
+}

@@ -1,0 +1,246 @@
+import { useFieldArray, useFormContext, useFormState, useWatch } from "react-hook-form";
+import { MAX_SHOTS } from "@engine";
+import { Button } from "@/components/button";
+import { Field } from "@/components/field";
+import { formatInput, formatQuantity, parseInput, unitLabel, type UnitSystem } from "@/lib/units";
+import type { PlanForm } from "../../lib/plan-form";
+import { patternShots, spreadFigures, type ShotPattern } from "../../lib/spread-figures";
+import { CellInput } from "./cell-input";
+import { errorAt } from "./ground-models-panel";
+
+const PATTERNS: Array<{ pattern: ShotPattern; label: string }> = [
+  { pattern: "ends", label: "End shots" },
+  { pattern: "off-end", label: "Off-end shots" },
+  { pattern: "centre", label: "Centre shot" },
+  { pattern: "interior", label: "Interior shots" },
+];
+
+/** Spread: geophone spacing and count, where the line starts, the shots, and the criteria. */
+export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: boolean }) {
+  const { control, register } = useFormContext<PlanForm>();
+  const { errors } = useFormState({ control });
+  const shots = useFieldArray({ control, name: "spread.shots" });
+  const spread = useWatch({ control, name: "spread" });
+  const m = unitLabel("length", units);
+
+  const geometry = {
+    spacing: parseInput("length", spread?.spacing, units),
+    channels: parseInput("count", spread?.channels, units),
+    firstGeophone: parseInput("length", spread?.firstGeophone, units),
+  };
+  const sound =
+    geometry.spacing !== undefined &&
+    geometry.spacing > 0 &&
+    geometry.channels !== undefined &&
+    Number.isInteger(geometry.channels) &&
+    geometry.channels >= 1 &&
+    geometry.firstGeophone !== undefined &&
+    Number.isFinite(geometry.firstGeophone);
+  const shotPositions = (spread?.shots ?? []).map((s) => parseInput("length", s.position, units));
+  const figures = sound
+    ? spreadFigures(
+        geometry as { spacing: number; channels: number; firstGeophone: number },
+        shotPositions.map((p) => (p !== undefined && Number.isFinite(p) ? p : Number.NaN)),
+      )
+    : null;
+
+  const addPattern = (pattern: ShotPattern) => {
+    if (!sound) return;
+    const taken = new Set(
+      shotPositions.filter((p): p is number => p !== undefined).map((p) => p.toFixed(6)),
+    );
+    for (const shot of patternShots(geometry as never, pattern)) {
+      if (taken.has(shot.position.toFixed(6))) continue;
+      if (shots.fields.length >= MAX_SHOTS) break;
+      shots.append({ position: formatInput("length", shot.position, units), label: shot.label });
+      taken.add(shot.position.toFixed(6));
+    }
+  };
+
+  const shotsError = errorAt(errors, "spread.shots");
+
+  return (
+    <div className="flex flex-col gap-5">
+      <fieldset>
+        <legend className="mb-2 text-sm font-semibold text-ink">Geophones</legend>
+        <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">
+          <Field label={`Spacing (${m})`} error={errorAt(errors, "spread.spacing")}>
+            <input
+              className="field-input font-mono"
+              inputMode="decimal"
+              {...register("spread.spacing")}
+            />
+          </Field>
+          <Field label="Channels" error={errorAt(errors, "spread.channels")}>
+            <input
+              className="field-input font-mono"
+              inputMode="numeric"
+              {...register("spread.channels")}
+            />
+          </Field>
+          <Field label={`First geophone at (${m})`} error={errorAt(errors, "spread.firstGeophone")}>
+            <input
+              className="field-input font-mono"
+              inputMode="decimal"
+              {...register("spread.firstGeophone")}
+            />
+          </Field>
+        </div>
+        {figures ? (
+          <p className="mt-2 font-mono text-xs text-ink-soft" aria-live="polite">
+            Spread length {formatQuantity("length", figures.length, units)} · geophones from{" "}
+            {formatQuantity("length", figures.first, units)} to{" "}
+            {formatQuantity("length", figures.last, units)}
+          </p>
+        ) : null}
+      </fieldset>
+
+      <fieldset>
+        <legend className="mb-2 text-sm font-semibold text-ink">Shots</legend>
+        {!readOnly ? (
+          <div className="mb-2 flex flex-wrap gap-1.5" aria-label="Add shots">
+            {PATTERNS.map(({ pattern, label }) => (
+              <Button
+                key={pattern}
+                variant="secondary"
+                className="px-2.5! py-1! text-xs!"
+                disabled={!sound || shots.fields.length >= MAX_SHOTS}
+                onClick={() => addPattern(pattern)}
+              >
+                + {label}
+              </Button>
+            ))}
+            <Button
+              variant="quiet"
+              className="px-2.5! py-1! text-xs!"
+              disabled={shots.fields.length >= MAX_SHOTS}
+              onClick={() => shots.append({ position: "", label: "" })}
+            >
+              + Shot at…
+            </Button>
+          </div>
+        ) : null}
+        <table className="w-full text-sm">
+          <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
+            <tr className="border-b border-rule">
+              <th scope="col" className="w-8 py-1.5 font-semibold">
+                #
+              </th>
+              <th scope="col" className="w-32 py-1.5 pr-2 font-semibold">
+                Position ({m})
+              </th>
+              <th scope="col" className="py-1.5 pr-2 font-semibold">
+                Label
+              </th>
+              <th scope="col" className="py-1.5 pr-2 font-semibold">
+                Offsets it records
+              </th>
+              <th scope="col">
+                <span className="sr-only">Remove</span>
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {shots.fields.map((field, i) => {
+              const f = figures?.shots[i];
+              return (
+                <tr key={field.id} className="border-b border-rule/60 align-top">
+                  <td className="py-1.5 pt-2.5 font-mono text-xs text-ink-soft">{i + 1}</td>
+                  <td className="py-1.5 pr-2">
+                    <CellInput
+                      label={`Shot ${i + 1} position (${m})`}
+                      inputMode="decimal"
+                      error={errorAt(errors, `spread.shots.${i}.position`)}
+                      {...register(`spread.shots.${i}.position`)}
+                    />
+                  </td>
+                  <td className="py-1.5 pr-2">
+                    <CellInput
+                      label={`Shot ${i + 1} label`}
+                      className="font-sans!"
+                      error={errorAt(errors, `spread.shots.${i}.label`)}
+                      {...register(`spread.shots.${i}.label`)}
+                    />
+                  </td>
+                  <td className="py-1.5 pr-2 pt-2 font-mono text-xs text-ink-soft">
+                    {f && Number.isFinite(f.position) ? (
+                      <>
+                        {formatQuantity("length", f.nearestOffset, units)} to{" "}
+                        {formatQuantity("length", f.farthestOffset, units)}
+                        <span className="block font-sans">
+                          {f.where === "inside"
+                            ? "inside the spread"
+                            : `${formatQuantity("length", f.outside, units)} ${f.where === "before" ? "before the first" : "beyond the last"} geophone`}
+                        </span>
+                      </>
+                    ) : (
+                      "—"
+                    )}
+                  </td>
+                  <td className="py-1.5 text-right">
+                    {!readOnly ? (
+                      <button
+                        type="button"
+                        aria-label={`Remove shot ${i + 1}`}
+                        title={`Remove shot ${i + 1}`}
+                        disabled={shots.fields.length <= 1}
+                        onClick={() => shots.remove(i)}
+                        className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40"
+                      >
+                        ✕
+                      </button>
+                    ) : null}
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+        {shotsError ? (
+          <p role="alert" className="mt-2 text-xs font-medium text-brick">
+            {shotsError}
+          </p>
+        ) : null}
+      </fieldset>
+
+      <fieldset>
+        <legend className="mb-2 text-sm font-semibold text-ink">What counts as resolved</legend>
+        <div className="grid grid-cols-1 gap-3 sm:grid-cols-3">
+          <Field
+            label="Minimum geophones per segment"
+            hint="At least 3 gives a velocity with a residual (common practice)."
+            error={errorAt(errors, "criteria.minGeophones")}
+          >
+            <input
+              className="field-input font-mono"
+              inputMode="numeric"
+              {...register("criteria.minGeophones")}
+            />
+          </Field>
+          <Field
+            label="Pick error (ms)"
+            hint="Hammer data: about 0.5–1 ms (common practice)."
+            error={errorAt(errors, "criteria.pickError")}
+          >
+            <input
+              className="field-input font-mono"
+              inputMode="decimal"
+              {...register("criteria.pickError")}
+            />
+          </Field>
+          <Field
+            label={`Depth tolerance (${m})`}
+            hint="Largest acceptable depth error or uncertainty."
+            error={errorAt(errors, "criteria.depthTolerance")}
+          >
+            <input
+              className="field-input font-mono"
+              inputMode="decimal"
+              {...register("criteria.depthTolerance")}
+            />
+          </Field>
+        </div>
+      </fieldset>
+    </div>
+  );
+}

@@ -1,0 +1,62 @@
+/**
+ * Turning the engine's recommendation into a spread the crew can lay out: a practical
+ * spacing no larger than the recommended maximum, enough channels for the recommended
+ * branch length at that spacing, and the shots moved with the spread (the engine's
+ * "follow" rule: shots before the spread keep their distance from the first geophone, shots
+ * beyond it from the last, interior shots their fraction of the spread).
+ */
+import { fromDisplay, toDisplay, type UnitSystem } from "@/lib/units";
+import { MAX_CHANNELS } from "@engine";
+import { followShots, type Spread } from "./engine";
+
+/** A round spacing (in the user's units) at or below `shown`: steps of 0.25, 0.5, 1 or 5. */
+export function practicalSpacing(shown: number): number {
+  if (!(shown > 0) || !Number.isFinite(shown)) return shown;
+  const step = shown < 2 ? 0.25 : shown < 5 ? 0.5 : shown < 20 ? 1 : 5;
+  const rounded = Math.floor(shown / step + 1e-9) * step;
+  return rounded > 0 ? rounded : Math.floor(shown * 100) / 100;
+}
+
+export interface AppliedSpread {
+  spacing: number;
+  channels: number;
+  shots: number[];
+}
+
+/**
+ * The spread after applying a recommendation (SI). `maxSpacing` null means any spacing
+ * resolves the bounded segments: the spacing stays. Channels reach `spreadLength` from
+ * offset 0 at the new spacing (the engine's own rule: ⌊L/Δx⌋ + 1), from 2 up to the schema's
+ * maximum.
+ */
+export function applyRecommendation(
+  spread: Spread,
+  recommendation: { maxSpacing: number | null; spreadLength: number },
+  units: UnitSystem,
+): AppliedSpread {
+  const spacing =
+    recommendation.maxSpacing === null
+      ? spread.spacing
+      : fromDisplay(
+          "length",
+          practicalSpacing(toDisplay("length", recommendation.maxSpacing, units)),
+          units,
+        );
+  const channels = Math.min(
+    MAX_CHANNELS,
+    Math.max(2, Math.floor(recommendation.spreadLength / spacing + 1e-9) + 1),
+  );
+  const shots = Array.from(
+    followShots(
+      {
+        spacing: spread.spacing,
+        channels: spread.channels,
+        firstGeophone: spread.firstGeophone,
+        shots: spread.shots.map((s) => s.position),
+      },
+      spacing,
+      channels,
+    ),
+  );
+  return { spacing, channels, shots };
+}

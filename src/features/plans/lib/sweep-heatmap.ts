@@ -1,0 +1,152 @@
+/**
+ * The Design sweep heatmap as data: one rectangle per cell of the engine's grid (columns the
+ * spread axis, rows the model parameter), coloured by the cell's verdict, with axis ticks and
+ * the readout for each cell. Pure; the component binds it to SVG.
+ */
+import { scaleBand } from "d3";
+import { palette } from "@/lib/chart/palette";
+import { formatQuantity, unitLabel, type UnitSystem } from "@/lib/units";
+import { CELL_INVALID, CELL_NOT_COMPUTED, STATUSES, type Status, type SweepResult } from "./engine";
+
+export const CELL_FILL: Record<Status | "invalid" | "pending", string> = {
+  resolved: palette.mossSoft,
+  "under-sampled": palette.ochreSoft,
+  blind: "#e4b3a8",
+  inverted: palette.brick,
+  invalid: palette.paperDeep,
+  pending: palette.card,
+};
+
+export interface HeatCell {
+  row: number;
+  col: number;
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+  state: Status | "invalid" | "pending";
+  fill: string;
+  axisValue: number;
+  parameterValue: number;
+  depthError: number | null;
+  readout: string;
+}
+
+export interface HeatmapModel {
+  width: number;
+  height: number;
+  margin: { top: number; right: number; bottom: number; left: number };
+  cells: HeatCell[];
+  xTicks: Array<{ px: number; label: string }>;
+  yTicks: Array<{ px: number; label: string }>;
+  xLabel: string;
+  yLabel: string;
+}
+
+export function cellState(code: number): HeatCell["state"] {
+  if (code === CELL_INVALID) return "invalid";
+  if (code === CELL_NOT_COMPUTED) return "pending";
+  return STATUSES[code] ?? "invalid";
+}
+
+export function axisText(kind: "spacing" | "channels", value: number, units: UnitSystem) {
+  return kind === "spacing"
+    ? formatQuantity("length", value, units)
+    : `${Math.round(value)} channels`;
+}
+
+export function parameterText(
+  parameter: SweepResult["parameter"],
+  value: number,
+  units: UnitSystem,
+) {
+  return parameter.kind === "thickness"
+    ? formatQuantity("length", value, units)
+    : formatQuantity("velocity", value, units);
+}
+
+export function buildHeatmap(result: SweepResult, width: number, units: UnitSystem): HeatmapModel {
+  const margin = { top: 12, right: 12, bottom: 48, left: 84 };
+  const plotWidth = Math.max(100, width - margin.left - margin.right);
+  const cellH = Math.max(6, Math.min(22, 420 / result.rows));
+  const plotHeight = cellH * result.rows;
+  const height = plotHeight + margin.top + margin.bottom;
+  const x = scaleBand<number>()
+    .domain(Array.from({ length: result.cols }, (_, j) => j))
+    .range([margin.left, margin.left + plotWidth]);
+  // Row 0 (smallest parameter) at the bottom.
+  const y = scaleBand<number>()
+    .domain(Array.from({ length: result.rows }, (_, i) => result.rows - 1 - i))
+    .range([margin.top, margin.top + plotHeight]);
+  const cells: HeatCell[] = [];
+  const paramName = `layer ${result.parameter.layer} ${result.parameter.kind}`;
+  for (let row = 0; row < result.rows; row++) {
+    for (let col = 0; col < result.cols; col++) {
+      const index = row * result.cols + col;
+      const state = cellState(result.status[index]);
+      const e = result.depthError[index];
+      const depthError = Number.isFinite(e) ? e : null;
+      const axisValue = result.axis.values[col];
+      const parameterValue = result.parameter.values[row];
+      const verdict =
+        state === "invalid"
+          ? "interfaces cross: not a valid model"
+          : state === "pending"
+            ? "not computed"
+            : state;
+      const errorText =
+        depthError === null
+          ? "no depth interpreted"
+          : `depth error ${depthError > 0 ? "+" : ""}${formatQuantity("length", depthError, units)}`;
+      cells.push({
+        row,
+        col,
+        x: x(col) ?? 0,
+        y: y(row) ?? 0,
+        w: x.bandwidth(),
+        h: y.bandwidth(),
+        state,
+        fill: CELL_FILL[state],
+        axisValue,
+        parameterValue,
+        depthError,
+        readout:
+          `${result.axis.kind} ${axisText(result.axis.kind, axisValue, units)} · ` +
+          `${paramName} ${parameterText(result.parameter, parameterValue, units)} → ${verdict}; ${errorText}`,
+      });
+    }
+  }
+  const every = (n: number, want: number) => Math.max(1, Math.ceil(n / want));
+  const xStep = every(result.cols, 8);
+  const yStep = every(result.rows, 8);
+  const xTicks = Array.from(result.axis.values)
+    .map((v, j) => ({ j, v }))
+    .filter(({ j }) => j % xStep === 0)
+    .map(({ j, v }) => ({
+      px: (x(j) ?? 0) + x.bandwidth() / 2,
+      label:
+        result.axis.kind === "spacing"
+          ? formatQuantity("length", v, units, 2).replace(` ${unitLabel("length", units)}`, "")
+          : String(Math.round(v)),
+    }));
+  const yTicks = Array.from(result.parameter.values)
+    .map((v, i) => ({ i, v }))
+    .filter(({ i }) => i % yStep === 0)
+    .map(({ i, v }) => ({
+      px: (y(i) ?? 0) + y.bandwidth() / 2,
+      label: parameterText(result.parameter, v, units),
+    }));
+  return {
+    width,
+    height,
+    margin,
+    cells,
+    xTicks,
+    yTicks,
+    xLabel:
+      result.axis.kind === "spacing"
+        ? `Geophone spacing (${unitLabel("length", units)})`
+        : "Channels",
+    yLabel: `Layer ${result.parameter.layer} ${result.parameter.kind}`,
+  };
+}
