@@ -80,7 +80,9 @@ export function maxSpacingFor(
       if (len > 0) best = Math.min(best, len / minGeophones);
     }
   }
-  return Number.isFinite(best) ? best : null;
+  // a hair below L / count: a geophone standing exactly at the shot (offset 0) is on no
+  // branch, so the direct-wave segment is open at 0
+  return Number.isFinite(best) ? best * (1 - 1e-9) : null;
 }
 
 /** Start offset (m) of the last, unbounded first-arrival piece: the last crossover distance. */
