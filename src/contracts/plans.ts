@@ -4,7 +4,7 @@
  * schema (workers/engine/plan-schema.ts), stored in SI units.
  */
 import { z } from "zod";
-import { planSchema, type Plan } from "../../workers/engine/plan-schema";
+import { planSchema, type Layer, type Plan, type Shot } from "../../workers/engine/plan-schema";
 import type { Role } from "./common";
 
 export const PLAN_STATUSES = [
@@ -40,6 +40,13 @@ export const planCreateSchema = z.strictObject({
   document: planSchema.optional(),
 });
 export type PlanCreateInput = z.input<typeof planCreateSchema>;
+
+/** GET /api/sites/:siteId/plans?archived= — default "false" (archived plans hidden). */
+export const planListQuerySchema = z.strictObject({
+  archived: z
+    .enum(["true", "false", "all"], { error: "archived must be true, false or all" })
+    .default("false"),
+});
 
 /** PUT /api/plans/:id — saves a new revision. 409 `revision_conflict` when baseRevision is not the latest. */
 export const planSaveSchema = z.strictObject({
@@ -89,6 +96,48 @@ export type CommentCreateInput = z.input<typeof commentCreateSchema>;
 /** PATCH /api/comments/:id — resolve or reopen a thread (on its first comment). */
 export const commentUpdateSchema = z.strictObject({ resolved: z.boolean() });
 
+/** GET /api/plans/:id/comments?revision= — only the threads on that revision. */
+export const commentListQuerySchema = z.strictObject({
+  revision: z.coerce
+    .number({ error: "revision must be a number" })
+    .int("revision must be a whole number")
+    .min(1, "revision must be at least 1")
+    .optional(),
+});
+
+const revisionNumber = (label: string) =>
+  z.coerce
+    .number({ error: `${label} must be a revision number` })
+    .int(`${label} must be a whole number`)
+    .min(1, `${label} must be at least 1`);
+
+/** GET /api/plans/:id/diff?from=a&to=b */
+export const diffQuerySchema = z.strictObject({
+  from: revisionNumber("from"),
+  to: revisionNumber("to"),
+});
+
+/** GET /api/notifications?unread=true&limit= */
+export const notificationListQuerySchema = z.strictObject({
+  unread: z.enum(["true", "false"], { error: "unread must be true or false" }).default("false"),
+  limit: z.coerce
+    .number({ error: "limit must be a number" })
+    .int("limit must be a whole number")
+    .min(1, "limit must be at least 1")
+    .max(500, "limit must be at most 500")
+    .default(100),
+});
+
+/** GET /api/plans/:id/activity (and .csv) and GET /api/audit.csv */
+export const activityQuerySchema = z.strictObject({
+  limit: z.coerce
+    .number({ error: "limit must be a number" })
+    .int("limit must be a whole number")
+    .min(1, "limit must be at least 1")
+    .max(5000, "limit must be at most 5000")
+    .default(1000),
+});
+
 export const notificationSettingsSchema = z.strictObject({
   submitted: z.boolean(),
   decision: z.boolean(),
@@ -96,6 +145,23 @@ export const notificationSettingsSchema = z.strictObject({
   reply: z.boolean(),
 });
 export type NotificationSettings = z.infer<typeof notificationSettingsSchema>;
+/** Every kind of e-mail is on until the user turns it off. */
+export const DEFAULT_NOTIFICATION_SETTINGS: NotificationSettings = {
+  submitted: true,
+  decision: true,
+  mention: true,
+  reply: true,
+};
+
+/** Error codes of the plan routes (beside the common ones in docs/api.md). */
+export const PLAN_ERROR_CODES = {
+  /** 409: the save was based on an older revision. `fields.latestRevision = ["<n>"]`. */
+  revisionConflict: "revision_conflict",
+  /** 409: the plan is in review, approved or archived and cannot be saved. */
+  locked: "plan_locked",
+  /** 409: the workflow step is not allowed from the plan's current status. */
+  illegalTransition: "illegal_transition",
+} as const;
 
 export interface PlanSummary {
   id: string;
@@ -122,7 +188,11 @@ export interface PlanDetail extends PlanSummary {
     comment: boolean;
     reopen: boolean;
     archive: boolean;
+    /** May make a copy (a trainee's copy lands in their sandbox). */
+    duplicate: boolean;
   };
+  /** For an archived plan: the status it returns to when restored; otherwise null. */
+  statusBeforeArchive: PlanStatus | null;
 }
 
 export interface RevisionSummary {
@@ -136,7 +206,112 @@ export interface RevisionSummary {
 export interface RevisionDetail extends RevisionSummary {
   document: Plan;
   /** Analysis summary stored with the revision: per model, per refractor status and depth error. */
-  summary: unknown;
+  summary: RevisionAnalysisSummary | null;
+}
+
+/** One refractor of a model in a revision's stored analysis (depths in m, under the first shot). */
+export interface RefractorSummary {
+  /** 1-based number of the layer whose top this refractor is. */
+  layer: number;
+  name: string | null;
+  status: Verdict;
+  /** True depth to the refractor, m. */
+  trueDepth: number;
+  /** Depth the intercept-time method would give, m; null when the refractor is not resolved. */
+  interpretedDepth: number | null;
+  /** interpretedDepth − trueDepth, m (positive: too deep); null when not interpreted. */
+  error: number | null;
+  /** |error| exceeds the plan's depth tolerance. */
+  exceedsTolerance: boolean;
+  /** Thinnest this layer may be and still be resolved with the spread, m; null when none / half-space. */
+  minimumThickness: number | null;
+}
+
+/** The compact analysis stored with every revision (computed by the server with `analyzePlan`). */
+export interface RevisionAnalysisSummary {
+  format: "spreadsight-revision-summary/1";
+  worstVerdict: Verdict;
+  models: {
+    name: string;
+    worstStatus: Verdict;
+    /** The direct wave's verdict ("resolved" or "under-sampled"). */
+    direct: Verdict;
+    refractors: RefractorSummary[];
+    /** The engine's recommendation sentence for this model. */
+    recommendation: string;
+  }[];
+  recommendation: {
+    maxSpacing: number | null;
+    spreadLength: number;
+    channels: number;
+    text: string;
+  };
+}
+
+/** A value in a diff: numbers in SI units, text, or null when absent. */
+export type DiffValue = number | string | boolean | null;
+
+export interface FieldChange {
+  /** Field name, e.g. "velocity", "thickness", "spacing", "minGeophones". */
+  field: string;
+  from: DiffValue;
+  to: DiffValue;
+}
+
+export interface LayerDiff {
+  /** "added": only in `to`; "removed": only in `from`; "changed": in both with field changes. */
+  change: "added" | "removed" | "changed";
+  /** 0-based index in the older revision (null when added). */
+  fromIndex: number | null;
+  /** 0-based index in the newer revision (null when removed). */
+  toIndex: number | null;
+  from: Layer | null;
+  to: Layer | null;
+  /** The fields that differ (every field of the layer for added/removed). */
+  fields: FieldChange[];
+}
+
+export interface ModelDiff {
+  change: "added" | "removed" | "changed";
+  /** Model name in the older / newer revision (null when absent). Models are matched by name, then by position. */
+  fromName: string | null;
+  toName: string | null;
+  fromIndex: number | null;
+  toIndex: number | null;
+  /** Layers matched in order: unchanged layers anchor the match, the rest pair up in order. */
+  layers: LayerDiff[];
+}
+
+export interface VerdictChange {
+  /** Model name in the newer revision (older name for a removed model). */
+  model: string;
+  /** Refractor layer number (1-based); null for the model's worst verdict. */
+  layer: number | null;
+  from: Verdict | null;
+  to: Verdict | null;
+  /** Depth errors (m) before and after, when interpreted. */
+  errorFrom: number | null;
+  errorTo: number | null;
+}
+
+/** GET /api/plans/:id/diff?from=a&to=b — what changed from revision a to revision b. */
+export interface PlanDiff {
+  planId: string;
+  from: number;
+  to: number;
+  /** Changes of the document's own name, if any. */
+  name: FieldChange | null;
+  /** Only models that differ. */
+  models: ModelDiff[];
+  /** spacing, channels, firstGeophone. */
+  spread: FieldChange[];
+  shots: { added: Shot[]; removed: Shot[] };
+  /** minGeophones, pickError, depthTolerance. */
+  criteria: FieldChange[];
+  worstVerdict: { from: Verdict | null; to: Verdict | null } | null;
+  verdicts: VerdictChange[];
+  /** True when nothing at all differs. */
+  identical: boolean;
 }
 
 export interface CommentView {
@@ -147,7 +322,11 @@ export interface CommentView {
   body: string;
   anchor: CommentAnchor | null;
   resolved: boolean;
+  /** Ids of the mentioned team members. */
   mentions: string[];
+  /** Who resolved the thread and when (thread roots only; null while open). */
+  resolvedBy: { id: string; name: string } | null;
+  resolvedAt: string | null;
   createdAt: string;
 }
 
@@ -160,6 +339,7 @@ export interface NotificationView {
   planName: string;
   actorName: string;
   text: string;
+  /** In-app path of the plan's Review screen, e.g. "/plans/<id>/review" (e-mails carry the absolute URL). */
   link: string;
   read: boolean;
   createdAt: string;
