@@ -35,7 +35,14 @@ import {
   OTHER_EVIDENCE,
   spreadLengthFor,
 } from "./design";
-import { branchCodes, judgedBranches, primaryBranch } from "./verdicts";
+import {
+  accumulateWorst,
+  branchCodes,
+  coverageOf,
+  finishWorst,
+  judgedBranches,
+  primaryBranch,
+} from "./verdicts";
 import { layoutOf } from "./validate";
 
 /** An offset interval, m; `to` is null when unbounded. */
@@ -69,6 +76,12 @@ export interface BranchVerdict {
   /** Geophones of the branch on the segment. */
   geophones: number;
   status: Status;
+  /**
+   * Whether this branch judges the arrival: false when it holds fewer than the minimum
+   * count on the segment without spanning it (its geophones lie before, beyond or only
+   * partly over the segment); such a branch does not count towards the overall verdict.
+   */
+  judged: boolean;
   /** Crossover distance of this line with each shallower arrival's line (layer 1 = direct wave), m. */
   crossovers: { with: number; distance: number | null }[];
 }
@@ -80,7 +93,7 @@ export interface DirectWaveAnalysis {
   /** Segment and count on the first shot's longest branch. */
   segment: Segment | null;
   geophones: number;
-  /** Worst over all judged branches: "resolved" or "under-sampled". */
+  /** Worst over the branches that judge it: "resolved" or "under-sampled". */
   status: Status;
   branches: BranchVerdict[];
 }
@@ -103,7 +116,7 @@ export interface RefractorAnalysis {
   /** First-arrival segment and its geophone count on the first shot's longest branch. */
   segment: Segment | null;
   geophones: number;
-  /** Worst verdict over every judged shot branch. */
+  /** Worst verdict over the shot branches that judge it (see BranchVerdict.judged). */
   status: Status;
   /** True when it is blind on every judged branch (no spread can reveal it). */
   blindEverywhere: boolean;
@@ -200,7 +213,7 @@ export interface Recommendation {
   lastCrossover: number;
   /** The plan's spacing is at most maxSpacing. */
   spacingOk: boolean;
-  /** Every judged branch reaches spreadLength. */
+  /** The longest shot branch reaches spreadLength. */
   lengthOk: boolean;
   text: string;
   hidden: HiddenLayer[];
@@ -249,6 +262,7 @@ interface BranchState {
   pieces: Pieces;
   counts: Int32Array;
   codes: Uint8Array;
+  judged: Uint8Array;
 }
 
 function evaluateBranch(
@@ -262,8 +276,10 @@ function evaluateBranch(
   const lines = linesFor(prep, branch.shot, branch.sign, createLineSet(n));
   const pieces = firstArrivalPieces(lines, n, createPieces(n));
   const counts = countOnSegments(pieces, layout, branch, new Int32Array(n));
-  const codes = branchCodes(prep, lines, pieces, counts, minGeophones, new Uint8Array(n));
-  return { shot, branch, lines, pieces, counts, codes };
+  const codes = new Uint8Array(n);
+  const judged = new Uint8Array(n);
+  branchCodes(prep, lines, pieces, counts, minGeophones, coverageOf(layout, branch), codes, judged);
+  return { shot, branch, lines, pieces, counts, codes, judged };
 }
 
 function segmentOf(pieces: Pieces, arrival: number): Segment | null {
@@ -301,6 +317,7 @@ function branchVerdict(layout: Layout, state: BranchState, m: number): BranchVer
     segment: segmentOf(pieces, m),
     geophones: state.counts[m],
     status: statusFromCode(state.codes[m]),
+    judged: state.judged[m] === 1,
     crossovers,
   };
 }
@@ -553,7 +570,11 @@ function analyzeModel(
   const primary =
     states.find((s) => s.shot === 0 && s.branch.side === primaryGeom.side) ??
     evaluateBranch(prep, layout, 0, primaryGeom, min);
-  const worstCode = (m: number) => states.reduce((w, s) => Math.max(w, s.codes[m]), 0);
+  const worst = new Uint8Array(n);
+  const anyJudged = new Uint8Array(n);
+  for (const s of states) accumulateWorst(s.codes, s.judged, n, worst, anyJudged);
+  finishWorst(n, worst, anyJudged);
+  const worstCode = (m: number) => worst[m];
 
   const direct: DirectWaveAnalysis = {
     layer: 1,
@@ -601,7 +622,7 @@ function analyzeModel(
     channels,
     lastCrossover: crossover,
     spacingOk: maxSpacing === null || layout.spacing <= maxSpacing,
-    lengthOk: states.every((s) => maxOffsetOf(layout, s.branch) >= spreadLength),
+    lengthOk: states.some((s) => maxOffsetOf(layout, s.branch) >= spreadLength),
     text: recommendationText(
       maxSpacing,
       spreadLength,

@@ -48,12 +48,10 @@ describe("intercept-time and crossover methods", () => {
             );
           });
           const lines = flatLines(layers);
-          const observed = layers
-            .slice(1)
-            .map((_, j) => ({
-              intercept: lines.intercept[j + 1],
-              slowness: lines.slowness[j + 1],
-            }));
+          const observed = layers.slice(1).map((_, j) => ({
+            intercept: lines.intercept[j + 1],
+            slowness: lines.slowness[j + 1],
+          }));
           const result = interceptTimeMethod(lines.slowness[0], observed);
           let depth = 0;
           result.depths.forEach((d, j) => {

@@ -26,6 +26,7 @@ import { CELL_INVALID, CELL_NOT_COMPUTED, STATUS_CODE } from "./statuses";
 import { layoutOf } from "./validate";
 import {
   branchCodes,
+  coverageOf,
   createJudgeScratch,
   judgedBranches,
   primaryBranch,
@@ -292,7 +293,16 @@ class CellScratch {
     const lines = linesFor(prep, primary.shot, primary.sign, p.lines);
     firstArrivalPieces(lines, n, p.pieces);
     countOnSegments(p.pieces, layout, primary, p.counts);
-    branchCodes(prep, lines, p.pieces, p.counts, this.minGeophones, p.codes);
+    branchCodes(
+      prep,
+      lines,
+      p.pieces,
+      p.counts,
+      this.minGeophones,
+      coverageOf(layout, primary),
+      p.codes,
+      p.judged,
+    );
     this.depthError = NaN;
     if (p.codes[0] !== STATUS_CODE.resolved) return;
     this.velocities[0] = 1 / lines.slowness[0];

@@ -7,7 +7,13 @@ import { linesFor, prepareEarth } from "./head-waves";
 import { createLineSet } from "./lines";
 import { countOnSegments, createPieces, firstArrivalPieces, segmentHull } from "./segments";
 import { STATUS_CODE } from "./statuses";
-import { branchCodes, createJudgeScratch, judgedBranches, worstCodes } from "./verdicts";
+import {
+  branchCodes,
+  coverageOf,
+  createJudgeScratch,
+  judgedBranches,
+  worstCodes,
+} from "./verdicts";
 
 function judge(
   layers: { velocity: number; thickness?: number; dip?: number }[],
@@ -62,15 +68,37 @@ describe("verdicts", () => {
     expect(judge(layers, fine, 50)[1]).toBe(STATUS_CODE["under-sampled"]);
   });
 
-  it("judges each shot branch on its own: a short branch of a centre shot under-samples a deep refractor", () => {
+  it("does not let a branch judge a segment its geophones do not reach (short side of a centre shot)", () => {
     // crossover 2h√((v2+v1)/(v2−v1)) = 23.1 m: beyond the 23 m half-branches of a centre shot
     const layers = [{ velocity: 500, thickness: 10 }, { velocity: 3500 }];
-    expect(judge(layers, { spacing: 2, channels: 24, firstGeophone: 0, shots: [-1, 47] })[1]).toBe(
-      0,
-    );
-    expect(
-      judge(layers, { spacing: 2, channels: 24, firstGeophone: 0, shots: [-1, 23, 47] })[1],
-    ).toBe(STATUS_CODE["under-sampled"]);
+    const ends = { spacing: 2, channels: 24, firstGeophone: 0, shots: [-1, 47] };
+    const withCentre = { ...ends, shots: [-1, 23, 47] };
+    expect(judge(layers, ends)[1]).toBe(STATUS_CODE.resolved);
+    expect(judge(layers, withCentre)[1]).toBe(STATUS_CODE.resolved);
+    // … but with the centre shot alone nothing reaches it: under-sampled
+    expect(judge(layers, { ...ends, shots: [23] })[1]).toBe(STATUS_CODE["under-sampled"]);
+  });
+
+  it("does not let an off-end shot judge the direct wave it cannot record", () => {
+    const layers = [{ velocity: 500, thickness: 3 }, { velocity: 2500 }];
+    const onEnd = { spacing: 1, channels: 24, firstGeophone: 0, shots: [-0.5] };
+    expect(judge(layers, onEnd)[0]).toBe(STATUS_CODE.resolved);
+    expect(judge(layers, { ...onEnd, shots: [-0.5, -30] })[0]).toBe(STATUS_CODE.resolved);
+    expect(judge(layers, { ...onEnd, shots: [-30] })[0]).toBe(STATUS_CODE["under-sampled"]);
+  });
+
+  it("lets a branch that spans a short segment judge it under-sampled even if another branch resolves it", () => {
+    // segment of layer 2 runs from 14.1 m to 18.2 m
+    const layers = [
+      { velocity: 500, thickness: 5 },
+      { velocity: 1500, thickness: 4.5 },
+      { velocity: 3000 },
+    ];
+    const spread = { spacing: 3, channels: 30, firstGeophone: 0 };
+    // shot at 89.2 m: offsets 14.2 and 17.2 m fall on the segment; shot at −1.5 m: only 16.5 m
+    expect(judge(layers, { ...spread, shots: [89.2] })[1]).toBe(STATUS_CODE.resolved);
+    expect(judge(layers, { ...spread, shots: [-1.5] })[1]).toBe(STATUS_CODE["under-sampled"]);
+    expect(judge(layers, { ...spread, shots: [-1.5, 89.2] })[1]).toBe(STATUS_CODE["under-sampled"]);
   });
 
   it("judges only branches that hold geophones", () => {
@@ -109,7 +137,16 @@ describe("verdicts", () => {
         ).length;
         expect(counts[m]).toBe(brute);
       }
-      const codes = branchCodes(prep, lines, pieces, counts, 2, new Uint8Array(3));
+      const codes = branchCodes(
+        prep,
+        lines,
+        pieces,
+        counts,
+        2,
+        coverageOf(layout, br),
+        new Uint8Array(3),
+        new Uint8Array(3),
+      );
       expect(Array.from(codes)).toEqual([0, 0, 0]);
     }
   });

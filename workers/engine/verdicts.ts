@@ -4,11 +4,16 @@
  *  - blind: the head wave exists but is never a first arrival on the branch;
  *  - under-sampled: its first-arrival segment holds fewer geophones than the minimum;
  *  - resolved: otherwise.
- * Each shot branch holding at least one geophone is judged on its own; the overall verdict
- * is the worst over branches. The direct wave (arrival 0) is judged too: resolved or
- * under-sampled.
+ * Each shot branch is judged on its own, and the overall verdict is the worst over the
+ * branches that can judge the arrival. A branch always judges inverted and blind arrivals and
+ * any segment on which it holds the minimum count (resolved). It judges a segment
+ * under-sampled only when its geophones span the whole segment (nearest offset ≤ from +
+ * spacing and farthest offset ≥ to − spacing): a branch whose geophones lie before, beyond
+ * or only partly over a segment (the direct wave seen from an off-end shot, a deep refractor
+ * on the short side of a centre shot) says nothing about it. When no branch judges an
+ * arrival it is under-sampled. The direct wave (arrival 0) is judged the same way.
  */
-import { branchOf, type Branch, type Layout, type Side } from "./branches";
+import { branchOf, branchOffset, type Branch, type Layout, type Side } from "./branches";
 import { linesFor, type PreparedEarth } from "./head-waves";
 import { createLineSet, type LineSet } from "./lines";
 import { countOnSegments, createPieces, firstArrivalPieces, type Pieces } from "./segments";
@@ -20,6 +25,8 @@ export interface JudgeScratch {
   readonly pieces: Pieces;
   readonly counts: Int32Array;
   readonly codes: Uint8Array;
+  readonly judged: Uint8Array;
+  readonly anyJudged: Uint8Array;
 }
 
 /** Allocate judging buffers for a model of `layerCount` layers. */
@@ -29,12 +36,32 @@ export function createJudgeScratch(layerCount: number): JudgeScratch {
     pieces: createPieces(layerCount),
     counts: new Int32Array(layerCount),
     codes: new Uint8Array(layerCount),
+    judged: new Uint8Array(layerCount),
+    anyJudged: new Uint8Array(layerCount),
+  };
+}
+
+/** Offset coverage of a branch, m: nearest and farthest geophone offsets and the spacing. */
+export interface Coverage {
+  readonly near: number;
+  readonly far: number;
+  readonly spacing: number;
+}
+
+/** Coverage of a branch (an empty branch covers nothing). */
+export function coverageOf(layout: Layout, branch: Branch): Coverage {
+  if (branch.count === 0) return { near: Infinity, far: -Infinity, spacing: layout.spacing };
+  return {
+    near: branchOffset(layout, branch, 0),
+    far: branchOffset(layout, branch, branch.count - 1),
+    spacing: layout.spacing,
   };
 }
 
 /**
  * Status code per arrival on one branch, from its lines, pieces and geophone counts.
- * Writes into `codes` (0 resolved, 1 under-sampled, 2 blind, 3 inverted).
+ * Writes into `codes` (0 resolved, 1 under-sampled, 2 blind, 3 inverted) and into `judged`
+ * whether this branch can judge the arrival (see the module comment).
  */
 export function branchCodes(
   prep: PreparedEarth,
@@ -42,22 +69,61 @@ export function branchCodes(
   pieces: Pieces,
   counts: Int32Array,
   minGeophones: number,
+  coverage: Coverage,
   codes: Uint8Array,
+  judged: Uint8Array,
 ): Uint8Array {
   const n = prep.earth.layerCount;
-  codes[0] = counts[0] >= minGeophones ? STATUS_CODE.resolved : STATUS_CODE["under-sampled"];
-  for (let m = 1; m < n; m++) {
-    if (prep.rule[m] !== 1) codes[m] = STATUS_CODE.inverted;
-    else if (lines.exists[m] !== 1) codes[m] = STATUS_CODE.blind;
-    else {
-      let onCurve = false;
-      for (let i = 0; i < pieces.count; i++) if (pieces.arrival[i] === m) onCurve = true;
-      if (!onCurve) codes[m] = STATUS_CODE.blind;
-      else if (counts[m] >= minGeophones) codes[m] = STATUS_CODE.resolved;
-      else codes[m] = STATUS_CODE["under-sampled"];
+  for (let m = 0; m < n; m++) {
+    if (m > 0 && prep.rule[m] !== 1) {
+      codes[m] = STATUS_CODE.inverted;
+      judged[m] = 1;
+      continue;
+    }
+    let from = Infinity;
+    let to = -Infinity;
+    for (let i = 0; i < pieces.count; i++) {
+      if (pieces.arrival[i] !== m) continue;
+      if (pieces.from[i] < from) from = pieces.from[i];
+      if (pieces.to[i] > to) to = pieces.to[i];
+    }
+    if (lines.exists[m] !== 1 || from === Infinity) {
+      codes[m] = STATUS_CODE.blind;
+      judged[m] = 1;
+    } else if (counts[m] >= minGeophones) {
+      codes[m] = STATUS_CODE.resolved;
+      judged[m] = 1;
+    } else {
+      codes[m] = STATUS_CODE["under-sampled"];
+      const spans =
+        coverage.near <= from + coverage.spacing && coverage.far >= to - coverage.spacing;
+      judged[m] = spans ? 1 : 0;
     }
   }
   return codes;
+}
+
+/**
+ * Combine one branch's codes into the running worst (`worst`, over judged branches) and
+ * `anyJudged` flags.
+ */
+export function accumulateWorst(
+  codes: Uint8Array,
+  judged: Uint8Array,
+  n: number,
+  worst: Uint8Array,
+  anyJudged: Uint8Array,
+): void {
+  for (let m = 0; m < n; m++) {
+    if (judged[m] !== 1) continue;
+    anyJudged[m] = 1;
+    if (codes[m] > worst[m]) worst[m] = codes[m];
+  }
+}
+
+/** Arrivals no branch judged are under-sampled. */
+export function finishWorst(n: number, worst: Uint8Array, anyJudged: Uint8Array): void {
+  for (let m = 0; m < n; m++) if (anyJudged[m] !== 1) worst[m] = STATUS_CODE["under-sampled"];
 }
 
 /** A branch to judge: shot index and its branch geometry. */
@@ -94,7 +160,7 @@ export function primaryBranch(layout: Layout): Branch {
 }
 
 /**
- * Worst status code per arrival over every judged branch, written into `worst`
+ * Worst status code per arrival over the branches that judge it, written into `worst`
  * (length = layer count). Allocation-free apart from the branch list; used by sweeps and
  * by the design-figure bisection.
  */
@@ -108,6 +174,7 @@ export function worstCodes(
 ): Uint8Array {
   const n = prep.earth.layerCount;
   worst.fill(0, 0, n);
+  scratch.anyJudged.fill(0);
   let flatDone = false;
   for (const { branch } of branches) {
     const lines = linesFor(prep, branch.shot, branch.sign, scratch.lines);
@@ -116,8 +183,18 @@ export function worstCodes(
       flatDone = true;
     }
     countOnSegments(scratch.pieces, layout, branch, scratch.counts);
-    branchCodes(prep, lines, scratch.pieces, scratch.counts, minGeophones, scratch.codes);
-    for (let m = 0; m < n; m++) if (scratch.codes[m] > worst[m]) worst[m] = scratch.codes[m];
+    branchCodes(
+      prep,
+      lines,
+      scratch.pieces,
+      scratch.counts,
+      minGeophones,
+      coverageOf(layout, branch),
+      scratch.codes,
+      scratch.judged,
+    );
+    accumulateWorst(scratch.codes, scratch.judged, n, worst, scratch.anyJudged);
   }
+  finishWorst(n, worst, scratch.anyJudged);
   return worst;
 }
