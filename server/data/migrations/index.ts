@@ -1,0 +1,9 @@
+/**
+ * Every migration, oldest first. Migrations are hand-written; the app never synchronizes.
+ * A later feature adds its file beside these and appends its class here.
+ */
+import { Foundation1733097600000 } from "./1733097600000-foundation";
+
+export const migrations = [
+  Foundation1733097600000,
+];
