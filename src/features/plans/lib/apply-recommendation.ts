@@ -26,8 +26,9 @@ export interface AppliedSpread {
 /**
  * The spread after applying a recommendation (SI). `maxSpacing` null means any spacing
  * resolves the bounded segments: the spacing stays. Channels reach `spreadLength` from
- * offset 0 at the new spacing (the engine's own rule: ⌊L/Δx⌋ + 1), from 2 up to the schema's
- * maximum.
+ * offset 0 at the new spacing (the engine's own rule: ⌊L/Δx⌋ + 1), but never fewer than the
+ * plan already lays out (applying never shortens a spread's channel count), up to the
+ * schema's maximum.
  */
 export function applyRecommendation(
   spread: Spread,
@@ -44,7 +45,7 @@ export function applyRecommendation(
         );
   const channels = Math.min(
     MAX_CHANNELS,
-    Math.max(2, Math.floor(recommendation.spreadLength / spacing + 1e-9) + 1),
+    Math.max(2, spread.channels, Math.floor(recommendation.spreadLength / spacing + 1e-9) + 1),
   );
   const shots = Array.from(
     followShots(

@@ -106,7 +106,8 @@ export const arrivalName = (layer: number) =>
 
 const layerTitle = (layer: number, names: ArrivalsChartInput["layerNames"]) => {
   const name = names[layer - 1];
-  return name ? `Layer ${layer} (${name})` : `Layer ${layer}`;
+  const title = layer === 1 ? "Direct wave, layer 1" : `Layer ${layer}`;
+  return name ? `${title} (${name})` : title;
 };
 
 const sideWords = { forward: "towards the line end", reverse: "towards the line start" };
@@ -277,13 +278,14 @@ export function buildArrivalsChart(input: ArrivalsChartInput): ArrivalsChartMode
             side: b.side,
             count: b.geophones,
             status: b.status,
-            x: x(signed),
+            // Keep the label (about 110 px wide) inside the plot.
+            x: Math.min(Math.max(x(signed), margin.left + 60), width - margin.right - 60),
             y: y(t),
             text: `${name}: ${b.geophones} geophone${b.geophones === 1 ? "" : "s"}`,
           });
         }
       }
-      if (b.status !== "resolved" && layer > 1) {
+      if (b.status !== "resolved") {
         const above = analysis.refractors
           .filter((r) => r.layer < layer)
           .reduce<{ layer: number; velocity: number }>(

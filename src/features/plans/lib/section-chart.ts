@@ -141,7 +141,7 @@ export function buildSection(input: SectionInput): SectionModel {
       velocity: layer.velocity,
       fill,
       path: `M${x(x0)},${topA}L${x(x1)},${topB}L${x(x1)},${botB}L${x(x0)},${botA}Z`,
-      labelX: x(x0) + 8,
+      labelX: x((x0 + x1) / 2),
       labelY: (midTop + midBottom) / 2 + 4,
       textColour: dark ? palette.card : palette.inkDeep,
     };
@@ -211,10 +211,18 @@ export function buildSection(input: SectionInput): SectionModel {
           Math.exp(Math.log(vLo) + t * (Math.log(Math.max(vHi, vLo + 1)) - Math.log(vLo))),
         ),
       })),
-      ticks: legendTicks,
+      ticks: apart(legendTicks, 0.16),
       unit: unitLabel("velocity", units),
     },
   };
+}
+
+/** Legend labels at least `gap` (fraction of the bar) apart, keeping the first. */
+function apart<T extends { at: number }>(ticks: T[], gap: number): T[] {
+  const kept: T[] = [];
+  for (const t of ticks)
+    if (kept.length === 0 || t.at - kept[kept.length - 1].at >= gap) kept.push(t);
+  return kept;
 }
 
 function luminance(colour: string): number {

@@ -13,7 +13,7 @@ export const CELL_FILL: Record<Status | "invalid" | "pending", string> = {
   "under-sampled": palette.ochreSoft,
   blind: "#e4b3a8",
   inverted: palette.brick,
-  invalid: palette.paperDeep,
+  invalid: "#c9c3b6",
   pending: palette.card,
 };
 
@@ -41,6 +41,8 @@ export interface HeatmapModel {
   yTicks: Array<{ px: number; label: string }>;
   xLabel: string;
   yLabel: string;
+  /** Where the plan itself sits on the grid, when inside it. */
+  marker: { x: number; y: number } | null;
 }
 
 export function cellState(code: number): HeatCell["state"] {
@@ -65,7 +67,23 @@ export function parameterText(
     : formatQuantity("velocity", value, units);
 }
 
-export function buildHeatmap(result: SweepResult, width: number, units: UnitSystem): HeatmapModel {
+/** Pixel of `value` along band centres whose values run evenly from values[0] to values[n−1]. */
+function along(values: Float64Array, value: number, first: number, last: number): number | null {
+  const n = values.length;
+  const lo = values[0];
+  const hi = values[n - 1];
+  if (n === 1) return Math.abs(value - lo) < 1e-9 ? first : null;
+  const t = (value - lo) / (hi - lo);
+  if (!(t >= -1e-9 && t <= 1 + 1e-9)) return null;
+  return first + t * (last - first);
+}
+
+export function buildHeatmap(
+  result: SweepResult,
+  width: number,
+  units: UnitSystem,
+  current?: { axis: number; parameter: number },
+): HeatmapModel {
   const margin = { top: 12, right: 12, bottom: 48, left: 84 };
   const plotWidth = Math.max(100, width - margin.left - margin.right);
   const cellH = Math.max(6, Math.min(22, 420 / result.rows));
@@ -136,10 +154,27 @@ export function buildHeatmap(result: SweepResult, width: number, units: UnitSyst
       px: (y(i) ?? 0) + y.bandwidth() / 2,
       label: parameterText(result.parameter, v, units),
     }));
+  let marker: HeatmapModel["marker"] = null;
+  if (current) {
+    const mx = along(
+      result.axis.values,
+      current.axis,
+      (x(0) ?? 0) + x.bandwidth() / 2,
+      (x(result.cols - 1) ?? 0) + x.bandwidth() / 2,
+    );
+    const my = along(
+      result.parameter.values,
+      current.parameter,
+      (y(0) ?? 0) + y.bandwidth() / 2,
+      (y(result.rows - 1) ?? 0) + y.bandwidth() / 2,
+    );
+    if (mx !== null && my !== null) marker = { x: mx, y: my };
+  }
   return {
     width,
     height,
     margin,
+    marker,
     cells,
     xTicks,
     yTicks,

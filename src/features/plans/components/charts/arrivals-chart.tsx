@@ -195,7 +195,7 @@ export function ArrivalsChart({
         {hover ? hover.readout : "Point at the chart to read a geophone's first break."}
       </p>
       {chart.flags.length > 0 ? (
-        <ul className="mt-2 space-y-1" aria-label="Hidden refractors on this shot">
+        <ul className="mt-2 space-y-1" aria-label="Flagged arrivals on this shot">
           {chart.flags.map((f) => (
             <li
               key={f.key}

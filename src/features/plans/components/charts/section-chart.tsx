@@ -43,7 +43,7 @@ export function SectionChart({ input, title }: { input: SectionInput; title: str
         {section.layers.map((l) => (
           <g key={l.layer} data-layer={l.layer}>
             <path d={l.path} fill={l.fill} stroke="none" />
-            <text x={l.labelX} y={l.labelY} fontSize={11} fill={l.textColour}>
+            <text x={l.labelX} y={l.labelY} fontSize={11} fill={l.textColour} textAnchor="middle">
               {`${l.layer}. ${l.name} · ${formatQuantity("velocity", l.velocity, input.units)}`}
             </text>
           </g>

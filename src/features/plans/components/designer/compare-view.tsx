@@ -112,7 +112,7 @@ export function CompareView({
               role="radio"
               aria-checked={source === value}
               onClick={() => setSource(value)}
-              className={`rounded-full px-3 py-1 ${source === value ? "bg-ink text-card" : "bg-paper-deep text-ink"}`}
+              className={`rounded-full px-3 py-1 text-xs ${source === value ? "bg-ink text-card" : "bg-paper-deep text-ink"}`}
             >
               {label}
             </button>

@@ -122,6 +122,7 @@ function ModelEditor({
   const layers = useFieldArray({ control, name: `models.${index}.layers` });
   const { errors } = useFormState({ control });
   const rows = useWatch({ control, name: `models.${index}.layers` }) ?? [];
+  const modelName = useWatch({ control, name: `models.${index}.name` });
   const [bounds, setBounds] = useState(() =>
     rows.some((r) => r.velocityRange.some(Boolean) || r.thicknessRange.some(Boolean)),
   );
@@ -144,27 +145,27 @@ function ModelEditor({
       </div>
       <div className="overflow-x-auto">
         <table
-          className="w-full text-sm"
-          aria-label={`Layers of ${rows.length ? "this model" : "model"}`}
+          className="w-full min-w-[30rem] table-fixed text-sm"
+          aria-label={`Layers of ${modelName || `model ${index + 1}`}`}
         >
           <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
             <tr className="border-b border-rule">
-              <th scope="col" className="w-8 py-1.5 pr-2 font-semibold">
+              <th scope="col" className="w-6 py-1.5 pr-1 font-semibold">
                 #
               </th>
               <th scope="col" className="py-1.5 pr-2 font-semibold">
                 Layer
               </th>
-              <th scope="col" className="w-28 py-1.5 pr-2 font-semibold">
+              <th scope="col" className="w-24 py-1.5 pr-2 font-semibold">
                 Velocity ({v})
               </th>
-              <th scope="col" className="w-28 py-1.5 pr-2 font-semibold">
+              <th scope="col" className="w-24 py-1.5 pr-2 font-semibold">
                 Thickness ({h})
               </th>
-              <th scope="col" className="w-20 py-1.5 pr-2 font-semibold">
-                Base dip (°)
+              <th scope="col" className="w-16 py-1.5 pr-2 font-semibold">
+                Dip (°)
               </th>
-              <th scope="col" className="py-1.5 font-semibold">
+              <th scope="col" className="w-24 py-1.5 font-semibold">
                 <span className="sr-only">Order and removal</span>
               </th>
             </tr>

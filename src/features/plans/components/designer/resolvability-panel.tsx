@@ -76,7 +76,7 @@ export function ResolvabilityPanel({
     <div>
       <div className="overflow-x-auto">
         <table className="w-full text-sm" aria-label={`Resolvability of ${model.name}`}>
-          <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
+          <thead className="text-left text-xs text-ink-soft">
             <tr className="border-b border-rule">
               <th scope="col" className="py-1.5 pr-3 font-semibold">
                 Refractor
@@ -91,16 +91,7 @@ export function ResolvabilityPanel({
                 Geophones
               </th>
               <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
-                True depth
-              </th>
-              <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
-                Interpreted
-              </th>
-              <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
-                Error
-              </th>
-              <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
-                ± σ
+                Depth (true, interpreted)
               </th>
               <th scope="col" className="py-1.5 text-right font-semibold">
                 Min. thickness
@@ -108,7 +99,7 @@ export function ResolvabilityPanel({
             </tr>
           </thead>
           <tbody className="font-mono text-xs">
-            <tr className="border-b border-rule/60">
+            <tr className="border-b border-rule/60 align-top">
               <th scope="row" className="py-2 pr-3 text-left font-sans text-sm font-medium">
                 Direct wave
                 <span className="block text-xs font-normal text-ink-soft">
@@ -121,17 +112,17 @@ export function ResolvabilityPanel({
               <td className="py-2 pr-3">{segmentText(model.direct.segment, units)}</td>
               <td className="py-2 pr-3 text-right">{model.direct.geophones}</td>
               <td className="py-2 pr-3 text-right">—</td>
-              <td className="py-2 pr-3 text-right">—</td>
-              <td className="py-2 pr-3 text-right">—</td>
-              <td className="py-2 pr-3 text-right">—</td>
               <td className="py-2 text-right">—</td>
             </tr>
             {model.refractors.map((r) => {
               const i = interpreted.get(r.layer);
               const s = sigma.get(r.layer);
-              const tooFar = i?.exceedsTolerance;
               return (
-                <tr key={r.layer} className="border-b border-rule/60" data-layer={r.layer}>
+                <tr
+                  key={r.layer}
+                  className="border-b border-rule/60 align-top"
+                  data-layer={r.layer}
+                >
                   <th scope="row" className="py-2 pr-3 text-left font-sans text-sm font-medium">
                     Layer {r.layer}
                     {r.name ? ` (${r.name})` : ""}
@@ -147,37 +138,37 @@ export function ResolvabilityPanel({
                   <td className="py-2 pr-3">{segmentText(r.segment, units)}</td>
                   <td className="py-2 pr-3 text-right">{r.geophones}</td>
                   <td className="py-2 pr-3 text-right">
-                    {formatQuantity("length", r.depth, units)}
-                  </td>
-                  <td className="py-2 pr-3 text-right">
+                    <span className="block">{formatQuantity("length", r.depth, units)} true</span>
                     {i ? (
-                      formatQuantity("length", i.interpretedDepth, units)
-                    ) : (
-                      <span className="text-ink-faint">not seen</span>
-                    )}
-                  </td>
-                  <td
-                    className={`py-2 pr-3 text-right ${tooFar ? "font-semibold text-brick" : ""}`}
-                  >
-                    {i && i.error !== null ? (
                       <>
-                        {i.error > 0 ? "+" : ""}
-                        {formatQuantity("length", i.error, units)}
-                        {i.errorPercent !== null ? (
-                          <span className="block text-ink-soft">
-                            {i.errorPercent > 0 ? "+" : ""}
-                            {formatQuantity("percent", i.errorPercent, units)}
+                        <span className="block">
+                          {formatQuantity("length", i.interpretedDepth, units)} interpreted
+                        </span>
+                        {i.error !== null ? (
+                          <span
+                            className={`block ${i.exceedsTolerance ? "font-semibold text-brick" : "text-ink-soft"}`}
+                            data-testid={`depth-error-${r.layer}`}
+                          >
+                            error {i.error > 0 ? "+" : ""}
+                            {formatQuantity("length", i.error, units)}
+                            {i.errorPercent !== null
+                              ? ` (${i.errorPercent > 0 ? "+" : ""}${formatQuantity("percent", i.errorPercent, units)})`
+                              : ""}
+                          </span>
+                        ) : null}
+                        {s && s.depthSigma !== null ? (
+                          <span
+                            className={`block ${s.exceedsTolerance ? "font-semibold text-brick" : "text-ink-soft"}`}
+                          >
+                            ± {formatQuantity("length", s.depthSigma, units)} (1σ picks)
                           </span>
                         ) : null}
                       </>
                     ) : (
-                      "—"
+                      <span className="block text-ink-faint">
+                        {model.interpretation ? "not seen" : "not interpreted"}
+                      </span>
                     )}
-                  </td>
-                  <td
-                    className={`py-2 pr-3 text-right ${s?.exceedsTolerance ? "font-semibold text-brick" : ""}`}
-                  >
-                    {s ? formatQuantity("length", s.depthSigma, units) : "—"}
                   </td>
                   <td className="py-2 text-right">
                     {r.minimumThickness === null
@@ -192,9 +183,16 @@ export function ResolvabilityPanel({
       </div>
       <p className="mt-2 text-xs text-ink-soft">
         Segment and geophones: first shot’s longest branch; verdict: worst over every shot branch.
-        Interpreted depth: intercept-time method on the resolved segments only, under shot 1. Errors
-        beyond the depth tolerance ({formatQuantity("length", tolerance, units)}) are marked.
+        Interpreted depth: intercept-time method on the resolved segments only, under shot 1; a
+        missed inversion reads too deep, a missed thin layer too shallow. Errors beyond the depth
+        tolerance ({formatQuantity("length", tolerance, units)}) are marked.
       </p>
+      {!model.interpretation ? (
+        <p className="mt-2 text-sm text-brick">
+          No depths can be interpreted: the direct wave itself is under-sampled on shot 1’s longest
+          branch, so the first layer’s velocity is unknown.
+        </p>
+      ) : null}
 
       {model.recommendation.hidden.length > 0 ? (
         <ul className="mt-3 space-y-2" aria-label="Layers no spread can reveal">
@@ -231,7 +229,7 @@ export function ResolvabilityPanel({
             <span className="text-xs text-ink-soft">
               {unchanged
                 ? "The spread already follows the recommendation."
-                : "Spacing rounded down to a practical value; shots move with the spread ends."}
+                : "Spacing rounded down to a practical value; never fewer channels than now; shots move with the spread ends."}
             </span>
           </div>
         ) : null}

@@ -404,10 +404,13 @@ function Heatmap({
   units: UnitSystem;
 }) {
   const { ref, width } = useElementWidth<HTMLDivElement>(720);
-  const heatmap = useMemo(
-    () => buildHeatmap(result, Math.max(360, width), units),
-    [result, width, units],
-  );
+  const heatmap = useMemo(() => {
+    const layer = plan.models[modelIndex].layers[result.parameter.layer - 1];
+    const parameter =
+      result.parameter.kind === "thickness" ? (layer.thickness ?? Number.NaN) : layer.velocity;
+    const axis = result.axis.kind === "spacing" ? plan.spread.spacing : plan.spread.channels;
+    return buildHeatmap(result, Math.max(360, width), units, { axis, parameter });
+  }, [result, width, units, plan, modelIndex]);
   const [active, setActive] = useState<HeatCell | null>(null);
   const { data: me } = useMe();
   const createPlan = useCreatePlan(detail.siteId);
@@ -480,6 +483,26 @@ function Heatmap({
             style={{ cursor: mayCopy ? "pointer" : "default" }}
           />
         ))}
+        {heatmap.marker ? (
+          <g pointerEvents="none" data-role="plan-marker">
+            <circle
+              cx={heatmap.marker.x}
+              cy={heatmap.marker.y}
+              r={6}
+              fill="none"
+              stroke={palette.card}
+              strokeWidth={4}
+            />
+            <circle
+              cx={heatmap.marker.x}
+              cy={heatmap.marker.y}
+              r={6}
+              fill="none"
+              stroke={palette.inkDeep}
+              strokeWidth={2}
+            />
+          </g>
+        ) : null}
         {active ? (
           <rect
             x={active.x}
@@ -548,6 +571,12 @@ function Heatmap({
           />
           interfaces cross
         </li>
+        {heatmap.marker ? (
+          <li className="flex items-center gap-1.5">
+            <span className="inline-block h-3 w-3 rounded-full border-2 border-ink-deep" />
+            the plan as it stands
+          </li>
+        ) : null}
       </ul>
       {createPlan.isPending ? <p className="mt-2 text-sm text-ink-soft">Making a copy…</p> : null}
       {createPlan.isError ? (
