@@ -376,7 +376,7 @@ function interpret(
     })),
     refractors,
     crossover,
-    dips: dipChecks(earth, states),
+    dips: dipChecks(earth, states, 1 / p0),
   };
   // least-squares pick uncertainty on the same segments
   const sigma = criteria.pickError;
@@ -411,39 +411,30 @@ function interpret(
 
 /**
  * Reversed pairs: a forward branch of shot A and a reverse branch of shot B with B beyond A,
- * both resolving the refractor; the widest pair is used. Velocities above are recovered in
- * depth order on the same pair, starting from the direct wave.
+ * both resolving the refractor; the widest pair is used. The velocity above a refractor is
+ * the recovered velocity of the nearest shallower refractor (from its own pair), or the
+ * direct-wave velocity `v0`.
  */
-function dipChecks(earth: Earth, states: BranchState[]): DipCheck[] {
+function dipChecks(earth: Earth, states: BranchState[], v0: number): DipCheck[] {
   const n = earth.layerCount;
   const checks: DipCheck[] = [];
   const forward = states.filter((s) => s.branch.side === "forward");
   const reverse = states.filter((s) => s.branch.side === "reverse");
+  let vAbove = v0;
+  let twoLayer = true;
   for (let m = 1; m < n; m++) {
     let best: [BranchState, BranchState] | null = null;
     for (const a of forward) {
       for (const b of reverse) {
         if (!(b.branch.shot > a.branch.shot)) continue;
         if (a.codes[m] !== STATUS_CODE.resolved || b.codes[m] !== STATUS_CODE.resolved) continue;
-        if (a.codes[0] !== STATUS_CODE.resolved || b.codes[0] !== STATUS_CODE.resolved) continue;
-        if (!best || b.branch.shot - a.branch.shot > best[1].branch.shot - best[0].branch.shot)
-          best = [a, b];
+        const width = b.branch.shot - a.branch.shot;
+        if (!best || width > best[1].branch.shot - best[0].branch.shot) best = [a, b];
       }
     }
     if (!best) continue;
     const [a, b] = best;
-    let vAbove = 1 / a.lines.slowness[0];
-    let recovered: ReturnType<typeof recoverDip> = null;
-    let twoLayer = true;
-    for (let j = 1; j <= m; j++) {
-      if (a.codes[j] !== STATUS_CODE.resolved || b.codes[j] !== STATUS_CODE.resolved) continue;
-      recovered = recoverDip(vAbove, a.lines.slowness[j], b.lines.slowness[j]);
-      if (!recovered) break;
-      if (j < m) {
-        vAbove = recovered.velocity;
-        twoLayer = false;
-      }
-    }
+    const recovered = recoverDip(vAbove, a.lines.slowness[m], b.lines.slowness[m]);
     const xa = a.branch.shot;
     const xb = b.branch.shot;
     const span = xb - xa;
@@ -452,11 +443,12 @@ function dipChecks(earth: Earth, states: BranchState[]): DipCheck[] {
     let depthA: number | null = null;
     let depthB: number | null = null;
     if (recovered && twoLayer) {
+      // two-layer formula: perpendicular depth h = τ v1 / (2 cos θc), vertical = h / cos φ
       const theta = (recovered.criticalAngle * Math.PI) / 180;
       const phi = (recovered.dip * Math.PI) / 180;
-      const perp = (tau: number) => (tau * vAbove) / (2 * Math.cos(theta)) / Math.cos(phi);
-      depthA = finiteOrNull(perp(a.lines.intercept[m]));
-      depthB = finiteOrNull(perp(b.lines.intercept[m]));
+      const vertical = (tau: number) => (tau * vAbove) / (2 * Math.cos(theta)) / Math.cos(phi);
+      depthA = finiteOrNull(vertical(a.lines.intercept[m]));
+      depthB = finiteOrNull(vertical(b.lines.intercept[m]));
     }
     checks.push({
       layer: m + 1,
@@ -479,6 +471,10 @@ function dipChecks(earth: Earth, states: BranchState[]): DipCheck[] {
         observable: span >= a.lines.start[m] && span >= b.lines.start[m],
       },
     });
+    if (recovered) {
+      vAbove = recovered.velocity;
+      twoLayer = false;
+    }
   }
   return checks;
 }

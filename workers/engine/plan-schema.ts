@@ -136,14 +136,20 @@ export type Plan = z.infer<typeof planSchema>;
 /** A plan as written by hand or sent by a form, before defaults are applied. */
 export type PlanInput = z.input<typeof planSchema>;
 
-/** One line per problem, each naming the field path, e.g. `models[0].layers[2].velocity: …`. */
+/**
+ * One line per problem, each naming the field path, e.g. `models[0].layers[2].velocity: …`.
+ * An unknown field gets its own line naming it: `spread.colour: unknown field`.
+ */
 export function describePlanIssues(error: z.ZodError): string[] {
-  return error.issues.map((issue) => {
+  return error.issues.flatMap((issue) => {
     const path = issue.path
       .map((part, i) =>
         typeof part === "number" ? `[${part}]` : `${i === 0 ? "" : "."}${String(part)}`,
       )
       .join("");
-    return `${path || "(plan)"}: ${issue.message}`;
+    if (issue.code === "unrecognized_keys") {
+      return issue.keys.map((key) => `${path ? `${path}.` : ""}${key}: unknown field`);
+    }
+    return [`${path || "(plan)"}: ${issue.message}`];
   });
 }
