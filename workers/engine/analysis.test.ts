@@ -162,7 +162,9 @@ const planArb = fc.record({
   minGeophones: fc.integer({ min: 2, max: 6 }),
 });
 
-function planFrom(p: fc.infer<typeof planArb>): unknown {
+type PlanArb = typeof planArb extends fc.Arbitrary<infer T> ? T : never;
+
+function planFrom(p: PlanArb): unknown {
   return {
     name: "random",
     models: p.models.map((layers, i) => ({
