@@ -9,10 +9,11 @@ import type { Actor } from "./actor";
 import { requirePermission } from "./actor";
 import { recordAudit } from "./audit";
 import { AppError, notFound } from "./errors";
+import { countVisiblePlans } from "./plans";
 
 export type ArchivedFilter = "true" | "false" | "all";
 
-function toSummary(site: Site): SiteSummary {
+function toSummary(site: Site, planCount = 0): SiteSummary {
   return {
     id: site.id,
     name: site.name,
@@ -21,8 +22,8 @@ function toSummary(site: Site): SiteSummary {
     createdBy: site.createdBy?.name ?? "",
     createdAt: site.createdAt.toISOString(),
     updatedAt: site.updatedAt.toISOString(),
-    // Plans arrive with a later feature; until then no site has any.
-    planCount: 0,
+    // Non-archived plans the viewer can see (server/domain/plans.ts countVisiblePlans).
+    planCount,
   };
 }
 
@@ -39,7 +40,12 @@ export async function listSites(
     relations: { createdBy: true },
     order: { name: "ASC", id: "ASC" },
   });
-  return rows.map(toSummary);
+  const counts = await countVisiblePlans(
+    dataSource,
+    actor,
+    rows.map((r) => r.id),
+  );
+  return rows.map((row) => toSummary(row, counts.get(row.id)));
 }
 
 async function findTeamSite(dataSource: DataSource, actor: Actor, id: string): Promise<Site> {
@@ -57,7 +63,9 @@ export async function getSite(
   actor: Actor,
   id: string,
 ): Promise<SiteSummary> {
-  return toSummary(await findTeamSite(dataSource, actor, id));
+  const site = await findTeamSite(dataSource, actor, id);
+  const counts = await countVisiblePlans(dataSource, actor, [id]);
+  return toSummary(site, counts.get(id));
 }
 
 /** 409 when another site of the team already has this name (compared case-insensitively). */

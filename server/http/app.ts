@@ -21,6 +21,10 @@ import { invitationsRouter } from "./routes/invitations";
 import { meRouter } from "./routes/me";
 import { auditRouter, healthRouter, mailboxRouter } from "./routes/misc";
 import { sitesRouter } from "./routes/sites";
+import { activityRouter } from "./routes/activity";
+import { commentsRouter } from "./routes/comments";
+import { notificationsRouter } from "./routes/notifications";
+import { plansRouter } from "./routes/plans";
 import { teamRouter } from "./routes/team";
 import { sessionTools } from "./session";
 
@@ -109,6 +113,10 @@ export function createApp(deps: AppDeps): Express {
   api.use("/sites", sitesRouter(ctx));
   api.use("/audit", auditRouter(ctx));
   api.use("/mailbox", mailboxRouter(ctx));
+  api.use(plansRouter(ctx));
+  api.use(commentsRouter(ctx));
+  api.use(notificationsRouter(ctx));
+  api.use(activityRouter(ctx));
   api.use(apiNotFound);
   app.use("/api", api);
 

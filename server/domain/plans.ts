@@ -1,0 +1,477 @@
+/**
+ * Plans: list per site, read, create, save a revision, rename/archive, duplicate. Every query
+ * is scoped to the actor's team; a plan the actor may not see is reported exactly like a
+ * missing one (404).
+ *
+ * Visibility and editing (design.md role table):
+ * - team plans (sandbox = false): every member reads; admin and lead edit.
+ * - sandbox plans (a trainee's personal scenarios, sandbox = true): visible to their author,
+ *   and read-only to admins and reviewers (who supervise and may comment); hidden from leads
+ *   and other trainees. Only the author edits, renames or archives them; nobody submits them.
+ */
+import { randomUUID } from "node:crypto";
+import { In, type DataSource, type EntityManager } from "typeorm";
+import { can } from "@/contracts/common";
+import type {
+  PlanDetail,
+  PlanStatus,
+  PlanSummary,
+  RevisionAnalysisSummary,
+} from "@/contracts/plans";
+import type { Plan as PlanDocument } from "@engine";
+import { Plan } from "../data/entities/plan";
+import { PlanRevision } from "../data/entities/plan-revision";
+import { Site } from "../data/entities/site";
+import { inTransaction } from "../data/transaction";
+import type { Actor } from "./actor";
+import { recordAudit } from "./audit";
+import { AppError, forbidden, notFound } from "./errors";
+import { assertDocumentGeometry, summarizeDocument } from "./revisions";
+import { archiveTransition } from "./workflow";
+
+export type ArchivedFilter = "true" | "false" | "all";
+
+/** Roles that see every sandbox plan of the team (read-only). */
+const SANDBOX_READERS = new Set(["admin", "reviewer"]);
+
+/** True when the actor may see the plan at all (same team, and sandbox rule). */
+export function canSeePlan(
+  actor: Pick<Actor, "teamId" | "userId" | "role">,
+  plan: Pick<Plan, "teamId" | "sandbox" | "authorId">,
+): boolean {
+  if (plan.teamId !== actor.teamId) return false;
+  if (!plan.sandbox) return true;
+  return plan.authorId === actor.userId || SANDBOX_READERS.has(actor.role);
+}
+
+/** True when the actor may change the plan's content, name or archive state (status aside). */
+export function canEditPlan(actor: Actor, plan: Pick<Plan, "sandbox" | "authorId">): boolean {
+  if (plan.sandbox) return plan.authorId === actor.userId && actor.role !== "reviewer";
+  return can.editPlans(actor.role);
+}
+
+/** The statuses in which a plan's document may be saved. */
+export const EDITABLE_STATUSES: readonly PlanStatus[] = ["draft", "changes-requested"];
+
+export function planPermissions(actor: Actor, plan: Plan): PlanDetail["permissions"] {
+  const editor = canEditPlan(actor, plan);
+  const team = !plan.sandbox;
+  return {
+    edit: editor && EDITABLE_STATUSES.includes(plan.status),
+    submit: team && can.submitPlans(actor.role) && EDITABLE_STATUSES.includes(plan.status),
+    decide: team && can.decidePlans(actor.role) && plan.status === "in-review",
+    comment: can.comment(actor.role) && plan.status !== "archived",
+    reopen: team && can.submitPlans(actor.role) && plan.status === "approved",
+    archive: editor,
+    duplicate: can.editPlans(actor.role) || can.useSandbox(actor.role),
+  };
+}
+
+function toSummary(plan: Plan): PlanSummary {
+  return {
+    id: plan.id,
+    siteId: plan.siteId,
+    name: plan.name,
+    status: plan.status,
+    sandbox: plan.sandbox,
+    author: { id: plan.authorId, name: plan.author?.name ?? "" },
+    revision: plan.latestRevision,
+    worstVerdict: plan.worstVerdict,
+    updatedAt: plan.updatedAt.toISOString(),
+    createdAt: plan.createdAt.toISOString(),
+  };
+}
+
+/** The plan if the actor may see it, else 404 (another team's and a hidden sandbox plan alike). */
+export async function findVisiblePlan(
+  manager: EntityManager,
+  actor: Actor,
+  id: string,
+): Promise<Plan> {
+  const plan = await manager.getRepository(Plan).findOne({
+    where: { id, teamId: actor.teamId },
+    relations: { author: true, site: true },
+  });
+  if (!plan || !canSeePlan(actor, plan)) throw notFound("plan");
+  return plan;
+}
+
+async function findTeamSite(manager: EntityManager, actor: Actor, siteId: string): Promise<Site> {
+  const site = await manager.getRepository(Site).findOneBy({ id: siteId, teamId: actor.teamId });
+  if (!site) throw notFound("site");
+  return site;
+}
+
+/** The query part that hides sandbox plans the actor may not see (alias `p`). */
+function visibleClause(actor: Actor): { sql: string; params: Record<string, unknown> } {
+  if (SANDBOX_READERS.has(actor.role)) return { sql: "1 = 1", params: {} };
+  return {
+    sql: "(p.sandbox = :no OR p.authorId = :viewer)",
+    params: { no: false, viewer: actor.userId },
+  };
+}
+
+/** Plans of a site the actor can see, most recently changed first. */
+export async function listPlans(
+  dataSource: DataSource,
+  actor: Actor,
+  siteId: string,
+  archived: ArchivedFilter,
+): Promise<PlanSummary[]> {
+  await findTeamSite(dataSource.manager, actor, siteId);
+  const visible = visibleClause(actor);
+  const query = dataSource
+    .getRepository(Plan)
+    .createQueryBuilder("p")
+    .leftJoinAndSelect("p.author", "author")
+    .where("p.teamId = :teamId AND p.siteId = :siteId", { teamId: actor.teamId, siteId })
+    .andWhere(visible.sql, visible.params);
+  if (archived === "true") query.andWhere("p.status = 'archived'");
+  if (archived === "false") query.andWhere("p.status <> 'archived'");
+  const rows = await query.orderBy("p.updatedAt", "DESC").addOrderBy("p.id", "ASC").getMany();
+  return rows.map(toSummary);
+}
+
+/** Non-archived plans the actor can see, per site (for SiteSummary.planCount). */
+export async function countVisiblePlans(
+  dataSource: DataSource,
+  actor: Actor,
+  siteIds: string[],
+): Promise<Map<string, number>> {
+  const counts = new Map<string, number>();
+  if (siteIds.length === 0) return counts;
+  const visible = visibleClause(actor);
+  const rows = await dataSource
+    .getRepository(Plan)
+    .createQueryBuilder("p")
+    .select("p.siteId", "siteId")
+    .addSelect("COUNT(*)", "n")
+    .where("p.teamId = :teamId", { teamId: actor.teamId })
+    .andWhere({ siteId: In(siteIds) })
+    .andWhere("p.status <> 'archived'")
+    .andWhere(visible.sql, visible.params)
+    .groupBy("p.siteId")
+    .getRawMany<{ siteId: string; n: number | string }>();
+  for (const row of rows) counts.set(row.siteId, Number(row.n));
+  return counts;
+}
+
+async function latestRevisionRow(manager: EntityManager, plan: Plan): Promise<PlanRevision> {
+  const row = await manager
+    .getRepository(PlanRevision)
+    .findOneBy({ planId: plan.id, number: plan.latestRevision });
+  // Every plan is created with revision 1 in the same transaction.
+  if (!row) throw new Error(`plan ${plan.id} has no revision ${plan.latestRevision}`);
+  return row;
+}
+
+export async function getPlan(
+  dataSource: DataSource,
+  actor: Actor,
+  id: string,
+): Promise<PlanDetail> {
+  const plan = await findVisiblePlan(dataSource.manager, actor, id);
+  const revision = await latestRevisionRow(dataSource.manager, plan);
+  return {
+    ...toSummary(plan),
+    siteName: plan.site?.name ?? "",
+    document: revision.document,
+    permissions: planPermissions(actor, plan),
+    statusBeforeArchive: plan.statusBeforeArchive,
+  };
+}
+
+/**
+ * A sensible invented starting point: about 4 m of loose sandy soil (600 m/s) over weathered
+ * rock (2400 m/s), 24 channels at 3 m with end shots half a spacing beyond each end. Both
+ * refractors resolve with this spread.
+ */
+export function defaultDocument(name: string): PlanDocument {
+  return {
+    format: "spreadsight-plan/1",
+    name,
+    models: [
+      {
+        name: "Soil over weathered rock",
+        layers: [
+          { name: "loose sandy soil", velocity: 600, thickness: 4 },
+          { name: "weathered rock", velocity: 2400 },
+        ],
+      },
+    ],
+    spread: {
+      spacing: 3,
+      channels: 24,
+      firstGeophone: 0,
+      shots: [
+        { position: -1.5, label: "end A" },
+        { position: 70.5, label: "end B" },
+      ],
+    },
+    criteria: { minGeophones: 2, pickError: 0.0005, depthTolerance: 1 },
+  };
+}
+
+interface NewRevision {
+  document: PlanDocument;
+  summary: RevisionAnalysisSummary | null;
+  message: string | null;
+}
+
+async function insertRevision(
+  manager: EntityManager,
+  actor: Actor,
+  planId: string,
+  number: number,
+  revision: NewRevision,
+  at: Date,
+): Promise<void> {
+  await manager.getRepository(PlanRevision).insert({
+    id: randomUUID(),
+    teamId: actor.teamId,
+    planId,
+    number,
+    document: revision.document,
+    summary: revision.summary,
+    worstVerdict: revision.summary?.worstVerdict ?? null,
+    authorId: actor.userId,
+    message: revision.message,
+    createdAt: at,
+  });
+}
+
+/** Inserts a plan with revision 1; a trainee's plan always lands in their sandbox. */
+async function insertPlan(
+  manager: EntityManager,
+  actor: Actor,
+  siteId: string,
+  name: string,
+  revision: NewRevision,
+): Promise<string> {
+  const id = randomUUID();
+  const now = new Date();
+  await manager.getRepository(Plan).insert({
+    id,
+    teamId: actor.teamId,
+    siteId,
+    name,
+    status: "draft",
+    statusBeforeArchive: null,
+    sandbox: actor.role === "trainee",
+    authorId: actor.userId,
+    submittedById: null,
+    latestRevision: 1,
+    worstVerdict: revision.summary?.worstVerdict ?? null,
+    createdAt: now,
+    updatedAt: now,
+  });
+  await insertRevision(manager, actor, id, 1, revision, now);
+  return id;
+}
+
+/** Admin and lead create team plans; a trainee creates a sandbox plan; a reviewer may not. */
+export function requireCreator(actor: Actor): void {
+  if (!can.editPlans(actor.role) && !can.useSandbox(actor.role)) {
+    throw forbidden("reviewers comment and decide; they do not create or edit plans");
+  }
+}
+
+export async function createPlan(
+  dataSource: DataSource,
+  actor: Actor,
+  siteId: string,
+  input: { name: string; document?: PlanDocument },
+): Promise<PlanDetail> {
+  requireCreator(actor);
+  const document = input.document
+    ? { ...input.document, name: input.name }
+    : defaultDocument(input.name);
+  if (input.document) assertDocumentGeometry(document);
+  const summary = summarizeDocument(document);
+  const id = await inTransaction(dataSource, async (manager) => {
+    const site = await findTeamSite(manager, actor, siteId);
+    if (site.archivedAt) {
+      throw new AppError(409, "site_archived", "the site is archived; restore it to add plans");
+    }
+    const planId = await insertPlan(manager, actor, siteId, input.name, {
+      document,
+      summary,
+      message: "created",
+    });
+    await recordAudit(manager, {
+      teamId: actor.teamId,
+      actorId: actor.userId,
+      action: "plan.create",
+      targetType: "plan",
+      targetId: planId,
+      detail: { name: input.name, site: site.name, sandbox: actor.role === "trainee" },
+    });
+    return planId;
+  });
+  return getPlan(dataSource, actor, id);
+}
+
+/** 403 unless the actor may change this plan's content, name or archive state. */
+function requireEditor(actor: Actor, plan: Plan): void {
+  if (canEditPlan(actor, plan)) return;
+  throw forbidden(
+    plan.sandbox
+      ? "this is another member's sandbox plan: you may read it, not change it"
+      : actor.role === "trainee"
+        ? "trainees change only their own sandbox plans; duplicate this plan to try changes"
+        : "your role may not change plans",
+  );
+}
+
+/** 409 `plan_locked` unless the plan's document may be saved in its current status. */
+export function assertEditableStatus(plan: Plan): void {
+  if (EDITABLE_STATUSES.includes(plan.status)) return;
+  const why: Record<string, string> = {
+    "in-review": "it is in review: wait for the reviewer's decision",
+    approved: "it is approved: a lead must reopen it to start a new revision",
+    archived: "it is archived: restore it first",
+  };
+  throw new AppError(409, "plan_locked", `this plan is read-only because ${why[plan.status]}`);
+}
+
+/**
+ * Saves a new revision. Refused with 409 `revision_conflict` (nothing written) when the plan
+ * has moved on since `baseRevision`: the client reloads or saves the document as a copy.
+ */
+export async function savePlan(
+  dataSource: DataSource,
+  actor: Actor,
+  id: string,
+  input: { baseRevision: number; document: PlanDocument; message?: string },
+): Promise<PlanDetail> {
+  assertDocumentGeometry(input.document);
+  const summary = summarizeDocument(input.document);
+  await inTransaction(dataSource, async (manager) => {
+    const plan = await findVisiblePlan(manager, actor, id);
+    requireEditor(actor, plan);
+    assertEditableStatus(plan);
+    if (input.baseRevision !== plan.latestRevision) {
+      const latest = plan.latestRevision;
+      const message =
+        `the plan was saved by someone else meanwhile (you edited revision ${input.baseRevision}, ` +
+        `the latest is ${latest}): reload it to see their changes, or save yours as a copy`;
+      throw new AppError(409, "revision_conflict", message, {
+        baseRevision: [message],
+        latestRevision: [String(latest)],
+      });
+    }
+    const number = plan.latestRevision + 1;
+    const now = new Date();
+    await insertRevision(
+      manager,
+      actor,
+      plan.id,
+      number,
+      { document: input.document, summary, message: input.message || null },
+      now,
+    );
+    await manager
+      .getRepository(Plan)
+      .update(
+        { id: plan.id },
+        { latestRevision: number, worstVerdict: summary?.worstVerdict ?? null, updatedAt: now },
+      );
+    await recordAudit(manager, {
+      teamId: actor.teamId,
+      actorId: actor.userId,
+      action: "plan.save",
+      targetType: "plan",
+      targetId: plan.id,
+      detail: {
+        name: plan.name,
+        revision: number,
+        message: input.message || null,
+        worstVerdict: summary?.worstVerdict ?? null,
+      },
+    });
+  });
+  return getPlan(dataSource, actor, id);
+}
+
+/** Rename, archive (from any status) or restore (to the status before archiving). */
+export async function updatePlan(
+  dataSource: DataSource,
+  actor: Actor,
+  id: string,
+  input: { name?: string; archived?: boolean },
+): Promise<PlanDetail> {
+  await inTransaction(dataSource, async (manager) => {
+    const plan = await findVisiblePlan(manager, actor, id);
+    requireEditor(actor, plan);
+    const changes: Partial<Plan> = {};
+    const audits: { action: string; detail: Record<string, string | null> }[] = [];
+    if (input.name !== undefined && input.name !== plan.name) {
+      changes.name = input.name;
+      audits.push({ action: "plan.rename", detail: { from: plan.name, to: input.name } });
+    }
+    const isArchived = plan.status === "archived";
+    if (input.archived !== undefined && input.archived !== isArchived) {
+      const next = archiveTransition(plan, input.archived);
+      changes.status = next.status;
+      changes.statusBeforeArchive = next.statusBeforeArchive;
+      audits.push({
+        action: input.archived ? "plan.archive" : "plan.restore",
+        detail: { name: input.name ?? plan.name, from: plan.status, to: next.status },
+      });
+    }
+    if (audits.length === 0) return;
+    await manager.getRepository(Plan).update({ id }, { ...changes, updatedAt: new Date() });
+    for (const audit of audits) {
+      await recordAudit(manager, {
+        teamId: actor.teamId,
+        actorId: actor.userId,
+        action: audit.action,
+        targetType: "plan",
+        targetId: id,
+        detail: audit.detail,
+      });
+    }
+  });
+  return getPlan(dataSource, actor, id);
+}
+
+const copyName = (name: string) => `Copy of ${name}`.slice(0, 120).trim();
+
+/**
+ * A new draft plan on the same site from the source's latest revision, owned by the actor
+ * (a trainee's copy lands in their sandbox, so trainees may copy any plan they can see).
+ */
+export async function duplicatePlan(
+  dataSource: DataSource,
+  actor: Actor,
+  id: string,
+  input: { name?: string },
+): Promise<PlanDetail> {
+  requireCreator(actor);
+  const newId = await inTransaction(dataSource, async (manager) => {
+    const source = await findVisiblePlan(manager, actor, id);
+    const revision = await latestRevisionRow(manager, source);
+    const name = input.name ?? copyName(source.name);
+    const planId = await insertPlan(manager, actor, source.siteId, name, {
+      document: { ...revision.document, name },
+      summary: revision.summary,
+      message: `copied from ${source.name}, revision ${revision.number}`,
+    });
+    await recordAudit(manager, {
+      teamId: actor.teamId,
+      actorId: actor.userId,
+      action: "plan.duplicate",
+      targetType: "plan",
+      targetId: planId,
+      detail: {
+        name,
+        fromPlan: source.id,
+        fromName: source.name,
+        fromRevision: revision.number,
+        sandbox: actor.role === "trainee",
+      },
+    });
+    return planId;
+  });
+  return getPlan(dataSource, actor, newId);
+}
