@@ -5,6 +5,7 @@ import { ROLE_LABELS } from "@/contracts/common";
 import { navItems } from "./nav";
 import { paths } from "./paths";
 import { ErrorBoundary } from "@/components/error-boundary";
+import { InboxLink } from "@/features/inbox";
 
 export function Wordmark() {
   return (
@@ -56,6 +57,7 @@ export function AppLayout() {
               ))}
           </nav>
           <div className="flex items-center gap-3 text-sm">
+            <InboxLink />
             <span className="text-right leading-tight">
               <span className="block font-medium text-ink-deep">{me.user.name}</span>
               <span className="block text-xs text-ink-soft">

@@ -10,6 +10,8 @@ import { PlanDesignerPage } from "@/features/plans/components/designer/plan-desi
 import { TeamPage } from "@/features/team/components/team-page";
 import { MailboxPage } from "@/features/mailbox/components/mailbox-page";
 import { SettingsPage } from "@/features/settings/components/settings-page";
+import { ReviewPage, TeamActivityPage } from "@/features/review";
+import { InboxPage } from "@/features/inbox";
 import { AppLayout } from "./layout";
 import { RequireAuth, RequireRole } from "./guards";
 import { paths } from "./paths";
@@ -28,6 +30,16 @@ export const appRoutes: RouteObject[] = [
     ),
   },
   { path: paths.plan(), element: <PlanDesignerPage /> },
+  { path: paths.planReview(), element: <ReviewPage /> },
+  { path: paths.inbox, element: <InboxPage /> },
+  {
+    path: paths.activity,
+    element: (
+      <RequireRole allow={(me) => me.role !== "trainee"}>
+        <TeamActivityPage />
+      </RequireRole>
+    ),
+  },
   {
     path: paths.team,
     element: (

@@ -2,6 +2,7 @@ import { useMe } from "@/features/auth/api/me";
 import { useUpdatePreferences } from "@/features/auth/api/preferences";
 import { Card, ErrorNotice, Notice, PageHeader } from "@/components/feedback";
 import type { Preferences } from "@/contracts/auth";
+import { NotificationSettingsCard } from "@/features/inbox";
 
 const UNIT_CHOICES: Array<{ value: Preferences["units"]; label: string; detail: string }> = [
   { value: "metric", label: "Metres", detail: "m, m/s, ms" },
@@ -46,6 +47,9 @@ export function SettingsPage() {
           {update.isSuccess ? <Notice tone="success">Saved.</Notice> : null}
         </div>
       </Card>
+      <div className="mt-6">
+        <NotificationSettingsCard />
+      </div>
     </div>
   );
 }

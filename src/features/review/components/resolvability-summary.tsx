@@ -1,0 +1,140 @@
+import { useMemo } from "react";
+import type { Plan } from "@engine";
+import { formatQuantity, type UnitSystem } from "@/lib/units";
+import { ErrorNotice } from "@/components/feedback";
+import { resolvabilityOf, type ResolvabilitySummary } from "../lib/resolvability";
+import { VerdictTag } from "./badges";
+
+/**
+ * Resolvability of a revision: the worst verdict, then per ground model each refractor's verdict
+ * with its true depth, the depth the intercept-time method would report, and the error.
+ */
+export function ResolvabilitySummaryView({
+  document,
+  stored,
+  units,
+}: {
+  document: Plan;
+  stored?: unknown;
+  units: UnitSystem;
+}) {
+  const result = useMemo((): { summary: ResolvabilitySummary } | { error: unknown } => {
+    try {
+      return { summary: resolvabilityOf(document, stored) };
+    } catch (error) {
+      return { error };
+    }
+  }, [document, stored]);
+  if ("error" in result)
+    return <ErrorNotice error={result.error} title="The engine could not analyse this revision" />;
+  const { summary } = result;
+  const tolerance = document.criteria.depthTolerance;
+
+  return (
+    <div className="flex flex-col gap-4">
+      <p className="flex flex-wrap items-center gap-2 text-sm">
+        <span className="font-medium text-ink">Worst verdict over every model:</span>
+        <VerdictTag verdict={summary.worstVerdict} />
+        <span className="text-xs text-ink-soft">
+          depth tolerance {formatQuantity("length", tolerance, units, 2)}
+        </span>
+      </p>
+      {summary.models.map((model, m) => (
+        <div key={`${m}:${model.name}`}>
+          <h3 className="mb-1 flex items-center gap-2 text-sm font-semibold text-ink-deep">
+            {model.name} <VerdictTag verdict={model.worstStatus} />
+          </h3>
+          {model.refractors.length === 0 ? (
+            <p className="text-sm text-ink-soft">One layer only: no refractor to resolve.</p>
+          ) : (
+            <div className="overflow-x-auto">
+              <table className="w-full text-sm" aria-label={`Resolvability of ${model.name}`}>
+                <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
+                  <tr className="border-b border-rule">
+                    <th scope="col" className="py-1.5 pr-3 font-semibold">
+                      Refractor
+                    </th>
+                    <th scope="col" className="py-1.5 pr-3 font-semibold">
+                      Verdict
+                    </th>
+                    <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
+                      True depth
+                    </th>
+                    <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
+                      Interpreted
+                    </th>
+                    <th scope="col" className="py-1.5 text-right font-semibold">
+                      Depth error
+                    </th>
+                  </tr>
+                </thead>
+                <tbody className="font-mono text-xs">
+                  {model.refractors.map((r) => (
+                    <tr key={r.layer} className="border-b border-rule/60">
+                      <th
+                        scope="row"
+                        className="py-1.5 pr-3 text-left font-sans text-sm font-medium"
+                      >
+                        Top of layer {r.layer}
+                        <span className="block text-xs font-normal text-ink-soft">
+                          {r.name ? `${r.name} · ` : ""}
+                          {formatQuantity(
+                            "velocity",
+                            document.models[m]?.layers[r.layer - 1]?.velocity,
+                            units,
+                          )}
+                        </span>
+                      </th>
+                      <td className="py-1.5 pr-3">
+                        <VerdictTag verdict={r.status} />
+                      </td>
+                      <td className="py-1.5 pr-3 text-right">
+                        {formatQuantity("length", r.trueDepth, units, 2)}
+                      </td>
+                      <td className="py-1.5 pr-3 text-right">
+                        {r.interpretedDepth === null
+                          ? "not seen"
+                          : formatQuantity("length", r.interpretedDepth, units, 2)}
+                      </td>
+                      <td
+                        className={`py-1.5 text-right ${r.exceedsTolerance ? "font-semibold text-brick" : ""}`}
+                      >
+                        {r.error === null
+                          ? "—"
+                          : `${r.error > 0 ? "+" : ""}${formatQuantity("length", r.error, units, 2)}`}
+                        {r.exceedsTolerance ? (
+                          <span
+                            className="ml-1 font-sans"
+                            title="beyond the plan's depth tolerance"
+                          >
+                            ⚠
+                          </span>
+                        ) : null}
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+          )}
+          {model.recommendation ? (
+            <p className="mt-1.5 text-xs text-ink-soft">{model.recommendation}</p>
+          ) : null}
+        </div>
+      ))}
+      {summary.recommendation.text ? (
+        <p className="rounded-md border border-rule bg-paper/60 px-3 py-2 text-sm text-ink-deep">
+          <span className="font-medium">Recommendation at this revision: </span>
+          {summary.recommendation.text}
+        </p>
+      ) : null}
+      <p className="text-xs text-ink-faint">
+        {summary.source === "stored"
+          ? "From the analysis saved with this revision."
+          : "Analysed in your browser from this revision's document."}{" "}
+        A design check is a model, not ground truth: boreholes and a qualified geophysicist’s review
+        decide.
+      </p>
+    </div>
+  );
+}

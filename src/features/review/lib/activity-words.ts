@@ -1,0 +1,91 @@
+/** Audit actions in plain words for the activity lists ("plan.request_changes" → "asked for changes"). */
+
+const ACTIONS: Record<string, string> = {
+  "plan.create": "created the plan",
+  "plan.save": "saved a new revision",
+  "plan.revise": "saved a new revision",
+  "plan.rename": "renamed the plan",
+  "plan.duplicate": "made a copy",
+  "plan.archive": "archived the plan",
+  "plan.unarchive": "restored the plan",
+  "plan.restore": "restored the plan",
+  "plan.submit": "submitted the plan for review",
+  "plan.approve": "approved the plan",
+  "plan.request_changes": "asked for changes",
+  "plan.reopen": "started a new revision",
+  "comment.create": "commented",
+  "comment.reply": "replied to a comment",
+  "comment.resolve": "resolved a thread",
+  "comment.reopen": "reopened a thread",
+  "auth.sign_in": "signed in",
+  "auth.password_reset": "reset their password",
+  "invitation.create": "invited a member",
+  "invitation.revoke": "withdrew an invitation",
+  "invitation.accept": "joined the team",
+  "member.role_change": "changed a member's role",
+  "member.remove": "removed a member",
+  "site.create": "created a site",
+  "site.rename": "renamed a site",
+  "site.describe": "edited a site's description",
+  "site.archive": "archived a site",
+  "site.unarchive": "restored a site",
+};
+
+/** A verb phrase for an audit action; unknown actions read as their words ("x.do_it" → "x: do it"). */
+export function describeAction(action: string): string {
+  const known = ACTIONS[action];
+  if (known) return known;
+  const [target, verb] = action.includes(".") ? action.split(".", 2) : ["", action];
+  const words = verb.replace(/[_-]+/g, " ");
+  return target ? `${target}: ${words}` : words;
+}
+
+const SHOWN = ["name", "revision", "from", "to", "note", "email", "role", "status"];
+
+/** The useful parts of an event's detail, e.g. "revision 3 · note: tighten the spacing". */
+export function describeDetail(detail: Record<string, unknown> | null): string {
+  if (!detail) return "";
+  const parts: string[] = [];
+  for (const key of SHOWN) {
+    const value = detail[key];
+    if (value === undefined || value === null || value === "") continue;
+    if (typeof value === "object") continue;
+    const text = String(value);
+    parts.push(`${key}: ${text.length > 140 ? `${text.slice(0, 139)}…` : text}`);
+  }
+  return parts.join(" · ");
+}
+
+export interface DecisionNote {
+  kind: "submitted" | "approved" | "changes-requested";
+  actorName: string | null;
+  note: string;
+  createdAt: string;
+}
+
+const DECISIONS: Array<[RegExp, DecisionNote["kind"]]> = [
+  [/request[_-]?changes/, "changes-requested"],
+  [/approve/, "approved"],
+  [/submit/, "submitted"],
+];
+
+/** The newest workflow step that carried a note (events may come in any order). */
+export function latestDecisionNote(
+  events: ReadonlyArray<{
+    action: string;
+    actorName: string | null;
+    detail: Record<string, unknown> | null;
+    createdAt: string;
+  }>,
+): DecisionNote | null {
+  let best: DecisionNote | null = null;
+  for (const event of events) {
+    const note = event.detail?.note;
+    if (typeof note !== "string" || note.trim() === "") continue;
+    const kind = DECISIONS.find(([pattern]) => pattern.test(event.action))?.[1];
+    if (!kind) continue;
+    if (!best || event.createdAt > best.createdAt)
+      best = { kind, actorName: event.actorName, note, createdAt: event.createdAt };
+  }
+  return best;
+}
