@@ -1,0 +1,275 @@
+/**
+ * Client facade of the modeller. Runs the engine in a Web Worker through comlink (one
+ * worker for quick requests, a separate one for design sweeps so that cancelling a sweep
+ * never disturbs an analysis), or directly on this thread where no Worker exists (jsdom
+ * tests, old browsers).
+ *
+ * Stale results are discarded: a newer request of the same kind supersedes an older one,
+ * whose promise then rejects with a ModellerCancelledError (reason "superseded"). A sweep
+ * reports progress (fractions 0..1) and can be cancelled with an AbortSignal or
+ * cancelSweep(); its promise then rejects with reason "cancelled".
+ */
+import * as Comlink from "comlink";
+import {
+  analyzePlan,
+  computeArrivals,
+  createSweepRunner,
+  firstArrivalRayPath,
+  sampleCurves,
+  type ArrivalCurves,
+  type GroundModel,
+  type Plan,
+  type PlanAnalysis,
+  type RayPath,
+  type ShotArrivals,
+  type Spread,
+  type SweepResult,
+  type SweepSpec,
+} from "@engine";
+import type { ModellerWorkerApi } from "../../workers/modeller.worker";
+
+/** Why a modeller request ended without a result. */
+export type CancelReason = "superseded" | "cancelled";
+
+/** Rejection of a request that was superseded by a newer one or cancelled. */
+export class ModellerCancelledError extends Error {
+  constructor(readonly reason: CancelReason) {
+    super(reason === "superseded" ? "superseded by a newer request" : "cancelled");
+    this.name = "ModellerCancelledError";
+  }
+}
+
+/** True for the rejection of a superseded or cancelled request (ignore it in the UI). */
+export function isModellerCancelled(error: unknown): error is ModellerCancelledError {
+  return error instanceof ModellerCancelledError;
+}
+
+/** Progress and cancellation of a sweep. */
+export interface SweepControl {
+  /** Fraction of rows done, 0..1. */
+  onProgress?: (fraction: number) => void;
+  /** Abort to cancel the sweep. */
+  signal?: AbortSignal;
+}
+
+/** The modeller as the client sees it (all times s, distances m, velocities m/s). */
+export interface Modeller {
+  /** Full analysis of a validated plan (see parsePlan in the engine). */
+  analyze(plan: Plan): Promise<PlanAnalysis>;
+  /** Arrivals of one shot (0-based index) at every geophone. */
+  arrivals(model: GroundModel, spread: Spread, shotIndex: number): Promise<ShotArrivals>;
+  /** Dense curves of one shot between signed offsets, for the Arrivals chart. */
+  curves(
+    model: GroundModel,
+    shotPosition: number,
+    fromOffset: number,
+    toOffset: number,
+    samples: number,
+    options?: { reflections?: boolean },
+  ): Promise<ArrivalCurves>;
+  /** First-arrival ray path for the Section. */
+  rayPath(model: GroundModel, shotPosition: number, geophonePosition: number): Promise<RayPath>;
+  /** Design sweep; a new sweep supersedes a running one. */
+  sweep(plan: Plan, spec: SweepSpec, control?: SweepControl): Promise<SweepResult>;
+  /** Cancel the running sweep, if any. */
+  cancelSweep(): void;
+  /** Stop the workers; pending requests reject as cancelled. */
+  dispose(): void;
+}
+
+/** Something that behaves like a module Worker (real, or a test double). */
+export interface WorkerLike extends Comlink.Endpoint {
+  terminate(): void;
+}
+
+/** Options of createModeller. */
+export interface ModellerOptions {
+  /**
+   * Creates a worker. Defaults to the real module worker when `Worker` exists; pass null to
+   * force running on this thread.
+   */
+  createWorker?: (() => WorkerLike) | null;
+  /** Rows computed between yields when running a sweep on this thread. Default 4. */
+  rowsPerSlice?: number;
+}
+
+function defaultWorkerFactory(): (() => WorkerLike) | null {
+  if (typeof Worker === "undefined") return null;
+  return () =>
+    new Worker(new URL("../../workers/modeller.worker.ts", import.meta.url), { type: "module" });
+}
+
+const nextTask = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
+
+/** Create a modeller facade. */
+export function createModeller(options: ModellerOptions = {}): Modeller {
+  const factory =
+    options.createWorker === undefined ? defaultWorkerFactory() : options.createWorker;
+  const rowsPerSlice = Math.max(1, options.rowsPerSlice ?? 4);
+  let quick: { worker: WorkerLike; api: Comlink.Remote<ModellerWorkerApi> } | null = null;
+  let sweeper: { worker: WorkerLike; api: Comlink.Remote<ModellerWorkerApi> } | null = null;
+  const latest = new Map<string, number>();
+  const pending = new Set<(reason: CancelReason) => void>();
+  let sweepSeq = 0;
+  let stopSweep: ((reason: CancelReason) => void) | null = null;
+
+  const spawn = () => {
+    const worker = (factory as () => WorkerLike)();
+    return { worker, api: Comlink.wrap<ModellerWorkerApi>(worker) };
+  };
+  const quickApi = () => (quick ??= spawn()).api;
+
+  /** Run `work` as request `kind`, discarding its result if a newer one of the kind started. */
+  function latestOnly<T>(kind: string, work: () => Promise<T>): Promise<T> {
+    const seq = (latest.get(kind) ?? 0) + 1;
+    latest.set(kind, seq);
+    return new Promise<T>((resolve, reject) => {
+      const cancel = (reason: CancelReason) => reject(new ModellerCancelledError(reason));
+      pending.add(cancel);
+      work().then(
+        (value) => {
+          pending.delete(cancel);
+          if (latest.get(kind) !== seq) cancel("superseded");
+          else resolve(value);
+        },
+        (error: unknown) => {
+          pending.delete(cancel);
+          if (latest.get(kind) !== seq) cancel("superseded");
+          else reject(error);
+        },
+      );
+    });
+  }
+
+  // On this thread: yield first so that a burst of requests resolves only the last one.
+  const local = async <T>(fn: () => T): Promise<T> => {
+    await Promise.resolve();
+    return fn();
+  };
+
+  async function sweepHere(
+    plan: Plan,
+    spec: SweepSpec,
+    control: SweepControl,
+    stopped: () => CancelReason | null,
+  ): Promise<SweepResult> {
+    await Promise.resolve();
+    const runner = createSweepRunner(plan, spec);
+    for (;;) {
+      const reason = stopped();
+      if (reason) throw new ModellerCancelledError(reason);
+      const done = runner.step(rowsPerSlice);
+      control.onProgress?.(runner.progress);
+      if (done) return runner.result;
+      await nextTask();
+    }
+  }
+
+  function sweep(plan: Plan, spec: SweepSpec, control: SweepControl = {}): Promise<SweepResult> {
+    stopSweep?.("superseded");
+    const seq = ++sweepSeq;
+    let stoppedBy: CancelReason | null = null;
+    return new Promise<SweepResult>((resolve, reject) => {
+      const stop = (reason: CancelReason) => {
+        if (stoppedBy) return;
+        stoppedBy = reason;
+        if (sweeper) {
+          // a sweep in a worker cannot be interrupted: end the worker, a fresh one comes next time
+          sweeper.worker.terminate();
+          sweeper = null;
+        }
+        reject(new ModellerCancelledError(reason));
+      };
+      stopSweep = stop;
+      const onAbort = () => stop("cancelled");
+      if (control.signal?.aborted) {
+        stop("cancelled");
+        return;
+      }
+      control.signal?.addEventListener("abort", onAbort, { once: true });
+      const finish = () => {
+        control.signal?.removeEventListener("abort", onAbort);
+        if (seq === sweepSeq) stopSweep = null;
+      };
+      let run: Promise<SweepResult>;
+      if (factory) {
+        sweeper ??= spawn();
+        const progress = control.onProgress
+          ? Comlink.proxy((f: number) => {
+              if (!stoppedBy) control.onProgress?.(f);
+            })
+          : undefined;
+        run = sweeper.api.runSweep(plan, spec, progress) as Promise<SweepResult>;
+      } else {
+        run = sweepHere(plan, spec, control, () => stoppedBy);
+      }
+      run.then(
+        (result) => {
+          finish();
+          if (!stoppedBy) resolve(result);
+        },
+        (error: unknown) => {
+          finish();
+          if (!stoppedBy) reject(error);
+        },
+      );
+    });
+  }
+
+  return {
+    analyze: (plan) =>
+      latestOnly("analyze", () =>
+        factory
+          ? (quickApi().analyzePlan(plan) as Promise<PlanAnalysis>)
+          : local(() => analyzePlan(plan)),
+      ),
+    arrivals: (model, spread, shotIndex) =>
+      latestOnly("arrivals", () =>
+        factory
+          ? (quickApi().computeArrivals(model, spread, shotIndex) as Promise<ShotArrivals>)
+          : local(() => computeArrivals(model, spread, shotIndex)),
+      ),
+    curves: (model, shotPosition, fromOffset, toOffset, samples, opts) =>
+      latestOnly("curves", () =>
+        factory
+          ? (quickApi().sampleCurves(
+              model,
+              shotPosition,
+              fromOffset,
+              toOffset,
+              samples,
+              opts,
+            ) as Promise<ArrivalCurves>)
+          : local(() => sampleCurves(model, shotPosition, fromOffset, toOffset, samples, opts)),
+      ),
+    rayPath: (model, shotPosition, geophonePosition) =>
+      latestOnly("rayPath", () =>
+        factory
+          ? (quickApi().firstArrivalRayPath(
+              model,
+              shotPosition,
+              geophonePosition,
+            ) as Promise<RayPath>)
+          : local(() => firstArrivalRayPath(model, shotPosition, geophonePosition)),
+      ),
+    sweep,
+    cancelSweep: () => stopSweep?.("cancelled"),
+    dispose() {
+      stopSweep?.("cancelled");
+      for (const cancel of [...pending]) cancel("cancelled");
+      pending.clear();
+      for (const kind of latest.keys()) latest.set(kind, (latest.get(kind) ?? 0) + 1);
+      quick?.worker.terminate();
+      quick = null;
+      sweeper?.worker.terminate();
+      sweeper = null;
+    },
+  };
+}
+
+let shared: Modeller | null = null;
+
+/** The application's shared modeller (created on first use). */
+export function getModeller(): Modeller {
+  return (shared ??= createModeller());
+}
