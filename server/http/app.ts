@@ -26,6 +26,8 @@ import { commentsRouter } from "./routes/comments";
 import { notificationsRouter } from "./routes/notifications";
 import { plansRouter } from "./routes/plans";
 import { teamRouter } from "./routes/team";
+import { attachmentsRouter, attachmentUploadRouter } from "./routes/attachments";
+import { exportsRouter } from "./routes/exports";
 import { sessionTools } from "./session";
 
 export interface AppDeps {
@@ -117,7 +119,10 @@ export function createApp(deps: AppDeps): Express {
   api.use(commentsRouter(ctx));
   api.use(notificationsRouter(ctx));
   api.use(activityRouter(ctx));
+  api.use(attachmentsRouter(ctx));
+  api.use(exportsRouter(ctx));
   api.use(apiNotFound);
+  app.use("/api", attachmentUploadRouter(ctx, { publicUrl, extraOrigins: deps.extraOrigins }));
   app.use("/api", api);
 
   if (deps.clientDir) {

@@ -59,5 +59,6 @@ export {
   type InterceptTimeResult,
 } from "./intercept-time";
 export { misfitWarnings, type MisfitWarning, type MisfitOptions } from "./misfit-pattern";
+export { modelFirstArrival } from "./modelled-arrivals";
 
 export { fieldApi, type FieldApi } from "./worker-api";

@@ -1,0 +1,501 @@
+/**
+ * Field uploads of a plan: borehole or probe logs and first-break picks as CSV, and SEG-2 shot
+ * records. A file is stored only after its content check passed, in one transaction with its
+ * audit row, against the plan's latest revision; a refused file writes nothing.
+ *
+ * Who may do what (design.md): whoever may edit the plan's content uploads and deletes (admin
+ * and lead on team plans, the author on a sandbox plan); everyone who sees the plan reads.
+ * Uploads are field data, so they are accepted in every status but archived.
+ */
+import { createHash, randomUUID } from "node:crypto";
+import type { DataSource, EntityManager } from "typeorm";
+import type { z } from "zod";
+import {
+  ATTACHMENT_EXTENSIONS,
+  ATTACHMENT_KIND_LABELS,
+  ATTACHMENT_LIMITS,
+  type AttachmentFacts,
+  type AttachmentFields,
+  type AttachmentKind,
+  type AttachmentSummary,
+  type AttachmentUploadResponse,
+  type Pick,
+  type PickSetView,
+  type picksSaveSchema,
+} from "@/contracts/field";
+import { MATERIALS } from "@engine";
+import {
+  parseBoreholeCsv,
+  parsePicksCsv,
+  readSeg2,
+  Seg2Error,
+  type CsvIssue,
+} from "../../workers/field/index";
+import { Attachment } from "../data/entities/attachment";
+import { PickSet } from "../data/entities/pick-set";
+import type { Plan } from "../data/entities/plan";
+import { PlanRevision } from "../data/entities/plan-revision";
+import { inTransaction } from "../data/transaction";
+import type { Actor } from "./actor";
+import { recordAudit } from "./audit";
+import { AppError, forbidden, notFound } from "./errors";
+import { canEditPlan, findVisiblePlan } from "./plans";
+
+export type PicksSaveOutput = z.output<typeof picksSaveSchema>;
+
+/** A file as multer hands it over (memory storage). */
+export interface UploadedFile {
+  originalname: string;
+  mimetype: string;
+  size: number;
+  buffer: Buffer;
+}
+
+/** 403 unless the actor may change the plan's field data; 409 for an archived plan. */
+export function requireFieldEditor(actor: Actor, plan: Plan): void {
+  if (!canEditPlan(actor, plan)) {
+    throw forbidden(
+      plan.sandbox
+        ? "this is another member's sandbox plan: you may read its field data, not change it"
+        : actor.role === "trainee"
+          ? "trainees add field data only to their own sandbox plans"
+          : "your role may read field data, not change it",
+    );
+  }
+  if (plan.status === "archived") {
+    throw new AppError(409, "plan_locked", "this plan is archived: restore it to add field data");
+  }
+}
+
+/** Reviewers never change field data: refused before the body is read. */
+export function requireFieldRole(actor: Actor): void {
+  if (actor.role === "reviewer") throw forbidden("reviewers read and export field data");
+}
+
+const MEDIA_TYPES: Record<AttachmentKind, readonly string[]> = {
+  borehole: ["text/csv", "text/plain", "application/csv", "application/vnd.ms-excel"],
+  picks: ["text/csv", "text/plain", "application/csv", "application/vnd.ms-excel"],
+  seg2: ["application/octet-stream", "application/x-seg2", "application/seg2"],
+};
+
+const STORED_MEDIA_TYPE: Record<AttachmentKind, string> = {
+  borehole: "text/csv",
+  picks: "text/csv",
+  seg2: "application/octet-stream",
+};
+
+const megabytes = (bytes: number) => `${Number((bytes / (1024 * 1024)).toFixed(1))} MB`;
+
+/** A file name safe to store and to send back in Content-Disposition. */
+export function cleanFileName(name: string): string {
+  const base = name.split(/[\\/]/).pop() ?? "";
+  const clean = Array.from(base.normalize("NFC"))
+    .filter((ch) => {
+      const code = ch.codePointAt(0) ?? 0;
+      return code >= 0x20 && code !== 0x7f && ch !== '"';
+    })
+    .join("")
+    .trim()
+    .slice(0, 200);
+  return clean || "upload";
+}
+
+function extensionOf(name: string): string {
+  const dot = name.lastIndexOf(".");
+  return dot < 0 ? "" : name.slice(dot).toLowerCase();
+}
+
+/** 415 when the file's name or declared type does not fit the kind; 413 when it is too large. */
+export function checkFileType(kind: AttachmentKind, file: UploadedFile): void {
+  const extension = extensionOf(file.originalname);
+  const accepted = ATTACHMENT_EXTENSIONS[kind];
+  const mediaType = (file.mimetype || "application/octet-stream").toLowerCase().split(";")[0];
+  const typeOk =
+    MEDIA_TYPES[kind].includes(mediaType) ||
+    // Browsers label unknown endings as octet-stream; the content check decides.
+    mediaType === "application/octet-stream";
+  if (!accepted.includes(extension) || !typeOk) {
+    const message = `a ${ATTACHMENT_KIND_LABELS[kind].toLowerCase()} must be a ${accepted.join(", ")} file; '${cleanFileName(file.originalname)}' (${mediaType}) is not`;
+    throw new AppError(415, "unsupported_file_type", message, { file: [message] });
+  }
+  if (file.size > ATTACHMENT_LIMITS[kind]) {
+    const message = `the file is ${megabytes(file.size)}; a ${ATTACHMENT_KIND_LABELS[kind].toLowerCase()} may be at most ${megabytes(ATTACHMENT_LIMITS[kind])}`;
+    throw new AppError(413, "file_too_large", message, { file: [message] });
+  }
+  if (file.size === 0) {
+    throw new AppError(422, "invalid_file", "the file is empty", { file: ["the file is empty"] });
+  }
+}
+
+function csvError(kind: AttachmentKind, issues: CsvIssue[]): AppError {
+  const messages = issues.map((i) => i.message);
+  const more = messages.length > 1 ? ` (and ${messages.length - 1} more)` : "";
+  return new AppError(
+    422,
+    "invalid_csv",
+    `the ${kind === "picks" ? "picks" : "borehole log"} CSV has problems: ${messages[0]}${more}`,
+    { file: messages },
+  );
+}
+
+/** The text of a CSV upload: UTF-8 (a BOM is allowed), not binary. */
+export function csvText(buffer: Buffer): string {
+  const nul = buffer.indexOf(0);
+  if (nul >= 0) {
+    const message = `byte ${nul}: a text file holds no NUL bytes; this looks like a binary file`;
+    throw new AppError(415, "unsupported_file_type", message, { file: [message] });
+  }
+  try {
+    return new TextDecoder("utf-8", { fatal: true }).decode(buffer);
+  } catch {
+    const message = "the file is not UTF-8 text; save the CSV as UTF-8";
+    throw new AppError(422, "invalid_csv", message, { file: [message] });
+  }
+}
+
+interface Checked {
+  facts: AttachmentFacts;
+  model?: AttachmentUploadResponse["model"];
+  picks?: Pick[];
+}
+
+/** Reads the file as its kind; throws 422 naming the line and column, or the byte offset. */
+export function checkContent(
+  kind: AttachmentKind,
+  file: UploadedFile,
+  fields: AttachmentFields,
+): Checked {
+  if (kind === "seg2") {
+    let record;
+    try {
+      record = readSeg2(
+        new Uint8Array(file.buffer.buffer, file.buffer.byteOffset, file.buffer.byteLength),
+      );
+    } catch (error) {
+      if (error instanceof Seg2Error) {
+        const message = `not a readable SEG-2 file: ${error.message}`;
+        throw new AppError(422, "invalid_seg2", message, {
+          file: [message],
+          offset: [String(error.offset)],
+        });
+      }
+      throw error;
+    }
+    if (record.traces.length === 0) {
+      const message = "byte 6: expected at least one trace, found a record with none";
+      throw new AppError(422, "invalid_seg2", `not a usable SEG-2 record: ${message}`, {
+        file: [message],
+        offset: ["6"],
+      });
+    }
+    const sources = new Set<number>();
+    let samples = 0;
+    let withReceiver = 0;
+    const formats = new Set<number>();
+    for (const t of record.traces) {
+      if (t.sourcePosition !== null) sources.add(t.sourcePosition);
+      if (t.receiverPosition !== null) withReceiver++;
+      samples = Math.max(samples, t.samples.length);
+      formats.add(t.format);
+    }
+    return {
+      facts: {
+        kind: "seg2",
+        traces: record.traces.length,
+        samples,
+        sampleInterval: record.traces[0].sampleInterval,
+        formats: [...formats].sort(),
+        byteOrder: record.byteOrder,
+        sourcePositions: [...sources].sort((a, b) => a - b),
+        tracesWithReceiver: withReceiver,
+      },
+    };
+  }
+  const text = csvText(file.buffer);
+  if (kind === "picks") {
+    const result = parsePicksCsv(text, { timeUnit: fields.timeUnit });
+    if (!result.ok) throw csvError(kind, result.errors);
+    const picks: Pick[] = result.rows.map((r) => ({
+      sourcePosition: r.shotPosition,
+      receiverPosition: r.geophonePosition,
+      time: r.time,
+      origin: "csv",
+    }));
+    return {
+      facts: {
+        kind: "picks",
+        picks: picks.length,
+        shots: [...new Set(picks.map((p) => p.sourcePosition))].sort((a, b) => a - b),
+        timeUnit: result.timeUnit,
+      },
+      picks,
+    };
+  }
+  const name =
+    fields.modelName ??
+    `Borehole log ${cleanFileName(file.originalname).replace(/\.[^.]*$/, "")}`.slice(0, 80);
+  const result = parseBoreholeCsv(text, MATERIALS, { name });
+  if (!result.ok) throw csvError(kind, result.errors);
+  return {
+    facts: {
+      kind: "borehole",
+      intervals: result.rows.length,
+      layers: result.model.layers.length,
+      model: result.model,
+    },
+    model: result.model,
+  };
+}
+
+type AttachmentRow = Omit<Attachment, "content">;
+
+function toSummary(row: AttachmentRow): AttachmentSummary {
+  return {
+    id: row.id,
+    planId: row.planId,
+    revision: row.revision,
+    kind: row.kind,
+    fileName: row.fileName,
+    mediaType: row.mediaType,
+    size: row.size,
+    sha256: row.sha256,
+    facts: row.facts,
+    uploadedBy: { id: row.uploadedById, name: row.uploadedBy?.name ?? "" },
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+/** Checks and stores one upload. The file is read completely before anything is written. */
+export async function uploadAttachment(
+  dataSource: DataSource,
+  actor: Actor,
+  planId: string,
+  fields: AttachmentFields,
+  file: UploadedFile | undefined,
+): Promise<AttachmentUploadResponse> {
+  requireFieldRole(actor);
+  const plan = await findVisiblePlan(dataSource.manager, actor, planId);
+  requireFieldEditor(actor, plan);
+  if (!file) {
+    throw new AppError(400, "invalid_input", "invalid body: file: choose a file to upload", {
+      file: ["choose a file to upload"],
+    });
+  }
+  checkFileType(fields.kind, file);
+  const checked = checkContent(fields.kind, file, fields);
+  const id = randomUUID();
+  const sha256 = createHash("sha256").update(file.buffer).digest("hex");
+  const fileName = cleanFileName(file.originalname);
+  await inTransaction(dataSource, async (manager) => {
+    // Re-read inside the transaction: the revision must be the latest at the moment of writing.
+    const current = await findVisiblePlan(manager, actor, planId);
+    requireFieldEditor(actor, current);
+    const revision = await manager
+      .getRepository(PlanRevision)
+      .findOneBy({ planId, number: current.latestRevision });
+    if (!revision) throw notFound("plan revision");
+    await manager.getRepository(Attachment).insert({
+      id,
+      teamId: actor.teamId,
+      planId,
+      revisionId: revision.id,
+      revision: revision.number,
+      kind: fields.kind,
+      fileName,
+      mediaType: STORED_MEDIA_TYPE[fields.kind],
+      size: file.size,
+      sha256,
+      facts: checked.facts,
+      content: file.buffer,
+      uploadedById: actor.userId,
+      createdAt: new Date(),
+    });
+    await recordAudit(manager, {
+      teamId: actor.teamId,
+      actorId: actor.userId,
+      action: "attachment.upload",
+      targetType: "plan",
+      targetId: planId,
+      detail: {
+        attachment: id,
+        kind: fields.kind,
+        fileName,
+        size: file.size,
+        revision: revision.number,
+      },
+    });
+  });
+  const row = await findAttachmentRow(dataSource.manager, actor, id);
+  return {
+    attachment: toSummary(row),
+    ...(checked.model ? { model: checked.model } : {}),
+    ...(checked.picks ? { picks: checked.picks } : {}),
+  };
+}
+
+async function findAttachmentRow(
+  manager: EntityManager,
+  actor: Actor,
+  id: string,
+): Promise<AttachmentRow> {
+  const row = await manager.getRepository(Attachment).findOne({
+    where: { id, teamId: actor.teamId },
+    relations: { uploadedBy: true },
+  });
+  if (!row) throw notFound("attachment");
+  return row;
+}
+
+/** The plan's attachments, newest first. */
+export async function listAttachments(
+  dataSource: DataSource,
+  actor: Actor,
+  planId: string,
+): Promise<AttachmentSummary[]> {
+  await findVisiblePlan(dataSource.manager, actor, planId);
+  const rows = await dataSource.getRepository(Attachment).find({
+    where: { planId, teamId: actor.teamId },
+    relations: { uploadedBy: true },
+    order: { createdAt: "DESC", id: "ASC" },
+  });
+  return rows.map(toSummary);
+}
+
+/** An attachment the actor may see (its plan visible), else 404. */
+async function visibleAttachment(
+  manager: EntityManager,
+  actor: Actor,
+  id: string,
+): Promise<{ row: AttachmentRow; plan: Plan }> {
+  const row = await findAttachmentRow(manager, actor, id);
+  try {
+    const plan = await findVisiblePlan(manager, actor, row.planId);
+    return { row, plan };
+  } catch {
+    // A hidden sandbox plan's file is reported exactly like a missing one.
+    throw notFound("attachment");
+  }
+}
+
+/** The file's bytes with what the response needs. */
+export async function attachmentContent(
+  dataSource: DataSource,
+  actor: Actor,
+  id: string,
+): Promise<{ summary: AttachmentSummary; content: Buffer }> {
+  const { row } = await visibleAttachment(dataSource.manager, actor, id);
+  const withContent = await dataSource
+    .getRepository(Attachment)
+    .createQueryBuilder("a")
+    .addSelect("a.content")
+    .where("a.id = :id AND a.teamId = :teamId", { id, teamId: actor.teamId })
+    .getOne();
+  if (!withContent) throw notFound("attachment");
+  return { summary: toSummary(row), content: Buffer.from(withContent.content) };
+}
+
+export async function deleteAttachment(
+  dataSource: DataSource,
+  actor: Actor,
+  id: string,
+): Promise<void> {
+  requireFieldRole(actor);
+  await inTransaction(dataSource, async (manager) => {
+    const { row, plan } = await visibleAttachment(manager, actor, id);
+    requireFieldEditor(actor, plan);
+    await manager.getRepository(Attachment).delete({ id, teamId: actor.teamId });
+    await recordAudit(manager, {
+      teamId: actor.teamId,
+      actorId: actor.userId,
+      action: "attachment.delete",
+      targetType: "plan",
+      targetId: row.planId,
+      detail: { attachment: id, kind: row.kind, fileName: row.fileName },
+    });
+  });
+}
+
+function toPickSetView(planId: string, row: PickSet | null): PickSetView {
+  if (!row) {
+    return {
+      planId,
+      revision: null,
+      picks: [],
+      attachmentId: null,
+      picker: null,
+      updatedBy: null,
+      updatedAt: null,
+    };
+  }
+  return {
+    planId,
+    revision: row.revision,
+    picks: row.picks,
+    attachmentId: row.attachmentId,
+    picker: row.picker,
+    updatedBy: { id: row.updatedById, name: row.updatedBy?.name ?? "" },
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+/** The plan's saved picks (an empty set when none were saved). */
+export async function getPicks(
+  dataSource: DataSource,
+  actor: Actor,
+  planId: string,
+): Promise<PickSetView> {
+  await findVisiblePlan(dataSource.manager, actor, planId);
+  const row = await dataSource
+    .getRepository(PickSet)
+    .findOne({ where: { planId, teamId: actor.teamId }, relations: { updatedBy: true } });
+  return toPickSetView(planId, row);
+}
+
+/** Replaces the plan's picks; `attachmentId`, when given, must be one of the plan's files. */
+export async function savePicks(
+  dataSource: DataSource,
+  actor: Actor,
+  planId: string,
+  input: PicksSaveOutput,
+): Promise<PickSetView> {
+  requireFieldRole(actor);
+  await inTransaction(dataSource, async (manager) => {
+    const plan = await findVisiblePlan(manager, actor, planId);
+    requireFieldEditor(actor, plan);
+    const attachmentId = input.attachmentId ?? null;
+    if (attachmentId !== null) {
+      const found = await manager
+        .getRepository(Attachment)
+        .existsBy({ id: attachmentId, planId, teamId: actor.teamId });
+      if (!found) {
+        const message = "no such attachment on this plan";
+        throw new AppError(400, "invalid_input", `invalid body: attachmentId: ${message}`, {
+          attachmentId: [message],
+        });
+      }
+    }
+    const repo = manager.getRepository(PickSet);
+    const existing = await repo.findOneBy({ planId, teamId: actor.teamId });
+    const values = {
+      revision: plan.latestRevision,
+      picks: input.picks,
+      attachmentId,
+      picker: input.picker ?? null,
+      updatedById: actor.userId,
+      updatedAt: new Date(),
+    };
+    if (existing) await repo.update({ id: existing.id }, values);
+    else await repo.insert({ id: randomUUID(), teamId: actor.teamId, planId, ...values });
+    const counts = { auto: 0, adjusted: 0, csv: 0 };
+    for (const p of input.picks) counts[p.origin] += 1;
+    await recordAudit(manager, {
+      teamId: actor.teamId,
+      actorId: actor.userId,
+      action: "picks.save",
+      targetType: "plan",
+      targetId: planId,
+      detail: { picks: input.picks.length, ...counts, revision: plan.latestRevision },
+    });
+  });
+  return getPicks(dataSource, actor, planId);
+}
