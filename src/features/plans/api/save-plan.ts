@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { ApiError, put } from "@/lib/api-client";
-import type { PlanDetail, PlanSaveInput } from "@/contracts/plans";
+import { PLAN_ERROR_CODES, type PlanDetail, type PlanSaveInput } from "@/contracts/plans";
 import { plansKeys } from "./plans-keys";
 
 /** PUT /api/plans/:id — a new revision; 409 `revision_conflict` when someone saved meanwhile. */
@@ -9,7 +9,7 @@ export const savePlan = (planId: string, input: PlanSaveInput) =>
 
 /** True for the server's answer that the plan changed since `baseRevision`. */
 export const isRevisionConflict = (error: unknown) =>
-  error instanceof ApiError && (error.code === "revision_conflict" || error.status === 409);
+  error instanceof ApiError && error.code === PLAN_ERROR_CODES.revisionConflict;
 
 export function useSavePlan(planId: string) {
   const queryClient = useQueryClient();

@@ -9,12 +9,12 @@ import { fromDisplay, toDisplay, type UnitSystem } from "@/lib/units";
 import { MAX_CHANNELS } from "@engine";
 import { followShots, type Spread } from "./engine";
 
-/** A round spacing (in the user's units) at or below `shown`: steps of 0.25, 0.5, 1 or 5. */
+/** A round spacing (in the user's units) at or below `shown`: steps of 0.1, 0.25, 0.5, 1 or 5. */
 export function practicalSpacing(shown: number): number {
   if (!(shown > 0) || !Number.isFinite(shown)) return shown;
-  const step = shown < 2 ? 0.25 : shown < 5 ? 0.5 : shown < 20 ? 1 : 5;
+  const step = shown < 1 ? 0.1 : shown < 2 ? 0.25 : shown < 5 ? 0.5 : shown < 20 ? 1 : 5;
   const rounded = Math.floor(shown / step + 1e-9) * step;
-  return rounded > 0 ? rounded : Math.floor(shown * 100) / 100;
+  return rounded > 0 ? Number(rounded.toFixed(6)) : Math.floor(shown * 100) / 100;
 }
 
 export interface AppliedSpread {

@@ -7,10 +7,16 @@
  * lands on the field path the user typed into.
  */
 import { z } from "zod";
-import type { FieldErrors, Resolver } from "react-hook-form";
+import type { Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { planSchema, type Plan } from "@engine";
-import { formatInput, localiseMessage, parseInput, type UnitSystem } from "@/lib/units";
+import {
+  formatInput,
+  localiseMessage,
+  parseInput as parseTyped,
+  type Quantity,
+  type UnitSystem,
+} from "@/lib/units";
 
 export interface LayerRow {
   name: string;
@@ -98,10 +104,48 @@ export function planToForm(plan: Plan, units: UnitSystem): PlanForm {
   };
 }
 
+/**
+ * The stored SI value behind each number the form shows, keyed by quantity and shown text, so
+ * that a value the user did not change is saved exactly as it was stored (the box shows it
+ * rounded to six significant digits).
+ */
+export type ExactValues = ReadonlyMap<string, number>;
+
+const exactKey = (quantity: Quantity, text: string) => `${quantity}:${text.trim()}`;
+
+export function exactValues(
+  plan: Plan,
+  units: UnitSystem,
+  map: Map<string, number> = new Map(),
+): Map<string, number> {
+  const add = (quantity: Quantity, value: number | null | undefined) => {
+    if (typeof value === "number" && Number.isFinite(value))
+      map.set(exactKey(quantity, formatInput(quantity, value, units)), value);
+  };
+  for (const model of plan.models) {
+    for (const layer of model.layers) {
+      add("velocity", layer.velocity);
+      add("length", layer.thickness);
+      add("angle", layer.dip);
+      layer.velocityRange?.forEach((v) => add("velocity", v));
+      layer.thicknessRange?.forEach((v) => add("length", v));
+    }
+  }
+  add("length", plan.spread.spacing);
+  add("length", plan.spread.firstGeophone);
+  plan.spread.shots.forEach((s) => add("length", s.position));
+  add("time", plan.criteria.pickError);
+  add("length", plan.criteria.depthTolerance);
+  return map;
+}
+
+const NO_EXACT: ExactValues = new Map();
+
 /** Missing required numbers become NaN so the plan schema names the field ("… must be a number"). */
 const required = (v: number | undefined) => (v === undefined ? Number.NaN : v);
 
 const rangeOf = (
+  parseInput: Parse,
   kind: "length" | "velocity",
   [lo, hi]: [string, string],
   units: UnitSystem,
@@ -112,13 +156,22 @@ const rangeOf = (
   return [required(a), required(b)];
 };
 
+type Parse = typeof parseTyped;
+
 const text = (v: string) => (v.trim() === "" ? undefined : v.trim());
 
 /**
  * Form values → plan document input (SI), before validation. The last layer of each model is
  * the half-space: its thickness and dip boxes are ignored.
  */
-export function formToPlanInput(form: PlanForm, units: UnitSystem, name: string): unknown {
+export function formToPlanInput(
+  form: PlanForm,
+  units: UnitSystem,
+  name: string,
+  exact: ExactValues = NO_EXACT,
+): unknown {
+  const parseInput: Parse = (quantity, typed, system) =>
+    exact.get(exactKey(quantity, typed ?? "")) ?? parseTyped(quantity, typed, system);
   return {
     format: "spreadsight-plan/1",
     name,
@@ -136,10 +189,10 @@ export function formToPlanInput(form: PlanForm, units: UnitSystem, name: string)
           if (thickness !== undefined) layer.thickness = thickness;
           const dip = parseInput("angle", row.dip, units);
           if (dip !== undefined) layer.dip = dip;
-          const thicknessRange = rangeOf("length", row.thicknessRange, units);
+          const thicknessRange = rangeOf(parseInput, "length", row.thicknessRange, units);
           if (thicknessRange) layer.thicknessRange = thicknessRange;
         }
-        const velocityRange = rangeOf("velocity", row.velocityRange, units);
+        const velocityRange = rangeOf(parseInput, "velocity", row.velocityRange, units);
         if (velocityRange) layer.velocityRange = velocityRange;
         return layer;
       }),
@@ -165,24 +218,31 @@ export function formToPlanInput(form: PlanForm, units: UnitSystem, name: string)
 }
 
 /** Form values (display units) → validated SI plan; errors sit on the typed field's path. */
-export const planFormSchema = (units: UnitSystem, name: string) =>
+export const planFormSchema = (units: UnitSystem, name: string, exact: ExactValues = NO_EXACT) =>
   z
     .custom<PlanForm>((v) => typeof v === "object" && v !== null)
-    .transform((form) => formToPlanInput(form, units, name))
+    .transform((form) => formToPlanInput(form, units, name, exact))
     .pipe(planSchema);
 
 /** Parse form values without react-hook-form (live analysis): the SI plan, or null when invalid. */
-export function parsePlanForm(form: PlanForm, units: UnitSystem, name: string): Plan | null {
-  const result = planFormSchema(units, name).safeParse(form);
+export function parsePlanForm(
+  form: PlanForm,
+  units: UnitSystem,
+  name: string,
+  exact: ExactValues = NO_EXACT,
+): Plan | null {
+  const result = planFormSchema(units, name, exact).safeParse(form);
   return result.success ? result.data : null;
 }
 
-function localiseErrors(errors: FieldErrors, units: UnitSystem): void {
-  for (const value of Object.values(errors)) {
-    if (!value || typeof value !== "object") continue;
+function localiseErrors(errors: unknown, units: UnitSystem): void {
+  if (!errors || typeof errors !== "object") return;
+  for (const [key, value] of Object.entries(errors)) {
+    // `ref` points at the DOM element: never walk into it.
+    if (key === "ref" || !value || typeof value !== "object") continue;
     const node = value as { message?: unknown };
     if (typeof node.message === "string") node.message = localiseMessage(node.message, units);
-    localiseErrors(value as FieldErrors, units);
+    localiseErrors(value, units);
   }
 }
 
@@ -190,15 +250,16 @@ function localiseErrors(errors: FieldErrors, units: UnitSystem): void {
 export function planFormResolver(
   units: UnitSystem,
   name: string,
+  exact: ExactValues = NO_EXACT,
 ): Resolver<PlanForm, unknown, Plan> {
-  const base = zodResolver(planFormSchema(units, name)) as unknown as Resolver<
+  const base = zodResolver(planFormSchema(units, name, exact)) as unknown as Resolver<
     PlanForm,
     unknown,
     Plan
   >;
   return async (values, context, options) => {
     const result = await base(values, context, options);
-    if (units === "imperial") localiseErrors(result.errors as FieldErrors, units);
+    if (units === "imperial") localiseErrors(result.errors, units);
     return result;
   };
 }

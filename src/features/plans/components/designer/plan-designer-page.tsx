@@ -13,7 +13,13 @@ import { formatInput, type UnitSystem } from "@/lib/units";
 import { planQueryOptions, usePlan } from "../../api/get-plan";
 import { isRevisionConflict, useSavePlan } from "../../api/save-plan";
 import { useCreatePlan } from "../../api/create-plan";
-import { parsePlanForm, planFormResolver, planToForm, type PlanForm } from "../../lib/plan-form";
+import {
+  exactValues,
+  parsePlanForm,
+  planFormResolver,
+  planToForm,
+  type PlanForm,
+} from "../../lib/plan-form";
 import { useDebouncedValue } from "../../hooks/use-debounced-value";
 import { useSaveShortcut } from "../../hooks/use-save-shortcut";
 import { usePlanAnalysis } from "../../hooks/use-plan-analysis";
@@ -71,8 +77,10 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
       { replace: true },
     );
 
+  // The stored SI value behind each shown number; grows with every revision loaded or saved.
+  const [exact] = useState(() => exactValues(detail.document, units));
   const form = useForm<PlanForm, unknown, Plan>({
-    resolver: planFormResolver(units, baseline.name),
+    resolver: planFormResolver(units, baseline.name, exact),
     mode: "onChange",
     defaultValues: planToForm(baseline.document, units),
   });
@@ -83,11 +91,17 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
   const valuesKey = JSON.stringify(values);
   const settledKey = useDebouncedValue(valuesKey, 250);
   const livePlan = useMemo(
-    () => parsePlanForm(JSON.parse(settledKey) as PlanForm, units, baseline.name),
-    [settledKey, units, baseline.name],
+    () => parsePlanForm(JSON.parse(settledKey) as PlanForm, units, baseline.name, exact),
+    [settledKey, units, baseline.name, exact],
   );
   const typing = settledKey !== valuesKey;
   const analysis = usePlanAnalysis(livePlan);
+  // When the settled plan is invalid, mark every offending field (also ones not yet touched,
+  // such as a freshly added layer), so "fix the marked fields" always has marks to point at.
+  const { trigger } = form;
+  useEffect(() => {
+    if (livePlan === null) void trigger();
+  }, [settledKey, livePlan, trigger]);
 
   // Saving.
   const savePlan = useSavePlan(baseline.id);
@@ -106,6 +120,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
         { baseRevision: baseline.revision, document },
         {
           onSuccess: (saved) => {
+            exactValues(saved.document, units, exact);
             setBaseline(saved);
             form.reset(structuredClone(submitted), { keepValues: true });
           },
@@ -115,7 +130,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
         },
       );
     })();
-  }, [readOnly, savePlan, form, baseline.revision]);
+  }, [readOnly, savePlan, form, baseline.revision, exact, units]);
   useSaveShortcut(save, !readOnly);
 
   const blocker = useBlocker(
@@ -205,6 +220,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
                   ...planQueryOptions(baseline.id),
                   staleTime: 0,
                 });
+                exactValues(fresh.document, units, exact);
                 setBaseline(fresh);
                 form.reset(planToForm(fresh.document, units));
                 setConflict(null);
