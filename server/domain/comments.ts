@@ -211,7 +211,7 @@ export async function createComment(
     const mail = await commentNotifications(manager, services, actor, plan, root, mentions);
     return { id, mail };
   });
-  await deliverMail(services, mail);
+  deliverMail(services, mail);
   const row = await dataSource
     .getRepository(PlanComment)
     .findOneOrFail({ where: { id }, relations: { author: true, resolvedBy: true } });

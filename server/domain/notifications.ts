@@ -159,17 +159,37 @@ export async function notify(
     .map((m) => ({ userId: m.userId, mail: notificationMail(services, input, m.user!) }));
 }
 
-/** Sends the e-mails; a failure is logged and never undoes the committed change. */
-export async function deliverMail(services: Services, pending: PendingMail[]): Promise<void> {
-  const results = await Promise.allSettled(pending.map((p) => services.mailer.send(p.mail)));
-  results.forEach((result, i) => {
-    if (result.status === "rejected") {
-      services.logger.warn(
-        { err: result.reason, userId: pending[i].userId, subject: pending[i].mail.subject },
-        "notification e-mail failed",
-      );
-    }
-  });
+const inFlight = new WeakMap<object, Set<Promise<void>>>();
+
+/**
+ * Sends the e-mails in the background: the request that caused them answers at once and a
+ * slow or failing SMTP server never delays or undoes it (a failure is logged; the inbox row
+ * is the durable record). `notificationMailSettled` waits for them (tests, shutdown).
+ */
+export function deliverMail(services: Services, pending: PendingMail[]): void {
+  if (pending.length === 0) return;
+  const set = inFlight.get(services.dataSource) ?? new Set<Promise<void>>();
+  inFlight.set(services.dataSource, set);
+  const job = Promise.allSettled(pending.map((p) => services.mailer.send(p.mail))).then(
+    (results) => {
+      results.forEach((result, i) => {
+        if (result.status === "rejected") {
+          services.logger.warn(
+            { err: result.reason, userId: pending[i].userId, subject: pending[i].mail.subject },
+            "notification e-mail failed",
+          );
+        }
+      });
+    },
+  );
+  set.add(job);
+  void job.finally(() => set.delete(job));
+}
+
+/** Resolves once every notification e-mail started for this database has been handed to SMTP. */
+export async function notificationMailSettled(dataSource: DataSource): Promise<void> {
+  const set = inFlight.get(dataSource);
+  while (set && set.size > 0) await Promise.all([...set]);
 }
 
 function toView(row: PlanNotification): NotificationView {

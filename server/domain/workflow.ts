@@ -158,6 +158,6 @@ export async function runStep(
       text: `${actor.name} ${rule.verb} “${plan.name}” (revision ${plan.latestRevision}).${noteText}`,
     });
   });
-  await deliverMail(services, mail);
+  deliverMail(services, mail);
   return getPlan(dataSource, actor, id);
 }

@@ -7,6 +7,7 @@ import type { DataSource } from "typeorm";
 import { ROLES, type Role } from "@/contracts/common";
 import type { PlanDetail } from "@/contracts/plans";
 import type { PlanInput } from "@engine";
+import { notificationMailSettled } from "../domain/notifications";
 import { client, signIn, type TestTeam } from "./harness";
 
 export type Api = ReturnType<typeof client>;
@@ -87,14 +88,14 @@ const PLAN_TABLES = [
   "notification_settings",
 ];
 
-/** Row counts of the plan tables plus audit_events and mail_messages. */
+/**
+ * Row counts of the plan tables plus audit_events and mail_messages (one query), after every
+ * notification e-mail already started has arrived.
+ */
 export async function countPlanRows(dataSource: DataSource): Promise<Record<string, number>> {
-  const counts: Record<string, number> = {};
-  for (const table of [...PLAN_TABLES, "audit_events", "mail_messages"]) {
-    const [row] = (await dataSource.query(`SELECT COUNT(*) AS n FROM "${table}"`)) as {
-      n: number;
-    }[];
-    counts[table] = row.n;
-  }
-  return counts;
+  await notificationMailSettled(dataSource);
+  const tables = [...PLAN_TABLES, "audit_events", "mail_messages"];
+  const select = tables.map((t) => `(SELECT COUNT(*) FROM "${t}") AS "${t}"`).join(", ");
+  const [row] = (await dataSource.query(`SELECT ${select}`)) as Record<string, number>[];
+  return { ...row };
 }
