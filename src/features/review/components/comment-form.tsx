@@ -1,4 +1,4 @@
-import { Controller, useForm } from "react-hook-form";
+import { useController, useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { z } from "zod";
 import {
@@ -56,6 +56,7 @@ export function CommentForm({
     resolver: zodResolver(commentFormSchema),
     defaultValues: { body: "", anchor: fixedAnchor ? anchorKey(fixedAnchor) : "" },
   });
+  const { field: body } = useController({ control: form.control, name: "body" });
   const submit = form.handleSubmit(async (values) => {
     const anchor = fixedAnchor ?? parseAnchorKey(values.anchor);
     try {
@@ -72,27 +73,21 @@ export function CommentForm({
         error={form.formState.errors.body?.message}
         hint="Type @ to mention a team member; they are told by e-mail and in their inbox."
       >
-        <Controller
-          control={form.control}
-          name="body"
-          render={({ field }) => (
-            <MentionTextarea
-              className="field-input min-h-20 resize-y"
-              rows={3}
-              members={members}
-              value={field.value}
-              onChange={field.onChange}
-              onBlur={field.onBlur}
-              name={field.name}
-              autoFocus={autoFocus}
-              onKeyDown={(event) => {
-                if (event.key === "Enter" && (event.ctrlKey || event.metaKey)) {
-                  event.preventDefault();
-                  void submit();
-                }
-              }}
-            />
-          )}
+        <MentionTextarea
+          className="field-input min-h-20 resize-y"
+          rows={3}
+          members={members}
+          value={body.value}
+          onChange={body.onChange}
+          onBlur={body.onBlur}
+          name={body.name}
+          autoFocus={autoFocus}
+          onKeyDown={(event) => {
+            if (event.key === "Enter" && (event.ctrlKey || event.metaKey)) {
+              event.preventDefault();
+              void submit();
+            }
+          }}
         />
       </Field>
       {anchorChoices && !fixedAnchor ? (

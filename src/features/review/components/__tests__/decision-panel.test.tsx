@@ -1,0 +1,131 @@
+import { describe, expect, it } from "vitest";
+import { screen, waitFor } from "@testing-library/react";
+import userEvent from "@testing-library/user-event";
+import { renderWithApp, stubFetch, testMe } from "@/testing/render";
+import type { PlanDetail } from "@/contracts/plans";
+import { DecisionPanel } from "../decision-panel";
+import { noPermissions, PLAN_ID, planDetail } from "../../testing/fixtures";
+
+const base = `/api/plans/${PLAN_ID}`;
+const buttonNames = () => screen.queryAllByRole("button").map((b) => b.textContent?.trim());
+
+describe("DecisionPanel", () => {
+  const cases: Array<{
+    who: string;
+    permissions: Partial<PlanDetail["permissions"]>;
+    status: PlanDetail["status"];
+    buttons: string[];
+  }> = [
+    {
+      who: "a reviewer on a plan in review",
+      permissions: { decide: true, comment: true },
+      status: "in-review",
+      buttons: ["✓ Approve", "↺ Request changes"],
+    },
+    {
+      who: "a lead on a draft",
+      permissions: { submit: true, edit: true, comment: true },
+      status: "draft",
+      buttons: ["Submit for review"],
+    },
+    {
+      who: "a lead on an approved plan",
+      permissions: { reopen: true, comment: true },
+      status: "approved",
+      buttons: ["Start a new revision"],
+    },
+    { who: "a trainee", permissions: {}, status: "in-review", buttons: [] },
+  ];
+  for (const c of cases) {
+    it(`offers ${c.who} exactly ${c.buttons.length ? c.buttons.join(" and ") : "no buttons"}`, () => {
+      renderWithApp(
+        <DecisionPanel
+          plan={planDetail({
+            status: c.status,
+            permissions: { ...noPermissions, ...c.permissions },
+          })}
+        />,
+        { me: testMe({ role: "reviewer" }) },
+      );
+      expect(buttonNames()).toEqual(c.buttons);
+    });
+  }
+
+  it("tells a user without buttons what happens next", () => {
+    renderWithApp(
+      <DecisionPanel plan={planDetail({ status: "in-review", permissions: noPermissions })} />,
+    );
+    expect(screen.getByText(/A reviewer approves it or asks for changes/)).toBeInTheDocument();
+  });
+
+  it("refuses to request changes without a note, inline, and sends nothing", async () => {
+    const calls = stubFetch({});
+    renderWithApp(
+      <DecisionPanel plan={planDetail({ permissions: { ...noPermissions, decide: true } })} />,
+    );
+    await userEvent.click(screen.getByRole("button", { name: "↺ Request changes" }));
+    const note = screen.getByLabelText("Note for the survey lead");
+    expect(await screen.findByText("say what needs to change")).toBeInTheDocument();
+    expect(note).toHaveAttribute("aria-invalid", "true");
+    expect(calls).toHaveLength(0);
+  });
+
+  it("requests changes with the note and shows the new status", async () => {
+    let status: PlanDetail["status"] = "in-review";
+    const calls = stubFetch({
+      [`POST ${base}/request-changes`]: () => {
+        status = "changes-requested";
+        return { status: 200, body: planDetail({ status, permissions: noPermissions }) };
+      },
+      [`GET ${base}`]: () => ({ status: 200, body: planDetail({ status }) }),
+    });
+    renderWithApp(
+      <DecisionPanel plan={planDetail({ permissions: { ...noPermissions, decide: true } })} />,
+    );
+    await userEvent.type(
+      screen.getByLabelText("Note for the survey lead"),
+      "Halve the spacing near the lens.",
+    );
+    await userEvent.click(screen.getByRole("button", { name: "↺ Request changes" }));
+    await waitFor(() =>
+      expect(calls.find((c) => c.method === "POST")).toMatchObject({
+        url: `${base}/request-changes`,
+        body: { note: "Halve the spacing near the lens." },
+      }),
+    );
+    expect(screen.queryByText("say what needs to change")).toBeNull();
+  });
+
+  it("approves without a note, sending an empty body", async () => {
+    const calls = stubFetch({
+      [`POST ${base}/approve`]: () => ({
+        status: 200,
+        body: planDetail({ status: "approved", permissions: noPermissions }),
+      }),
+    });
+    renderWithApp(
+      <DecisionPanel plan={planDetail({ permissions: { ...noPermissions, decide: true } })} />,
+    );
+    await userEvent.click(screen.getByRole("button", { name: "✓ Approve" }));
+    await waitFor(() => expect(calls.find((c) => c.method === "POST")?.body).toEqual({}));
+    expect(calls[0].url).toBe(`${base}/approve`);
+  });
+
+  it("shows the server's refusal when a step is not allowed any more", async () => {
+    stubFetch({
+      [`POST ${base}/submit`]: () => ({
+        status: 409,
+        body: {
+          error: { code: "illegal_transition", message: "the plan is already in review" },
+        },
+      }),
+    });
+    renderWithApp(
+      <DecisionPanel
+        plan={planDetail({ status: "draft", permissions: { ...noPermissions, submit: true } })}
+      />,
+    );
+    await userEvent.click(screen.getByRole("button", { name: "Submit for review" }));
+    expect(await screen.findByText("the plan is already in review")).toBeInTheDocument();
+  });
+});

@@ -1,0 +1,47 @@
+import { describe, expect, it } from "vitest";
+import { describeAction, describeDetail, latestDecisionNote } from "../activity-words";
+
+describe("activity words", () => {
+  it("reads known actions as phrases and unknown ones as their words", () => {
+    expect(describeAction("plan.request_changes")).toBe("asked for changes");
+    expect(describeAction("plan.frobnicate_all")).toBe("plan: frobnicate all");
+    expect(describeAction("odd")).toBe("odd");
+  });
+
+  it("keeps the useful, printable parts of a detail", () => {
+    expect(describeDetail({ revision: 3, note: "tighter spacing", nested: { x: 1 } })).toBe(
+      "revision: 3 · note: tighter spacing",
+    );
+    expect(describeDetail(null)).toBe("");
+  });
+
+  it("finds the newest workflow note whatever the order", () => {
+    const note = latestDecisionNote([
+      {
+        action: "plan.submit",
+        actorName: "A",
+        detail: { note: "first" },
+        createdAt: "2026-01-01T00:00:00Z",
+      },
+      {
+        action: "plan.request_changes",
+        actorName: "B",
+        detail: { note: "fix" },
+        createdAt: "2026-01-03T00:00:00Z",
+      },
+      {
+        action: "comment.create",
+        actorName: "C",
+        detail: { note: "not a decision" },
+        createdAt: "2026-01-04T00:00:00Z",
+      },
+      { action: "plan.approve", actorName: "D", detail: null, createdAt: "2026-01-05T00:00:00Z" },
+    ]);
+    expect(note).toEqual({
+      kind: "changes-requested",
+      actorName: "B",
+      note: "fix",
+      createdAt: "2026-01-03T00:00:00Z",
+    });
+  });
+});
