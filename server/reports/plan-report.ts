@@ -82,7 +82,7 @@ export function renderPlanReport(
       CreationDate: input.generatedAt,
     },
   });
-  for (const [name, path] of Object.entries(fonts.files)) doc.registerFont(name, path);
+  for (const [name, data] of Object.entries(fonts.files)) doc.registerFont(name, data);
   const chunks: Buffer[] = [];
   const done = new Promise<Buffer>((resolve, reject) => {
     doc.on("data", (c: Buffer) => chunks.push(c));
