@@ -42,7 +42,10 @@ export function jsonErrorOffset(text: string): number {
     throw i;
   };
   const literal = (word: string) => {
-    for (const ch of word) if (text[i++] !== ch) (i--, fail());
+    for (const ch of word) {
+      if (text[i] !== ch) fail();
+      i++;
+    }
   };
   const string = () => {
     i++; // opening quote
@@ -52,8 +55,12 @@ export function jsonErrorOffset(text: string): number {
       if (text[i] === "\\") {
         i++;
         if (text[i] === "u") {
-          for (let k = 1; k <= 4; k++)
-            if (!/[0-9a-fA-F]/.test(text[i + k] ?? "")) ((i += k), fail());
+          for (let k = 1; k <= 4; k++) {
+            if (!/[0-9a-fA-F]/.test(text[i + k] ?? "")) {
+              i += k;
+              fail();
+            }
+          }
           i += 4;
         } else if (!'"\\/bfnrt'.includes(text[i] ?? "x")) fail();
       }
