@@ -1,4 +1,5 @@
 import { useEffect, useRef, useState } from "react";
+import { isSuperseded } from "../lib/modeller-client";
 
 export interface LatestResult<I, R> {
   /** The newest result that has arrived, for `resultInput`; null before the first one. */
@@ -39,17 +40,25 @@ export function useLatestResult<I, R>(
   useEffect(() => {
     const ticket = ++sequence.current;
     if (input === null || key === null) return;
-    runRef
-      .current(input)
-      .then((result) => {
-        if (ticket !== sequence.current) return; // a newer edit was requested meanwhile
-        setState({ result, resultInput: input, resultKey: key, errorKey: null, error: null });
-      })
-      .catch((error: unknown) => {
-        if (ticket !== sequence.current) return;
-        if (isStaleSignal(error)) return;
-        setState((s) => ({ ...s, errorKey: key, error }));
-      });
+    const attempt = (retries: number) => {
+      runRef
+        .current(input)
+        .then((result) => {
+          if (ticket !== sequence.current) return; // a newer edit was requested meanwhile
+          setState({ result, resultInput: input, resultKey: key, errorKey: null, error: null });
+        })
+        .catch((error: unknown) => {
+          if (ticket !== sequence.current) return;
+          // Still the newest input, but the modeller let another request of its kind go
+          // first: ask again rather than wait forever.
+          if (isSuperseded(error)) {
+            if (retries > 0) attempt(retries - 1);
+            return;
+          }
+          setState((s) => ({ ...s, errorKey: key, error }));
+        });
+    };
+    attempt(2);
     // The key stands for the input's content.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [key]);
@@ -63,13 +72,4 @@ export function useLatestResult<I, R>(
     pending: key !== null && !current && !failed,
     error: failed ? state.error : null,
   };
-}
-
-/** Facades may reject superseded calls with a "stale" marker; those are not failures. */
-function isStaleSignal(error: unknown): boolean {
-  return (
-    typeof error === "object" &&
-    error !== null &&
-    ("stale" in error || (error as { name?: string }).name === "StaleResultError")
-  );
 }

@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState } from "react";
+import { useEffect, useMemo, useRef, useState } from "react";
 import { useQueries } from "@tanstack/react-query";
 import type { PlanDetail } from "@/contracts/plans";
 import { Card, ErrorNotice, Loading, Notice } from "@/components/feedback";
@@ -9,7 +9,7 @@ import { planQueryOptions } from "../../api/get-plan";
 import { useElementWidth } from "../../hooks/use-element-width";
 import { useModellerQuery } from "../../hooks/use-modeller-query";
 import type { Plan } from "../../lib/engine";
-import { modeller } from "../../lib/modeller-client";
+import { privateModeller, type ModellerClient } from "../../lib/modeller-client";
 import {
   buildOverlay,
   compareRows,
@@ -24,21 +24,26 @@ import { wholeDomain } from "./arrivals-panel";
 
 const MAX = 4;
 
-async function runScenarios(scenarios: Scenario[]): Promise<ScenarioResult[]> {
-  return Promise.all(
-    scenarios.map(async (s) => {
-      const [from, to] = wholeDomain(s.plan, 0);
-      const model = s.plan.models[0];
-      const [analysis, curves, arrivals] = await Promise.all([
-        modeller().analyze(s.plan),
-        modeller().curves(model, s.plan.spread.shots[0].position, from, to, 600, {
-          reflections: false,
-        }),
-        modeller().arrivals(model, s.plan.spread, 0),
-      ]);
-      return { analysis, curves, arrivals };
-    }),
-  );
+/**
+ * Every scenario's analysis and shot-1 curves, one question at a time (the modeller lets only
+ * the newest request of a kind finish, so asking them all at once would cancel all but one).
+ */
+async function runScenarios(
+  client: ModellerClient,
+  scenarios: Scenario[],
+): Promise<ScenarioResult[]> {
+  const results: ScenarioResult[] = [];
+  for (const s of scenarios) {
+    const [from, to] = wholeDomain(s.plan, 0);
+    const model = s.plan.models[0];
+    const analysis = await client.analyze(s.plan);
+    const curves = await client.curves(model, s.plan.spread.shots[0].position, from, to, 600, {
+      reflections: false,
+    });
+    const arrivals = await client.arrivals(model, s.plan.spread, 0);
+    results.push({ analysis, curves, arrivals });
+  }
+  return results;
 }
 
 /** Side by side: 2–4 candidate models of this plan, or 2–4 plans of the site. */
@@ -84,7 +89,17 @@ export function CompareView({
   }, [plan, source, models, planIds, detail, details]);
 
   const enough = scenarios !== null && scenarios.length >= 2;
-  const results = useModellerQuery(enough ? scenarios : null, runScenarios);
+  // Side by side asks its questions of a modeller of its own, so that editing the plan (the
+  // designer's live analysis) and comparing never cancel each other.
+  const [own, setOwn] = useState<ReturnType<typeof privateModeller> | null>(null);
+  useEffect(() => {
+    const m = privateModeller();
+    setOwn(m);
+    return () => m.dispose();
+  }, []);
+  const results = useModellerQuery(enough && own ? scenarios : null, (list) =>
+    runScenarios(own!.client, list),
+  );
   const loadingPlans = details.some((q) => q.isPending);
   const failedPlan = details.find((q) => q.isError);
 

@@ -10,7 +10,7 @@ import { formatInput, parseInput, unitLabel, type UnitSystem } from "@/lib/units
 import { useCreatePlan } from "../../api/create-plan";
 import { useElementWidth } from "../../hooks/use-element-width";
 import type { Plan, SweepResult } from "../../lib/engine";
-import { modeller } from "../../lib/modeller-client";
+import { isSuperseded, modeller } from "../../lib/modeller-client";
 import { buildHeatmap, CELL_FILL, type HeatCell } from "../../lib/sweep-heatmap";
 import {
   defaultAxisRange,
@@ -107,6 +107,7 @@ function SweepEditor({
     modelIndex: number;
   } | null>(null);
   const [error, setError] = useState<unknown>(null);
+  const [cancelled, setCancelled] = useState(false);
   const abort = useRef<AbortController | null>(null);
   const model = plan.models[Math.min(setup.modelIndex, plan.models.length - 1)];
   const length = unitLabel("length", units);
@@ -169,6 +170,7 @@ function SweepEditor({
     setRunning(true);
     setProgress(0);
     setError(null);
+    setCancelled(false);
     const modelIndex = Math.min(setup.modelIndex, plan.models.length - 1);
     try {
       const spec = sweepSpec({
@@ -189,7 +191,9 @@ function SweepEditor({
       });
       if (abort.current === controller) setResult({ result: answer, plan, modelIndex });
     } catch (e) {
-      if (abort.current === controller) setError(e);
+      if (abort.current !== controller) return;
+      if (isSuperseded(e)) setCancelled(true);
+      else setError(e);
     } finally {
       if (abort.current === controller) setRunning(false);
     }
@@ -330,8 +334,10 @@ function SweepEditor({
               <p className="mt-1 text-xs text-ink-soft">
                 {running
                   ? `${Math.round(progress * 100)}% computed`
-                  : result?.result.cancelled
-                    ? "Cancelled"
+                  : cancelled
+                    ? result
+                      ? "Cancelled: the previous grid stays shown"
+                      : "Cancelled"
                     : "Done"}
               </p>
             </div>

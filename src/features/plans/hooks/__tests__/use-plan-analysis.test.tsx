@@ -1,19 +1,23 @@
 import { afterEach, describe, expect, it } from "vitest";
-import { act, render, screen } from "@testing-library/react";
+import { act, render, screen, waitFor } from "@testing-library/react";
+import * as Comlink from "comlink";
+import { modellerApi } from "@engine";
+import type { WorkerLike } from "@/lib/modeller";
 import type { Plan, PlanAnalysis } from "../../lib/engine";
-import { directModeller, setModeller, type ModellerClient } from "../../lib/modeller-client";
+import { createModeller } from "@/lib/modeller";
+import { setModeller, type ModellerClient } from "../../lib/modeller-client";
 import { usePlanAnalysis } from "../use-plan-analysis";
 import { threeLayerPlan } from "../../__tests__/fixtures";
 
 afterEach(() => {
-  setModeller(directModeller);
+  setModeller(null);
 });
 
 /** A modeller whose answers arrive only when the test says so, in any order. */
 function deferredModeller() {
   const pending: Array<{ plan: Plan; resolve: (a: PlanAnalysis) => void }> = [];
   const client: ModellerClient = {
-    ...directModeller,
+    ...createModeller({ createWorker: null }),
     analyze: (plan) => new Promise((resolve) => pending.push({ plan, resolve })),
   };
   return { client, pending };
@@ -68,6 +72,40 @@ describe("usePlanAnalysis", () => {
     rerender(<Probe plan={null} />);
     expect(pending).toHaveLength(1);
     expect(screen.getByTestId("probe")).toHaveTextContent("first|not-current|idle");
+  });
+
+  it("through the worker facade, shows only the newest of a burst of edits", async () => {
+    // The engine behind comlink over a MessageChannel, as in the module worker.
+    const facade = createModeller({
+      createWorker: (): WorkerLike => {
+        const { port1, port2 } = new MessageChannel();
+        Comlink.expose(modellerApi, port1);
+        return Object.assign(port2, {
+          terminate() {
+            port1.close();
+            port2.close();
+          },
+        });
+      },
+    });
+    setModeller(facade);
+    const seen: string[] = [];
+    function Recorder({ plan }: { plan: Plan }) {
+      const state = usePlanAnalysis(plan);
+      if (state.result && state.current) seen.push(state.result.plan);
+      return <p data-testid="rec">{state.current ? state.result?.plan : "…"}</p>;
+    }
+    try {
+      const { rerender } = render(<Recorder plan={withName("edit 1")} />);
+      rerender(<Recorder plan={withName("edit 2")} />);
+      rerender(<Recorder plan={withName("edit 3")} />);
+      await waitFor(() => expect(screen.getByTestId("rec")).toHaveTextContent("edit 3"), {
+        timeout: 5000,
+      });
+      expect(new Set(seen)).toEqual(new Set(["edit 3"]));
+    } finally {
+      facade.dispose();
+    }
   });
 
   it("does not ask again when the plan is re-created with the same content", async () => {
