@@ -45,46 +45,44 @@ function layerFields(from: Layer | null, to: Layer | null): FieldChange[] {
   return changes;
 }
 
-const sameLayer = (a: Layer, b: Layer) => layerFields(a, b).length === 0;
+/** Cost of calling `a` → `b` one changed layer: its differing fields, a new name counting double. */
+function changeCost(a: Layer, b: Layer): number {
+  return layerFields(a, b).reduce((sum, c) => sum + (c.field === "name" ? 2 : 1), 0);
+}
+/** Cost of a layer added or removed: a changed layer is preferred while fewer fields differ. */
+const INDEL = 3;
 
 /**
- * Aligns two layer lists: a longest common subsequence of identical layers anchors the
- * match; between anchors the remaining layers pair up in order (changed) and the surplus is
- * added or removed. So inserting a thin layer in the middle reads as one "added" layer.
+ * Aligns two layer lists by the cheapest edit (Wagner–Fischer edit distance): identical
+ * layers cost nothing, a changed layer costs its differing fields, an added or removed layer
+ * costs 3. So inserting a thin layer in the middle reads as one "added" layer and a layer
+ * whose thickness changed reads as "changed". Pairs come out in order of both lists.
  */
 export function alignLayers(from: Layer[], to: Layer[]): [number | null, number | null][] {
   const n = from.length;
   const m = to.length;
-  const lcs: number[][] = Array.from({ length: n + 1 }, () => new Array<number>(m + 1).fill(0));
-  for (let i = n - 1; i >= 0; i--) {
-    for (let j = m - 1; j >= 0; j--) {
-      lcs[i][j] = sameLayer(from[i], to[j])
-        ? lcs[i + 1][j + 1] + 1
-        : Math.max(lcs[i + 1][j], lcs[i][j + 1]);
+  const cost: number[][] = Array.from({ length: n + 1 }, () => new Array<number>(m + 1).fill(0));
+  for (let i = n; i >= 0; i--) {
+    for (let j = m; j >= 0; j--) {
+      if (i === n && j === m) continue;
+      let best = Infinity;
+      if (i < n && j < m) best = changeCost(from[i], to[j]) + cost[i + 1][j + 1];
+      if (i < n) best = Math.min(best, INDEL + cost[i + 1][j]);
+      if (j < m) best = Math.min(best, INDEL + cost[i][j + 1]);
+      cost[i][j] = best;
     }
-  }
-  const anchors: [number, number][] = [];
-  for (let i = 0, j = 0; i < n && j < m;) {
-    if (sameLayer(from[i], to[j])) {
-      anchors.push([i, j]);
-      i++;
-      j++;
-    } else if (lcs[i + 1][j] >= lcs[i][j + 1]) i++;
-    else j++;
   }
   const pairs: [number | null, number | null][] = [];
   let i = 0;
   let j = 0;
-  for (const [ai, aj] of [...anchors, [n, m] as [number, number]]) {
-    const gapFrom = ai - i;
-    const gapTo = aj - j;
-    const paired = Math.min(gapFrom, gapTo);
-    for (let k = 0; k < paired; k++) pairs.push([i + k, j + k]);
-    for (let k = paired; k < gapFrom; k++) pairs.push([i + k, null]);
-    for (let k = paired; k < gapTo; k++) pairs.push([null, j + k]);
-    if (ai < n && aj < m) pairs.push([ai, aj]);
-    i = ai + 1;
-    j = aj + 1;
+  while (i < n || j < m) {
+    if (i < n && j < m && cost[i][j] === changeCost(from[i], to[j]) + cost[i + 1][j + 1]) {
+      pairs.push([i++, j++]);
+    } else if (i < n && cost[i][j] === INDEL + cost[i + 1][j]) {
+      pairs.push([i++, null]);
+    } else {
+      pairs.push([null, j++]);
+    }
   }
   return pairs;
 }

@@ -278,7 +278,8 @@ export interface ModelDiff {
   toName: string | null;
   fromIndex: number | null;
   toIndex: number | null;
-  /** Layers matched in order: unchanged layers anchor the match, the rest pair up in order. */
+  /** Only the layers that differ, aligned by the cheapest edit: a layer with few changed fields is
+   * "changed"; an inserted or deleted layer is "added"/"removed" (so indexes may shift). */
   layers: LayerDiff[];
 }
 
