@@ -490,6 +490,7 @@ function hiddenStatement(
   r: RefractorAnalysis,
 ): HiddenLayer | null {
   const label = model.layers[r.layer - 1]?.name ? ` (${model.layers[r.layer - 1].name})` : "";
+  const last = r.layer === earth.layerCount;
   const v = `${fmt(earth.velocity[r.layer - 1], 0)} m/s`;
   if (r.status === "inverted") {
     return {
@@ -497,8 +498,9 @@ function hiddenStatement(
       status: "inverted",
       statement:
         `Layer ${r.layer}${label}, ${v}, is a velocity inversion: it is not faster than every layer above, ` +
-        `sends no head wave, and no spread can reveal it from first arrivals; the refractor below it will be ` +
-        `interpreted too deep. Seek other evidence: ${OTHER_EVIDENCE}.`,
+        `sends no head wave, and no spread can reveal it from first arrivals` +
+        (last ? ". " : "; the refractor below it will be interpreted too deep. ") +
+        `Seek other evidence: ${OTHER_EVIDENCE}.`,
     };
   }
   if (r.status === "blind" && r.blindEverywhere) {
@@ -511,7 +513,9 @@ function hiddenStatement(
       status: "blind",
       statement:
         `Layer ${r.layer}${label}, ${v}, is a blind layer: its head wave is never a first arrival, so no spread ` +
-        `can reveal it from first arrivals; the refractor below it will be interpreted too shallow.${thick} ` +
+        `can reveal it from first arrivals` +
+        (last ? "." : "; the refractor below it will be interpreted too shallow.") +
+        `${thick} ` +
         `Seek other evidence: ${OTHER_EVIDENCE}.`,
     };
   }
