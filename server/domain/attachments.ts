@@ -19,7 +19,7 @@ import {
   type AttachmentKind,
   type AttachmentSummary,
   type AttachmentUploadResponse,
-  type Pick,
+  type FirstBreakPick,
   type PickSetView,
   type picksSaveSchema,
 } from "@/contracts/field";
@@ -156,7 +156,7 @@ export function csvText(buffer: Buffer): string {
 interface Checked {
   facts: AttachmentFacts;
   model?: AttachmentUploadResponse["model"];
-  picks?: Pick[];
+  picks?: FirstBreakPick[];
 }
 
 /** Reads the file as its kind; throws 422 naming the line and column, or the byte offset. */
@@ -215,7 +215,7 @@ export function checkContent(
   if (kind === "picks") {
     const result = parsePicksCsv(text, { timeUnit: fields.timeUnit });
     if (!result.ok) throw csvError(kind, result.errors);
-    const picks: Pick[] = result.rows.map((r) => ({
+    const picks: FirstBreakPick[] = result.rows.map((r) => ({
       sourcePosition: r.shotPosition,
       receiverPosition: r.geophonePosition,
       time: r.time,

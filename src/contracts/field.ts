@@ -103,8 +103,8 @@ export const pickSchema = z.strictObject({
     .refine((v) => v >= 0 && v <= 10, "time must be between 0 and 10 s"),
   origin: z.enum(PICK_ORIGINS, { error: "origin must be auto, adjusted or csv" }).default("auto"),
 });
-export type Pick = z.infer<typeof pickSchema>;
-export type PickInput = z.input<typeof pickSchema>;
+export type FirstBreakPick = z.infer<typeof pickSchema>;
+export type FirstBreakPickInput = z.input<typeof pickSchema>;
 
 export const MAX_PICKS = 20000;
 
@@ -137,7 +137,7 @@ export interface PickSetView {
   planId: string;
   /** Plan revision the picks were saved against; null when none were saved yet. */
   revision: number | null;
-  picks: Pick[];
+  picks: FirstBreakPick[];
   attachmentId: string | null;
   picker: string | null;
   updatedBy: { id: string; name: string } | null;
@@ -150,7 +150,7 @@ export interface AttachmentUploadResponse {
   /** A borehole log: the ground model it builds (the client may add it as a candidate). */
   model?: GroundModel;
   /** A picks CSV: the picks it holds (origin "csv"), not yet saved as the plan's picks. */
-  picks?: Pick[];
+  picks?: FirstBreakPick[];
 }
 
 /** Answer to POST /api/sites/:siteId/plans/import. */

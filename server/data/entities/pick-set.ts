@@ -1,5 +1,5 @@
 import { Column, Entity, JoinColumn, ManyToOne, PrimaryColumn } from "typeorm";
-import type { Pick } from "@/contracts/field";
+import type { FirstBreakPick } from "@/contracts/field";
 import { TIMESTAMP, UUID } from "../columns";
 import { User } from "./user";
 
@@ -11,7 +11,7 @@ export class PickSet {
   @Column(UUID) planId: string;
   /** Latest plan revision when the picks were saved. */
   @Column({ type: "integer" }) revision: number;
-  @Column({ type: "simple-json" }) picks: Pick[];
+  @Column({ type: "simple-json" }) picks: FirstBreakPick[];
   /** The record or CSV the picks came from; null when deleted or not given. */
   @Column({ ...UUID, nullable: true }) attachmentId: string | null;
   @Column({ type: "varchar", length: 40, nullable: true }) picker: string | null;
