@@ -11,6 +11,7 @@ import { Membership } from "./entities/membership";
 import { Site } from "./entities/site";
 import { Team } from "./entities/team";
 import { User } from "./entities/user";
+import { seedDemoPlans } from "./seed-demo-plans";
 import { inTransaction } from "./transaction";
 
 export const DEMO_PASSWORD = "spreadsight-demo";
@@ -44,12 +45,18 @@ export const DEMO_SITES: readonly { name: string; description: string }[] = [
 /** Inserts the demo team unless its admin account exists. Returns whether anything was added. */
 export async function seedDemo(dataSource: DataSource): Promise<{ created: boolean }> {
   const users = dataSource.getRepository(User);
-  if (await users.existsBy({ email: DEMO_ACCOUNTS[0].email })) return { created: false };
+  const existing = await users.findOneBy({ email: DEMO_ACCOUNTS[0].email });
+  if (existing) {
+    // A demo database from before plans existed gets its demo plans once.
+    const membership = await dataSource.getRepository(Membership).findOneBy({ userId: existing.id });
+    if (membership) await seedDemoPlans(dataSource, { teamId: membership.teamId });
+    return { created: false };
+  }
   const hashes = await Promise.all(DEMO_ACCOUNTS.map(() => hashPassword(DEMO_PASSWORD)));
 
-  return inTransaction(dataSource, async (manager) => {
+  const result = await inTransaction(dataSource, async (manager) => {
     if (await manager.getRepository(User).existsBy({ email: DEMO_ACCOUNTS[0].email })) {
-      return { created: false };
+      return { created: false, teamId: null };
     }
     const now = new Date();
     const teamId = randomUUID();
@@ -92,6 +99,8 @@ export async function seedDemo(dataSource: DataSource): Promise<{ created: boole
         detail: { name: site.name },
       });
     }
-    return { created: true };
+    return { created: true, teamId };
   });
+  if (result.teamId) await seedDemoPlans(dataSource, { teamId: result.teamId });
+  return { created: result.created };
 }
