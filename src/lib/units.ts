@@ -141,3 +141,20 @@ export function localiseMessage(message: string, system: UnitSystem): string {
     return `${whole} (${Number(shown.toPrecision(5))} ${unitLabel(quantity, system)})`;
   });
 }
+
+/**
+ * A signed difference with its unit: "+1.20 m", "−0.35 m", and "0.00 m" (no sign) when it
+ * rounds to zero at the shown precision.
+ */
+export function formatSigned(
+  quantity: Quantity,
+  si: number | null | undefined,
+  system: UnitSystem,
+  digits = defaultDigits(quantity),
+): string {
+  if (si === null || si === undefined || !Number.isFinite(si)) return "—";
+  const magnitude = formatQuantity(quantity, Math.abs(si), system, digits);
+  const rounded = Number(Math.abs(toDisplay(quantity, si, system)).toFixed(digits));
+  if (rounded === 0) return magnitude;
+  return `${si > 0 ? "+" : "−"}${magnitude}`;
+}

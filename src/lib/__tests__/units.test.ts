@@ -3,6 +3,7 @@ import fc from "fast-check";
 import {
   formatInput,
   formatQuantity,
+  formatSigned,
   fromDisplay,
   localiseMessage,
   METRES_PER_FOOT,
@@ -60,6 +61,15 @@ describe("units", () => {
     expect(formatQuantity("length", Number.NaN, "metric")).toBe("—");
     expect(formatQuantity("length", null, "metric")).toBe("—");
     expect(formatQuantity("angle", 4, "metric")).toBe("4.0°");
+  });
+
+  it("signs differences, and drops the sign of one that rounds to zero", () => {
+    expect(formatSigned("length", 1.2, "metric")).toBe("+1.20 m");
+    expect(formatSigned("length", -0.35, "metric")).toBe("−0.35 m");
+    expect(formatSigned("length", 0.001, "metric")).toBe("0.00 m");
+    expect(formatSigned("length", -0.004, "metric")).toBe("0.00 m");
+    expect(formatSigned("percent", -12.34, "metric")).toBe("−12.3%");
+    expect(formatSigned("length", Number.NaN, "metric")).toBe("—");
   });
 
   it("parses typed input into SI: empty is undefined, junk is NaN, commas are refused", () => {

@@ -278,8 +278,9 @@ export function buildArrivalsChart(input: ArrivalsChartInput): ArrivalsChartMode
             side: b.side,
             count: b.geophones,
             status: b.status,
-            // Keep the label (about 110 px wide) inside the plot.
-            x: Math.min(Math.max(x(signed), margin.left + 60), width - margin.right - 60),
+            // The label ends just left of the curve (which rises to the right, so the text
+            // stays above it) and never leaves the plot (labels are about 120 px wide).
+            x: Math.min(Math.max(x(signed) - 8, margin.left + 124), width - margin.right),
             y: y(t),
             text: `${name}: ${b.geophones} geophone${b.geophones === 1 ? "" : "s"}`,
           });

@@ -5,7 +5,7 @@
  */
 import { line, scaleLinear, type ScaleLinear } from "d3";
 import { SCENARIO_COLOURS } from "@/lib/chart/palette";
-import { formatQuantity, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
+import { formatQuantity, formatSigned, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type {
   ArrivalCurves,
   ModelAnalysis,
@@ -147,15 +147,28 @@ export interface CompareRow {
 function layerCell(model: ModelAnalysis, layer: number, units: UnitSystem) {
   const r = model.refractors.find((x) => x.layer === layer);
   if (!r)
-    return { status: undefined, text: "no such layer", error: null as number | null, warn: false };
+    return {
+      status: undefined,
+      text: "no such layer",
+      depth: null as number | null,
+      error: null as number | null,
+      warn: false,
+    };
   const i = model.interpretation?.refractors.find((x) => x.layer === layer);
   const error = i?.error ?? null;
   const errorText =
-    error === null
-      ? "not interpreted"
-      : `${error > 0 ? "+" : ""}${formatQuantity("length", error, units)}`;
-  return { status: r.status, text: errorText, error, warn: !!i?.exceedsTolerance };
+    error === null ? "not interpreted" : `error ${formatSigned("length", error, units)}`;
+  return {
+    status: r.status,
+    text: `depth ${formatQuantity("length", r.depth, units)} · ${errorText}`,
+    depth: r.depth,
+    error,
+    warn: !!i?.exceedsTolerance,
+  };
 }
+
+const differsBy = (a: number | null, b: number | null, tolerance: number) =>
+  (a === null) !== (b === null) || (a !== null && b !== null && Math.abs(a - b) > tolerance);
 
 /** The verdict-and-depth-error table, one column per scenario. */
 export function compareRows(
@@ -201,10 +214,8 @@ export function compareRows(
         differs:
           i > 0 &&
           (c.status !== cells[0].status ||
-            (c.error === null) !== (cells[0].error === null) ||
-            (c.error !== null &&
-              cells[0].error !== null &&
-              Math.abs(c.error - cells[0].error) > scenarios[0].plan.criteria.depthTolerance / 10)),
+            differsBy(c.depth, cells[0].depth, 1e-6) ||
+            differsBy(c.error, cells[0].error, scenarios[0].plan.criteria.depthTolerance / 10)),
       })),
     });
   }

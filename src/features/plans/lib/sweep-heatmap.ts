@@ -5,7 +5,7 @@
  */
 import { scaleBand } from "d3";
 import { palette } from "@/lib/chart/palette";
-import { formatQuantity, unitLabel, type UnitSystem } from "@/lib/units";
+import { formatQuantity, formatSigned, unitLabel, type UnitSystem } from "@/lib/units";
 import { CELL_INVALID, CELL_NOT_COMPUTED, STATUSES, type Status, type SweepResult } from "./engine";
 
 export const CELL_FILL: Record<Status | "invalid" | "pending", string> = {
@@ -115,7 +115,7 @@ export function buildHeatmap(
       const errorText =
         depthError === null
           ? "no depth interpreted"
-          : `depth error ${depthError > 0 ? "+" : ""}${formatQuantity("length", depthError, units)}`;
+          : `depth error ${formatSigned("length", depthError, units)}`;
       cells.push({
         row,
         col,

@@ -171,6 +171,10 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
               <span>· by {baseline.author.name}</span>
               <span className="font-mono text-xs">· revision {baseline.revision}</span>
               {readOnly ? <span className="font-medium text-ink">· read only</span> : null}
+              <span>·</span>
+              <Link to={paths.planReview(baseline.id)} className="text-ink underline">
+                Review
+              </Link>
             </p>
           </div>
           <div className="flex flex-wrap items-center gap-3">

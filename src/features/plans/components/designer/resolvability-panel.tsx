@@ -1,5 +1,5 @@
 import { Button } from "@/components/button";
-import { formatQuantity, type UnitSystem } from "@/lib/units";
+import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
 import type { ModelAnalysis, Plan, PlanAnalysis, Segment } from "../../lib/engine";
 import { applyRecommendation, type AppliedSpread } from "../../lib/apply-recommendation";
 import { VerdictBadge, VERDICT_MEANINGS } from "../verdict-badge";
@@ -90,7 +90,7 @@ export function ResolvabilityPanel({
               <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
                 Geophones
               </th>
-              <th scope="col" className="py-1.5 pr-3 text-right font-semibold">
+              <th scope="col" className="min-w-[10.5rem] py-1.5 pr-3 text-right font-semibold">
                 Depth (true, interpreted)
               </th>
               <th scope="col" className="py-1.5 text-right font-semibold">
@@ -149,10 +149,9 @@ export function ResolvabilityPanel({
                             className={`block ${i.exceedsTolerance ? "font-semibold text-brick" : "text-ink-soft"}`}
                             data-testid={`depth-error-${r.layer}`}
                           >
-                            error {i.error > 0 ? "+" : ""}
-                            {formatQuantity("length", i.error, units)}
+                            error {formatSigned("length", i.error, units)}
                             {i.errorPercent !== null
-                              ? ` (${i.errorPercent > 0 ? "+" : ""}${formatQuantity("percent", i.errorPercent, units)})`
+                              ? ` (${formatSigned("percent", i.errorPercent, units)})`
                               : ""}
                           </span>
                         ) : null}
@@ -160,7 +159,7 @@ export function ResolvabilityPanel({
                           <span
                             className={`block ${s.exceedsTolerance ? "font-semibold text-brick" : "text-ink-soft"}`}
                           >
-                            ± {formatQuantity("length", s.depthSigma, units)} (1σ picks)
+                            ±{formatQuantity("length", s.depthSigma, units)} from picks
                           </span>
                         ) : null}
                       </>
