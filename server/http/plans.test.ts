@@ -222,6 +222,23 @@ describe("saving revisions", () => {
     expect(onTop.revision).toBe(3);
   });
 
+  it("two saves racing from the same base: exactly one wins", async () => {
+    const plan = await createPlan(api.lead, team.sites.active, "Race");
+    const results = await Promise.all(
+      [1.0, 2.0].map((h, i) =>
+        (i === 0 ? api.lead : api.admin)
+          .put(`/api/plans/${plan.id}`)
+          .send({ baseRevision: 1, document: thinLayerDocument(h) }),
+      ),
+    );
+    expect(results.map((r) => r.status).sort()).toEqual([200, 409]);
+    const winner = results.find((r) => r.status === 200)!.body as PlanDetail;
+    const revisions = (await api.lead.get(`/api/plans/${plan.id}/revisions`)).body;
+    expect(revisions).toHaveLength(2);
+    const stored = (await api.lead.get(`/api/plans/${plan.id}/revisions/2`)).body as RevisionDetail;
+    expect(stored.document).toEqual(winner.document);
+  });
+
   it("keeps every revision immutable and lists them newest first with author and message", async () => {
     const plan = await createPlan(api.lead, team.sites.active, "History");
     const r2 = await saveDocument(api.lead, plan, thinLayerDocument(1.0), "thin lens");
