@@ -354,6 +354,37 @@ describe("plan and review routes: role × action matrix", () => {
   }
 });
 
+it("the matrix covers every plan and review route", () => {
+  const covered = new Set(matrix.map((r) => r.route.split(" (")[0]));
+  const routes = [
+    "GET /api/sites/:siteId/plans",
+    "POST /api/sites/:siteId/plans",
+    "GET /api/plans/:id",
+    "PUT /api/plans/:id",
+    "PATCH /api/plans/:id",
+    "POST /api/plans/:id/duplicate",
+    "GET /api/plans/:id/revisions",
+    "GET /api/plans/:id/revisions/:n",
+    "GET /api/plans/:id/diff",
+    "POST /api/plans/:id/submit",
+    "POST /api/plans/:id/approve",
+    "POST /api/plans/:id/request-changes",
+    "POST /api/plans/:id/reopen",
+    "GET /api/plans/:id/comments",
+    "POST /api/plans/:id/comments",
+    "PATCH /api/comments/:id",
+    "GET /api/plans/:id/activity",
+    "GET /api/plans/:id/activity.csv",
+    "GET /api/audit.csv",
+    "GET /api/notifications",
+    "POST /api/notifications/read-all",
+    "POST /api/notifications/:id/read",
+    "GET /api/me/notification-settings",
+    "PUT /api/me/notification-settings",
+  ];
+  expect([...covered].sort()).toEqual([...routes].sort());
+});
+
 describe("cross-team attempts", () => {
   let plan: PlanDetail;
   let threadId: string;
