@@ -9,6 +9,7 @@ export const paths = {
   site: (id = ":siteId") => `/sites/${id}`,
   plan: (id = ":planId") => `/plans/${id}`,
   planReview: (id = ":planId") => `/plans/${id}/review`,
+  planField: (id = ":planId") => `/plans/${id}/field`,
   inbox: "/inbox",
   activity: "/activity",
   team: "/team",

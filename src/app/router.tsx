@@ -16,6 +16,7 @@ import { AppLayout } from "./layout";
 import { RequireAuth, RequireRole } from "./guards";
 import { paths } from "./paths";
 import { NotFoundPage } from "./not-found";
+import { FieldCheckPage } from "@/features/field";
 
 /** Routes shown inside the signed-in frame. Features add theirs here. */
 export const appRoutes: RouteObject[] = [
@@ -31,6 +32,7 @@ export const appRoutes: RouteObject[] = [
   },
   { path: paths.plan(), element: <PlanDesignerPage /> },
   { path: paths.planReview(), element: <ReviewPage /> },
+  { path: paths.planField(), element: <FieldCheckPage /> },
   { path: paths.inbox, element: <InboxPage /> },
   {
     path: paths.activity,

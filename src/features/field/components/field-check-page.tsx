@@ -1,0 +1,590 @@
+import { useCallback, useEffect, useMemo, useState } from "react";
+import { Link, useParams } from "react-router-dom";
+import type {
+  AttachmentSummary,
+  AttachmentUploadResponse,
+  FirstBreakPick,
+} from "@/contracts/field";
+import { PLAN_STATUS_LABELS, type PlanDetail } from "@/contracts/plans";
+import type { MeResponse } from "@/contracts/auth";
+import { paths } from "@/app/paths";
+import { Button } from "@/components/button";
+import { ErrorBoundary } from "@/components/error-boundary";
+import { Card, EmptyState, ErrorNotice, Loading, Notice, PageHeader } from "@/components/feedback";
+import { useMe } from "@/features/auth/api/me";
+import { errorMessage } from "@/lib/api-client";
+import {
+  modelFirstArrival,
+  parsePicksCsv,
+  type PickerChoice,
+  type Seg2Record,
+} from "../../../../workers/field/index";
+import { useAddCandidateModel } from "../api/add-model";
+import { fetchAttachmentBytes, attachmentContentUrl } from "../api/attachment-content";
+import { useDeleteAttachment } from "../api/delete-attachment";
+import { useFieldPlan } from "../api/get-plan";
+import { usePicks } from "../api/get-picks";
+import { useAttachments } from "../api/list-attachments";
+import { useSavePicks } from "../api/save-picks";
+import { compareCandidates, warningsFor, type Candidate } from "../lib/comparison";
+import { fieldWorker } from "../lib/field-worker";
+import { metres } from "../lib/format";
+import {
+  adjustPick,
+  countByOrigin,
+  mergePicks,
+  nearestShot,
+  placeTraces,
+  samePicks,
+} from "../lib/picks";
+import { AttachmentList } from "./attachment-list";
+import {
+  FitTable,
+  MisfitWarnings,
+  ResidualChart,
+  ResidualTable,
+  TimeDistanceChart,
+} from "./comparison-panel";
+import { ExportLinks } from "./export-links";
+import { RecordSection, recordSpan, type SectionView } from "./record-section";
+import { SegmentsPanel } from "./segments-panel";
+import { UploadPanel } from "./upload-panel";
+
+/** Who may change field data and who may export (design.md role table; the server decides too). */
+export function fieldRights(plan: PlanDetail, me: MeResponse | null | undefined) {
+  if (!me) return { edit: false, export: false };
+  const own = plan.author.id === me.user.id;
+  const edit =
+    plan.status !== "archived" &&
+    (plan.sandbox ? own && me.role !== "reviewer" : me.role === "admin" || me.role === "lead");
+  const exporter = me.role !== "trainee" || (plan.sandbox && own);
+  return { edit, export: exporter };
+}
+
+const PICKERS: { value: PickerChoice["method"]; label: string }[] = [
+  { value: "sta-lta", label: "STA/LTA (Allen 1978)" },
+  { value: "aic", label: "AIC (Maeda 1985)" },
+  { value: "energy-ratio", label: "Modified energy ratio (Han et al. 2009)" },
+];
+
+interface OpenRecord {
+  attachment: AttachmentSummary;
+  record: Seg2Record;
+  /** Shot position the traces are placed against, m. */
+  sourcePosition: number;
+}
+
+/** The *Field check* screen of a plan: route /plans/:planId/field. */
+export function FieldCheckPage() {
+  const { planId = "" } = useParams();
+  const plan = useFieldPlan(planId);
+  const attachments = useAttachments(planId);
+  const saved = usePicks(planId);
+  const me = useMe();
+  if (plan.isPending || saved.isPending || attachments.isPending)
+    return <Loading label="Loading the field check…" />;
+  if (plan.isError) return <ErrorNotice error={plan.error} title="Cannot show this plan" />;
+  if (saved.isError) return <ErrorNotice error={saved.error} title="Cannot load the saved picks" />;
+  if (attachments.isError)
+    return <ErrorNotice error={attachments.error} title="Cannot list the field data" />;
+  return (
+    <FieldCheck
+      key={plan.data.id}
+      plan={plan.data}
+      attachments={attachments.data}
+      savedPicks={saved.data.picks}
+      savedAttachmentId={saved.data.attachmentId}
+      me={me.data}
+    />
+  );
+}
+
+function FieldCheck({
+  plan,
+  attachments,
+  savedPicks,
+  savedAttachmentId,
+  me,
+}: {
+  plan: PlanDetail;
+  attachments: AttachmentSummary[];
+  savedPicks: FirstBreakPick[];
+  savedAttachmentId: string | null;
+  me: MeResponse | null | undefined;
+}) {
+  const rights = fieldRights(plan, me);
+  const doc = plan.document;
+  const [draft, setDraft] = useState<FirstBreakPick[] | null>(null);
+  const picks = draft ?? savedPicks;
+  const dirty = draft !== null && !samePicks(draft, savedPicks);
+  const [open, setOpen] = useState<OpenRecord | null>(null);
+  const [busy, setBusy] = useState<string | null>(null);
+  const [notice, setNotice] = useState<{
+    tone: "info" | "caution" | "success";
+    text: string;
+  } | null>(null);
+  const [picker, setPicker] = useState<PickerChoice["method"]>("sta-lta");
+  const [picking, setPicking] = useState(false);
+  const [selected, setSelected] = useState<number | null>(null);
+  const [view, setView] = useState<SectionView | null>(null);
+  const save = useSavePicks(plan.id);
+  const remove = useDeleteAttachment(plan.id);
+  const addModel = useAddCandidateModel(plan);
+
+  const candidates = useMemo<Candidate[]>(() => {
+    const fromPlan = doc.models.map((m) => ({ name: m.name, model: m, source: "plan" as const }));
+    const names = new Set(doc.models.map((m) => m.name));
+    const fromLogs = attachments.flatMap((a) =>
+      a.facts.kind === "borehole" && !names.has(a.facts.model.name)
+        ? [{ name: a.facts.model.name, model: a.facts.model, source: "borehole" as const }]
+        : [],
+    );
+    return [...fromPlan, ...fromLogs];
+  }, [doc.models, attachments]);
+  const comparison = useMemo(() => compareCandidates(picks, candidates), [picks, candidates]);
+  const shown = selected ?? comparison.best ?? 0;
+  const shownCandidate = candidates[shown];
+  const warnings = useMemo(
+    () => warningsFor(picks, shownCandidate, doc.criteria.pickError),
+    [picks, shownCandidate, doc.criteria.pickError],
+  );
+
+  const placements = useMemo(
+    () => (open ? placeTraces(open.record.traces, doc.spread, open.sourcePosition) : []),
+    [open, doc.spread],
+  );
+  const modelled = useMemo(() => {
+    if (!open || !shownCandidate) return null;
+    const f = modelFirstArrival(shownCandidate.model);
+    return placements.map((p) => {
+      const t = f(p.sourcePosition, p.receiverPosition);
+      return Number.isFinite(t) ? t : null;
+    });
+  }, [open, placements, shownCandidate]);
+
+  // A newly opened record starts with a window that shows its first breaks well.
+  useEffect(() => {
+    if (!open) return;
+    const span = recordSpan(open.record);
+    const latest = Math.max(0, ...(modelled ?? []).map((t) => t ?? 0));
+    const end = latest > 0 ? Math.min(span[1], Math.max(0.05, latest * 2.2)) : span[1];
+    setView({ mode: "both", gain: 1.5, clip: 1, scaling: "trace", window: [span[0], end] });
+    // Only when another record (or shot) is opened, not when the model shown changes.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [open?.attachment.id, open?.sourcePosition]);
+
+  const openRecord = useCallback(
+    async (attachment: AttachmentSummary, bytes?: ArrayBuffer) => {
+      setBusy(attachment.id);
+      setNotice(null);
+      try {
+        const data = bytes ?? (await fetchAttachmentBytes(attachment.id));
+        const record = await fieldWorker().readSeg2(data);
+        const recorded =
+          record.traces.find((t) => t.sourcePosition !== null)?.sourcePosition ?? null;
+        const sourcePosition =
+          recorded ?? doc.spread.shots[nearestShot(doc.spread.shots, null)].position;
+        setOpen({ attachment, record, sourcePosition });
+      } catch (error) {
+        setNotice({
+          tone: "caution",
+          text: `Could not open ${attachment.fileName}: ${errorMessage(error)}`,
+        });
+      } finally {
+        setBusy(null);
+      }
+    },
+    [doc.spread.shots],
+  );
+
+  const loadCsvPicks = async (attachment: AttachmentSummary, given?: FirstBreakPick[]) => {
+    setNotice(null);
+    try {
+      let incoming = given;
+      if (!incoming) {
+        const text = new TextDecoder().decode(await fetchAttachmentBytes(attachment.id));
+        const unit = attachment.facts.kind === "picks" ? attachment.facts.timeUnit : "ms";
+        const result = parsePicksCsv(text, { timeUnit: unit });
+        if (!result.ok) throw new Error(result.errors.map((e) => e.message).join("; "));
+        incoming = result.rows.map((r) => ({
+          sourcePosition: r.shotPosition,
+          receiverPosition: r.geophonePosition,
+          time: r.time,
+          origin: "csv" as const,
+        }));
+      }
+      setDraft((d) => mergePicks(d ?? savedPicks, incoming));
+      setNotice({
+        tone: "info",
+        text: `${incoming.length} picks from ${attachment.fileName} are on the chart${rights.edit ? "; save the picks to keep them" : ""}.`,
+      });
+    } catch (error) {
+      setNotice({
+        tone: "caution",
+        text: `Could not use ${attachment.fileName}: ${errorMessage(error)}`,
+      });
+    }
+  };
+
+  const onUploaded = (response: AttachmentUploadResponse, file: File) => {
+    const a = response.attachment;
+    if (a.kind === "seg2") {
+      void file.arrayBuffer().then((bytes) => openRecord(a, bytes));
+    } else if (a.kind === "picks" && response.picks) {
+      void loadCsvPicks(a, response.picks);
+    } else if (a.kind === "borehole" && response.model) {
+      setNotice({
+        tone: "success",
+        text: `${a.fileName} builds “${response.model.name}” (${response.model.layers.length} layers); it is compared with the picks below${rights.edit ? " and can be added to the plan as a candidate model" : ""}.`,
+      });
+    }
+  };
+
+  const autoPick = async () => {
+    if (!open) return;
+    setPicking(true);
+    setNotice(null);
+    try {
+      const traces = open.record.traces.map((t) => ({
+        index: t.index,
+        samples: t.samples,
+        sampleInterval: t.sampleInterval,
+        delay: t.delay,
+        channel: t.channel,
+        receiverPosition: t.receiverPosition,
+        sourcePosition: t.sourcePosition,
+      }));
+      const result = await fieldWorker().pickRecord(traces, { method: picker });
+      const incoming: FirstBreakPick[] = [];
+      const missed: string[] = [];
+      result.forEach((r, i) => {
+        const place = placements[i];
+        if (r.time === null) missed.push(`channel ${r.channel}: ${r.reason}`);
+        else
+          incoming.push({
+            sourcePosition: place.sourcePosition,
+            receiverPosition: place.receiverPosition,
+            time: r.time,
+            origin: "auto",
+          });
+      });
+      setDraft((d) => mergePicks(d ?? savedPicks, incoming));
+      setNotice({
+        tone: missed.length ? "caution" : "success",
+        text: `${incoming.length} of ${result.length} traces picked automatically.${missed.length ? ` No pick on ${missed.join("; ")}.` : ""} Click a trace to adjust its pick.`,
+      });
+    } catch (error) {
+      setNotice({ tone: "caution", text: `Automatic picking failed: ${errorMessage(error)}` });
+    } finally {
+      setPicking(false);
+    }
+  };
+
+  const savePicks = () => {
+    save.mutate(
+      {
+        picks: picks.map((p) => ({ ...p })),
+        attachmentId: open?.attachment.id ?? savedAttachmentId ?? null,
+        picker,
+      },
+      {
+        onSuccess: () => {
+          setDraft(null);
+          setNotice({ tone: "success", text: `${picks.length} picks saved to the plan.` });
+        },
+      },
+    );
+  };
+
+  const counts = countByOrigin(picks);
+  const siteLink = paths.site(plan.siteId);
+  const spreadExtent: [number, number] = [
+    doc.spread.firstGeophone,
+    doc.spread.firstGeophone + (doc.spread.channels - 1) * doc.spread.spacing,
+  ];
+  const recordShots = open
+    ? [
+        ...new Set([
+          ...open.record.traces.flatMap((t) =>
+            t.sourcePosition === null ? [] : [t.sourcePosition],
+          ),
+          ...doc.spread.shots.map((s) => s.position),
+        ]),
+      ]
+    : [];
+
+  return (
+    <div className="flex flex-col gap-6">
+      <p className="-mb-4 text-sm">
+        <Link to={siteLink} className="text-ink underline">
+          {plan.siteName || "Site"}
+        </Link>
+        {" / "}
+        <Link to={paths.plan(plan.id)} className="text-ink underline">
+          {plan.name}
+        </Link>
+      </p>
+      <PageHeader
+        title="Field check"
+        subtitle={`${plan.name} · revision ${plan.revision} · ${PLAN_STATUS_LABELS[plan.status]}${plan.sandbox ? " · sandbox" : ""}`}
+        actions={rights.export ? <ExportLinks planId={plan.id} /> : undefined}
+      />
+      <p className="-mt-3 max-w-3xl text-sm text-ink-soft">
+        Bring in a pilot shot and see at once whether the ground behaves as planned. A good fit
+        supports the plan; it does not prove it — boreholes and a qualified geophysicist's review
+        decide.
+      </p>
+
+      <ErrorBoundary title="The field data panel failed">
+        <Card>
+          <h2 className="mb-3 text-lg font-semibold text-ink-deep">Field data</h2>
+          {rights.edit ? (
+            <UploadPanel planId={plan.id} onUploaded={onUploaded} />
+          ) : (
+            <p className="mb-2 text-sm text-ink-soft">
+              Your role may read and download this plan's field data; uploads are for the plan's
+              editors.
+            </p>
+          )}
+          <div className="mt-4">
+            <AttachmentList
+              attachments={attachments}
+              openId={open?.attachment.id ?? null}
+              canEdit={rights.edit}
+              inPlan={doc.models.map((m) => m.name)}
+              busyId={busy}
+              onOpen={(a) => void openRecord(a)}
+              onLoadPicks={(a) => void loadCsvPicks(a)}
+              onAddModel={(a) => {
+                if (a.facts.kind !== "borehole") return;
+                addModel.mutate(a.facts.model, {
+                  onSuccess: (p) =>
+                    setNotice({
+                      tone: "success",
+                      text: `“${a.facts.kind === "borehole" ? a.facts.model.name : ""}” is now a candidate model of the plan (revision ${p.revision}).`,
+                    }),
+                  onError: (e) =>
+                    setNotice({
+                      tone: "caution",
+                      text: `Could not add the model: ${errorMessage(e)}`,
+                    }),
+                });
+              }}
+              onDelete={(a) => {
+                if (!window.confirm(`Delete ${a.fileName}? Saved picks stay.`)) return;
+                remove.mutate(a.id, {
+                  onSuccess: () => {
+                    if (open?.attachment.id === a.id) setOpen(null);
+                  },
+                  onError: (e) =>
+                    setNotice({
+                      tone: "caution",
+                      text: `Could not delete ${a.fileName}: ${errorMessage(e)}`,
+                    }),
+                });
+              }}
+            />
+          </div>
+          {notice ? (
+            <div className="mt-3">
+              <Notice tone={notice.tone}>{notice.text}</Notice>
+            </div>
+          ) : null}
+        </Card>
+      </ErrorBoundary>
+
+      {open && view ? (
+        <ErrorBoundary title="The shot record failed to draw">
+          <Card>
+            <div className="mb-3 flex flex-wrap items-end justify-between gap-3">
+              <div>
+                <h2 className="text-lg font-semibold text-ink-deep">Shot record</h2>
+                <p className="text-sm text-ink-soft">
+                  {open.attachment.fileName} · {open.record.traces.length} traces
+                  {placements.some((p) => p.receiverFrom === "plan")
+                    ? " · geophones placed by channel on the plan's spread (the record states no RECEIVER_LOCATION)"
+                    : ""}
+                </p>
+              </div>
+              <div className="flex flex-wrap items-end gap-3">
+                <label className="flex flex-col gap-1 text-sm">
+                  <span className="font-medium text-ink">Shot point</span>
+                  <select
+                    className="field-input py-1"
+                    value={open.sourcePosition}
+                    onChange={(e) => setOpen({ ...open, sourcePosition: Number(e.target.value) })}
+                  >
+                    {recordShots.map((s) => {
+                      const planShot = doc.spread.shots.find((x) => x.position === s);
+                      return (
+                        <option key={s} value={s}>
+                          {metres(s)}
+                          {planShot?.label
+                            ? ` (${planShot.label})`
+                            : planShot
+                              ? ""
+                              : " (as recorded)"}
+                        </option>
+                      );
+                    })}
+                  </select>
+                </label>
+                {rights.edit ? (
+                  <>
+                    <label className="flex flex-col gap-1 text-sm">
+                      <span className="font-medium text-ink">Picker</span>
+                      <select
+                        className="field-input py-1"
+                        value={picker}
+                        onChange={(e) => setPicker(e.target.value as PickerChoice["method"])}
+                      >
+                        {PICKERS.map((p) => (
+                          <option key={p.value} value={p.value}>
+                            {p.label}
+                          </option>
+                        ))}
+                      </select>
+                    </label>
+                    <Button onClick={() => void autoPick()} disabled={picking}>
+                      {picking ? "Picking…" : "Pick first breaks"}
+                    </Button>
+                  </>
+                ) : null}
+                <a
+                  className="text-sm text-ink underline"
+                  href={attachmentContentUrl(open.attachment.id)}
+                  download={open.attachment.fileName}
+                >
+                  Download record
+                </a>
+              </div>
+            </div>
+            <RecordSection
+              record={open.record}
+              placements={placements}
+              picks={picks}
+              modelled={modelled}
+              modelName={shownCandidate?.name ?? null}
+              view={view}
+              onViewChange={setView}
+              editable={rights.edit}
+              onAdjust={(traceIndex, time) => {
+                const p = placements[traceIndex];
+                setDraft((d) =>
+                  adjustPick(d ?? savedPicks, p.sourcePosition, p.receiverPosition, time),
+                );
+              }}
+            />
+            {modelled && shownCandidate ? (
+              <p className="mt-2 text-xs text-ink-soft">
+                Dashed ochre line: first arrivals of “{shownCandidate.name}” for this shot and these
+                geophones.
+              </p>
+            ) : null}
+          </Card>
+        </ErrorBoundary>
+      ) : null}
+
+      <section
+        aria-label="Picks"
+        className="sticky bottom-0 z-10 flex flex-wrap items-center justify-between gap-3 rounded-lg border border-rule bg-card/95 px-5 py-3 shadow-[0_-2px_8px_rgba(18,72,74,0.08)]"
+      >
+        <p className="text-sm" aria-live="polite">
+          <span className="font-semibold text-ink-deep">{picks.length} picks</span>{" "}
+          <span className="text-ink-soft">
+            ({counts.auto} automatic, {counts.adjusted} adjusted, {counts.csv} from CSV)
+          </span>
+          {dirty ? (
+            <span className="ml-2 rounded-full bg-ochre-soft px-2 py-0.5 text-xs font-semibold text-ink-deep">
+              unsaved changes
+            </span>
+          ) : picks.length ? (
+            <span className="ml-2 text-xs text-moss">saved</span>
+          ) : null}
+          {save.isError ? (
+            <span role="alert" className="ml-2 text-brick">
+              {errorMessage(save.error)}
+            </span>
+          ) : null}
+        </p>
+        {rights.edit ? (
+          <div className="flex gap-2">
+            <Button
+              variant="quiet"
+              disabled={!dirty || save.isPending}
+              onClick={() => setDraft(null)}
+            >
+              Discard changes
+            </Button>
+            <Button disabled={!dirty || save.isPending} onClick={savePicks}>
+              {save.isPending ? "Saving…" : "Save picks"}
+            </Button>
+          </div>
+        ) : null}
+      </section>
+
+      <ErrorBoundary title="The comparison with the plan failed">
+        <Card>
+          <h2 className="mb-1 text-lg font-semibold text-ink-deep">Against the plan</h2>
+          {picks.length === 0 ? (
+            <EmptyState title="No picks yet">
+              Open a shot record and pick its first breaks, or upload picks as CSV.
+            </EmptyState>
+          ) : (
+            <div className="flex flex-col gap-5">
+              <p className="text-sm text-ink-soft">
+                Observed picks against the modelled first arrivals of every candidate ground model
+                for the same shots and geophones. The best fit has the lowest RMS residual among the
+                models that give a time for the most picks.
+              </p>
+              <FitTable
+                comparison={comparison}
+                candidates={candidates}
+                selected={shown}
+                onSelect={setSelected}
+              />
+              <TimeDistanceChart
+                picks={picks}
+                candidates={candidates}
+                selected={shown}
+                spreadExtent={spreadExtent}
+              />
+              {comparison.fits[shown] ? (
+                <div>
+                  <h3 className="mb-1 text-sm font-semibold text-ink">
+                    Residuals per geophone — {comparison.fits[shown].name}
+                  </h3>
+                  <ResidualChart fit={comparison.fits[shown]} pickError={doc.criteria.pickError} />
+                  <ResidualTable fit={comparison.fits[shown]} />
+                </div>
+              ) : null}
+              <div>
+                <h3 className="mb-2 text-sm font-semibold text-ink">Misfit patterns</h3>
+                <MisfitWarnings
+                  warnings={warnings}
+                  modelName={shownCandidate?.name ?? "the model"}
+                />
+              </div>
+            </div>
+          )}
+        </Card>
+      </ErrorBoundary>
+
+      {picks.length > 0 ? (
+        <ErrorBoundary title="The segment reading failed">
+          <Card>
+            <h2 className="mb-1 text-lg font-semibold text-ink-deep">
+              Segments and intercept times
+            </h2>
+            <p className="mb-3 text-sm text-ink-soft">
+              Choose the straight segments of one shot's picks: each gives an apparent velocity and
+              an intercept time, and together they give the layer depths under the shot by the
+              intercept-time method.
+            </p>
+            <SegmentsPanel picks={picks} candidate={shownCandidate} />
+          </Card>
+        </ErrorBoundary>
+      ) : null}
+    </div>
+  );
+}

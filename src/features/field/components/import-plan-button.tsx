@@ -1,0 +1,95 @@
+import { useId, useRef, useState } from "react";
+import type { PlanDetail } from "@/contracts/plans";
+import { ApiError, errorMessage } from "@/lib/api-client";
+import { useImportPlan } from "../api/import-plan";
+
+/** Largest plan file read in the browser, bytes (the API takes JSON bodies up to 1 MB). */
+const MAX_BYTES = 1024 * 1024;
+
+/** The problems of a refused import, one per field ("models.0.layers.1.velocity: …"). */
+export function importProblems(error: unknown): string[] {
+  if (error instanceof ApiError && error.fields) {
+    return Object.entries(error.fields).flatMap(([field, messages]) =>
+      messages.map((m) => (field === "root" ? m : `${field}: ${m}`)),
+    );
+  }
+  return [errorMessage(error)];
+}
+
+/**
+ * "Import plan (JSON)": reads a plan document (docs/plan-format.md) chosen by the user and
+ * creates a plan from it in the site (a trainee's lands in their sandbox). Every problem the
+ * server names is listed; nothing is created then.
+ */
+export function ImportPlanButton({
+  siteId,
+  onImported,
+  label = "Import plan (JSON)",
+}: {
+  siteId: string;
+  onImported?: (plan: PlanDetail) => void;
+  label?: string;
+}) {
+  const id = useId();
+  const input = useRef<HTMLInputElement | null>(null);
+  const importPlan = useImportPlan(siteId);
+  const [localError, setLocalError] = useState<string | null>(null);
+
+  const read = async (file: File) => {
+    setLocalError(null);
+    importPlan.reset();
+    if (file.size > MAX_BYTES) {
+      setLocalError(`${file.name} is larger than 1 MB; a plan document is much smaller.`);
+      return;
+    }
+    let document: unknown;
+    try {
+      document = JSON.parse(await file.text());
+    } catch (error) {
+      setLocalError(`${file.name} is not valid JSON: ${(error as Error).message}`);
+      return;
+    }
+    importPlan.mutate(document, { onSuccess: (plan) => onImported?.(plan) });
+  };
+
+  const problems = localError
+    ? [localError]
+    : importPlan.isError
+      ? importProblems(importPlan.error)
+      : [];
+  return (
+    <div className="inline-flex flex-col gap-2">
+      <label
+        htmlFor={id}
+        className="inline-flex cursor-pointer items-center justify-center gap-1.5 rounded-md border border-ink-soft bg-card px-3.5 py-1.5 text-sm font-medium text-ink hover:bg-paper-deep"
+      >
+        {importPlan.isPending ? "Importing…" : label}
+      </label>
+      <input
+        id={id}
+        ref={input}
+        type="file"
+        accept=".json,application/json"
+        className="sr-only"
+        onChange={(e) => {
+          const file = e.target.files?.[0];
+          if (file) void read(file);
+          e.target.value = "";
+        }}
+      />
+      {problems.length > 0 ? (
+        <div
+          role="alert"
+          className="rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick"
+        >
+          <p className="font-semibold">The plan was not imported</p>
+          <ul className="mt-1 list-disc pl-5 font-mono text-xs">
+            {problems.map((p) => (
+              <li key={p}>{p}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,234 @@
+import { useMemo, useState } from "react";
+import type { FirstBreakPick } from "@/contracts/field";
+import { Button } from "@/components/button";
+import type { SpreadSide } from "../../../../workers/field/index";
+import {
+  readSegments,
+  shotSides,
+  suggestSegments,
+  type Candidate,
+  type SegmentRange,
+} from "../lib/comparison";
+import { metres, ms, speed } from "../lib/format";
+
+const sideLabel = (side: SpreadSide) =>
+  side === "forward" ? "geophones beyond the shot" : "geophones before the shot";
+
+/**
+ * User-chosen segments of one shot and side: a straight-line fit per offset range (apparent
+ * velocity and intercept time) and, from two segments on, the intercept-time interpretation
+ * as flat layers (Telford, Geldart & Sheriff 1990 §4.3).
+ */
+export function SegmentsPanel({
+  picks,
+  candidate,
+}: {
+  picks: readonly FirstBreakPick[];
+  candidate: Candidate | undefined;
+}) {
+  const sides = useMemo(() => shotSides(picks).filter((s) => s.count >= 2), [picks]);
+  const [choice, setChoice] = useState(0);
+  const [ranges, setRanges] = useState<SegmentRange[]>([]);
+  const current = sides[Math.min(choice, sides.length - 1)];
+  const reading = useMemo(
+    () => (current ? readSegments(picks, current.sourcePosition, current.side, ranges) : null),
+    [picks, current, ranges],
+  );
+  if (!current) {
+    return (
+      <p className="text-sm text-ink-soft">
+        Segments need at least two picks of one shot on one side.
+      </p>
+    );
+  }
+  const setRange = (i: number, k: 0 | 1, value: number) =>
+    setRanges((rs) =>
+      rs.map((r, j) => (j === i ? ((k === 0 ? [value, r[1]] : [r[0], value]) as SegmentRange) : r)),
+    );
+
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="flex flex-wrap items-end gap-3">
+        <label className="flex flex-col gap-1 text-sm">
+          <span className="font-medium text-ink">Shot and side</span>
+          <select
+            className="field-input"
+            value={Math.min(choice, sides.length - 1)}
+            onChange={(e) => {
+              setChoice(Number(e.target.value));
+              setRanges([]);
+            }}
+          >
+            {sides.map((s, i) => (
+              <option key={`${s.sourcePosition}-${s.side}`} value={i}>
+                shot at {metres(s.sourcePosition)}, {sideLabel(s.side)} ({s.count} picks)
+              </option>
+            ))}
+          </select>
+        </label>
+        <Button
+          variant="secondary"
+          onClick={() =>
+            setRanges((rs) => {
+              const last = rs[rs.length - 1];
+              const start = last ? last[1] : 0;
+              return [...rs, [start, start + 10]];
+            })
+          }
+        >
+          Add segment
+        </Button>
+        {candidate ? (
+          <Button
+            variant="quiet"
+            onClick={() =>
+              setRanges(
+                suggestSegments(picks, current.sourcePosition, current.side, candidate.model),
+              )
+            }
+          >
+            Suggest from {candidate.name}
+          </Button>
+        ) : null}
+      </div>
+      {ranges.length === 0 ? (
+        <p className="text-sm text-ink-soft">
+          Add one offset range per straight segment of the picks, nearest the shot first (the direct
+          wave), then one per refractor.
+        </p>
+      ) : (
+        <table className="w-full text-left text-sm">
+          <caption className="sr-only">Segments and their line fits</caption>
+          <thead className="border-b border-rule text-xs tracking-wide text-ink-soft uppercase">
+            <tr>
+              <th className="py-1.5 pr-2 font-medium">Segment</th>
+              <th className="py-1.5 pr-2 font-medium">Offsets from–to (m)</th>
+              <th className="py-1.5 pr-2 text-right font-medium">Picks</th>
+              <th className="py-1.5 pr-2 text-right font-medium">Apparent velocity</th>
+              <th className="py-1.5 pr-2 text-right font-medium">Intercept time</th>
+              <th className="py-1.5 text-right font-medium">
+                <span className="sr-only">Remove</span>
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {ranges.map((r, i) => {
+              const fit = reading?.fits[i];
+              return (
+                <tr key={i} className="border-b border-rule/60 align-top">
+                  <td className="py-1.5 pr-2">
+                    {i === 0 ? "1 (direct wave)" : `${i + 1} (refractor)`}
+                  </td>
+                  <td className="py-1.5 pr-2">
+                    <div className="flex items-center gap-1">
+                      <input
+                        type="number"
+                        step="any"
+                        aria-label={`Segment ${i + 1} from offset (m)`}
+                        className="field-input w-20 py-0.5"
+                        value={r[0]}
+                        onChange={(e) => setRange(i, 0, Number(e.target.value))}
+                      />
+                      –
+                      <input
+                        type="number"
+                        step="any"
+                        aria-label={`Segment ${i + 1} to offset (m)`}
+                        className="field-input w-20 py-0.5"
+                        value={r[1]}
+                        onChange={(e) => setRange(i, 1, Number(e.target.value))}
+                      />
+                    </div>
+                  </td>
+                  {fit && fit.ok ? (
+                    <>
+                      <td className="py-1.5 pr-2 text-right font-mono">{fit.count}</td>
+                      <td className="py-1.5 pr-2 text-right font-mono">
+                        {speed(fit.velocity)}
+                        {fit.velocityError !== null ? ` ± ${Math.round(fit.velocityError)}` : ""}
+                      </td>
+                      <td className="py-1.5 pr-2 text-right font-mono">
+                        {ms(fit.intercept, 2)}
+                        {fit.interceptError !== null
+                          ? ` ± ${(fit.interceptError * 1000).toFixed(2)}`
+                          : ""}
+                      </td>
+                    </>
+                  ) : (
+                    <td colSpan={3} className="py-1.5 pr-2 text-right text-ochre">
+                      {fit && !fit.ok
+                        ? fit.reason
+                        : "the range must run from the smaller offset to the larger"}
+                    </td>
+                  )}
+                  <td className="py-1.5 text-right">
+                    <button
+                      type="button"
+                      className="text-xs text-brick underline"
+                      onClick={() => setRanges((rs) => rs.filter((_, j) => j !== i))}
+                      aria-label={`Remove segment ${i + 1}`}
+                    >
+                      Remove
+                    </button>
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      )}
+      {reading?.interpretation ? (
+        reading.interpretation.ok ? (
+          <div>
+            <h4 className="text-sm font-semibold text-ink">
+              Intercept-time interpretation (flat layers)
+            </h4>
+            <table className="mt-1 w-full text-left text-sm">
+              <caption className="sr-only">Layers from the intercept-time method</caption>
+              <thead className="border-b border-rule text-xs tracking-wide text-ink-soft uppercase">
+                <tr>
+                  <th className="py-1 pr-2 font-medium">Layer</th>
+                  <th className="py-1 pr-2 text-right font-medium">Velocity</th>
+                  <th className="py-1 pr-2 text-right font-medium">Depth to top</th>
+                  <th className="py-1 text-right font-medium">Thickness</th>
+                </tr>
+              </thead>
+              <tbody>
+                {reading.interpretation.layers.map((l, i) => (
+                  <tr key={i} className="border-b border-rule/60">
+                    <td className="py-1 pr-2">{i + 1}</td>
+                    <td className="py-1 pr-2 text-right font-mono">{speed(l.velocity)}</td>
+                    <td className="py-1 pr-2 text-right font-mono">
+                      {metres(l.depth)}
+                      {l.depthError ? ` ± ${l.depthError.toFixed(2)}` : ""}
+                    </td>
+                    <td className="py-1 text-right font-mono">
+                      {l.thickness === null ? "half-space" : metres(l.thickness)}
+                      {l.thicknessError ? ` ± ${l.thicknessError.toFixed(2)}` : ""}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            {reading.interpretation.notes.map((n) => (
+              <p key={n} className="mt-1 text-xs text-ochre">
+                {n}
+              </p>
+            ))}
+            <p className="mt-1 text-xs text-ink-soft">
+              Depths under this shot, assuming flat layers whose velocities increase with depth. A
+              blind layer or a velocity inversion stays invisible to this method.
+            </p>
+          </div>
+        ) : (
+          <p
+            role="status"
+            className="rounded-md border border-ochre/50 bg-ochre-soft px-4 py-2 text-sm"
+          >
+            No interpretation: {reading.interpretation.reason}.
+          </p>
+        )
+      ) : null}
+    </div>
+  );
+}
