@@ -1,9 +1,11 @@
 /** Every entity class, for the DataSource. Later features append theirs here. */
+import { Attachment } from "./attachment";
 import { AuditEvent } from "./audit-event";
 import { Invitation } from "./invitation";
 import { MailMessage } from "./mail-message";
 import { Membership } from "./membership";
 import { PasswordReset } from "./password-reset";
+import { PickSet } from "./pick-set";
 import { Session } from "./session";
 import { Site } from "./site";
 import { Team } from "./team";
@@ -11,6 +13,8 @@ import { User } from "./user";
 import { UserPreference } from "./user-preference";
 
 export {
+  Attachment,
+  PickSet,
   AuditEvent,
   Invitation,
   MailMessage,
@@ -34,4 +38,6 @@ export const entities = [
   PasswordReset,
   MailMessage,
   UserPreference,
+  Attachment,
+  PickSet,
 ];

@@ -3,7 +3,9 @@
  * A later feature adds its file beside these and appends its class here.
  */
 import { Foundation1733097600000 } from "./1733097600000-foundation";
+import { Field1733270400000 } from "./1733270400000-field";
 
 export const migrations = [
   Foundation1733097600000,
+  Field1733270400000,
 ];
