@@ -4,8 +4,13 @@ import { AuditEvent } from "./audit-event";
 import { Invitation } from "./invitation";
 import { MailMessage } from "./mail-message";
 import { Membership } from "./membership";
+import { PlanComment } from "./comment";
+import { PlanNotification } from "./notification";
+import { NotificationSetting } from "./notification-setting";
 import { PasswordReset } from "./password-reset";
 import { PickSet } from "./pick-set";
+import { Plan } from "./plan";
+import { PlanRevision } from "./plan-revision";
 import { Session } from "./session";
 import { Site } from "./site";
 import { Team } from "./team";
@@ -25,6 +30,11 @@ export {
   Team,
   User,
   UserPreference,
+  Plan,
+  PlanRevision,
+  PlanComment,
+  PlanNotification,
+  NotificationSetting,
 };
 
 export const entities = [
@@ -38,6 +48,11 @@ export const entities = [
   PasswordReset,
   MailMessage,
   UserPreference,
+  Plan,
+  PlanRevision,
+  PlanComment,
+  PlanNotification,
+  NotificationSetting,
   Attachment,
   PickSet,
 ];

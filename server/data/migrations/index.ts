@@ -3,9 +3,11 @@
  * A later feature adds its file beside these and appends its class here.
  */
 import { Foundation1733097600000 } from "./1733097600000-foundation";
+import { PlansReview1733184000000 } from "./1733184000000-plans-review";
 import { Field1733270400000 } from "./1733270400000-field";
 
 export const migrations = [
   Foundation1733097600000,
+  PlansReview1733184000000,
   Field1733270400000,
 ];
