@@ -4,6 +4,7 @@
  * applies the recommendation and sees it resolved; a trainee compares two scenarios.
  * Screenshots of every designer screen go to tests/e2e/screenshots/.
  */
+import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import {
@@ -45,6 +46,16 @@ async function openSite(page: Page) {
 async function verdictOf(page: Page, layer: number): Promise<string> {
   const row = page.locator(`tr[data-layer="${layer}"]`);
   return (await row.locator("td").first().innerText()).trim();
+}
+
+/** Click an export button and return the downloaded file's name and bytes. */
+async function exported(page: Page, button: string) {
+  const [download] = await Promise.all([
+    page.waitForEvent("download"),
+    page.getByRole("button", { name: button }).first().click(),
+  ]);
+  const file = await download.path();
+  return { name: download.suggestedFilename(), bytes: readFileSync(file) };
 }
 
 async function setField(page: Page, label: string, value: string) {
@@ -116,6 +127,14 @@ describe("plan designer in the browser", () => {
     await page.getByRole("tab", { name: "Arrivals" }).click();
     await page.getByRole("img", { name: /Arrivals,/ }).waitFor();
     await screenshot(page, "designer-arrivals");
+    const svg = await exported(page, "Export SVG");
+    expect(svg.name).toMatch(/^arrivals-.*\.svg$/);
+    expect(svg.bytes.toString("utf8")).toContain("<svg");
+    expect(svg.bytes.toString("utf8")).not.toContain("NaN");
+    const png = await exported(page, "Export PNG");
+    expect(png.name).toMatch(/\.png$/);
+    expect(png.bytes.subarray(0, 8).toString("hex")).toBe("89504e470d0a1a0a"); // PNG signature
+    expect(png.bytes.length).toBeGreaterThan(5000);
     await page.getByRole("button", { name: "Near offsets" }).click();
     await page.waitForTimeout(300);
     await screenshot(page, "designer-arrivals-near");
@@ -123,6 +142,9 @@ describe("plan designer in the browser", () => {
     await page.getByRole("tab", { name: "Section" }).click();
     await page.getByRole("img", { name: /Section,/ }).waitFor();
     await screenshot(page, "designer-section");
+    const sectionPng = await exported(page, "Export PNG");
+    expect(sectionPng.name).toMatch(/^section-.*\.png$/);
+    expect(sectionPng.bytes.subarray(0, 4).toString("hex")).toBe("89504e47");
 
     await page.getByRole("tab", { name: "Spread" }).click();
     await page.getByText(/Spread length/).waitFor();

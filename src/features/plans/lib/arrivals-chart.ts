@@ -280,7 +280,7 @@ export function buildArrivalsChart(input: ArrivalsChartInput): ArrivalsChartMode
             status: b.status,
             // The label ends just left of the curve (which rises to the right, so the text
             // stays above it) and never leaves the plot (labels are about 120 px wide).
-            x: Math.min(Math.max(x(signed) - 8, margin.left + 124), width - margin.right),
+            x: Math.min(Math.max(x(signed) - 8, margin.left + 140), width - margin.right),
             y: y(t),
             text: `${name}: ${b.geophones} geophone${b.geophones === 1 ? "" : "s"}`,
           });

@@ -27,10 +27,25 @@ export function wholeDomain(plan: Plan, shotIndex: number): [number, number] {
   return lo === hi ? [lo - spread.spacing, hi + spread.spacing] : [lo, hi];
 }
 
-/** The near offsets: a quarter of the whole range on each side of the shot, at least three spacings. */
-export function nearDomain(plan: Plan, shotIndex: number): [number, number] {
+/**
+ * The near offsets: out to 1.4 × the farthest crossover distance of this shot's branches (the
+ * start of the last segment, from the engine's analysis), at least three spacings; a quarter of
+ * the whole range when no arrival takes over from another.
+ */
+export function nearDomain(
+  plan: Plan,
+  shotIndex: number,
+  model?: PlanAnalysis["models"][number],
+): [number, number] {
   const [lo, hi] = wholeDomain(plan, shotIndex);
-  const reach = Math.max((hi - lo) / 4, 3 * plan.spread.spacing);
+  let crossover = 0;
+  for (const arrival of model ? [model.direct, ...model.refractors] : []) {
+    for (const b of arrival.branches) {
+      if (b.shot === shotIndex && b.segment && b.segment.from > 0)
+        crossover = Math.max(crossover, b.segment.from);
+    }
+  }
+  const reach = Math.max(crossover > 0 ? crossover * 1.4 : (hi - lo) / 4, 3 * plan.spread.spacing);
   return [Math.max(lo, -reach), Math.min(hi, reach)];
 }
 
@@ -62,8 +77,11 @@ export function ArrivalsPanel({
   const [reflections, setReflections] = useState(false);
   const { ref, width } = useElementWidth<HTMLDivElement>(720);
   const domain = useMemo(
-    () => (near ? nearDomain(plan, shotIndex) : wholeDomain(plan, shotIndex)),
-    [near, plan, shotIndex],
+    () =>
+      near
+        ? nearDomain(plan, shotIndex, analysis.models[modelIndex])
+        : wholeDomain(plan, shotIndex),
+    [near, plan, shotIndex, analysis, modelIndex],
   );
   const request: ChartRequest = { plan, analysis, modelIndex, shotIndex, domain, reflections };
   const key = `${objectId(analysis)}:${modelIndex}:${shotIndex}:${domain.join(",")}:${reflections}`;

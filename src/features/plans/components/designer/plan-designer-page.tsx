@@ -13,6 +13,7 @@ import { formatInput, type UnitSystem } from "@/lib/units";
 import { planQueryOptions, usePlan } from "../../api/get-plan";
 import { isRevisionConflict, useSavePlan } from "../../api/save-plan";
 import { useCreatePlan } from "../../api/create-plan";
+import { useDuplicatePlan } from "../../api/duplicate-plan";
 import {
   exactValues,
   parsePlanForm,
@@ -106,6 +107,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
   // Saving.
   const savePlan = useSavePlan(baseline.id);
   const createPlan = useCreatePlan(baseline.siteId);
+  const duplicatePlan = useDuplicatePlan();
   const navigate = useNavigate();
   const [conflict, setConflict] = useState<Plan | null>(null);
   const [reloadError, setReloadError] = useState<unknown>(null);
@@ -186,6 +188,25 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
               error={analysis.error}
               errorCount={errorCount}
             />
+            {baseline.permissions.duplicate ? (
+              <Button
+                variant="secondary"
+                disabled={duplicatePlan.isPending}
+                title={
+                  readOnly
+                    ? "Make your own copy of the saved plan to edit"
+                    : "Copy the saved plan (unsaved edits stay here)"
+                }
+                onClick={() =>
+                  duplicatePlan.mutate(
+                    { id: baseline.id, name: `${baseline.name} (copy)`.slice(0, 120) },
+                    { onSuccess: (copy) => navigate(paths.plan(copy.id)) },
+                  )
+                }
+              >
+                Duplicate
+              </Button>
+            ) : null}
             {!readOnly ? (
               <>
                 <span
@@ -206,6 +227,11 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
           </div>
         </header>
 
+        {duplicatePlan.isError ? (
+          <div className="mb-4">
+            <ErrorNotice error={duplicatePlan.error} title="Could not duplicate the plan" />
+          </div>
+        ) : null}
         {savePlan.isError && !isRevisionConflict(savePlan.error) ? (
           <div className="mb-4">
             <ErrorNotice error={savePlan.error} title="Could not save the plan" />
