@@ -23,7 +23,7 @@ export function PlanStatusBadge({ status }: { status: PlanStatus }) {
       className={`inline-flex items-center gap-1 rounded-full border px-2.5 py-0.5 text-xs font-semibold whitespace-nowrap ${STATUS_TONE[status]}`}
     >
       <span aria-hidden>{STATUS_MARK[status]}</span>
-      {PLAN_STATUS_LABELS[status]}
+      <span>{PLAN_STATUS_LABELS[status]}</span>
     </span>
   );
 }
@@ -54,7 +54,7 @@ export function VerdictTag({ verdict }: { verdict: Verdict | null | undefined })
   if (!verdict) return <span className="text-xs text-ink-faint">not analysed</span>;
   return (
     <span
-      className={`inline-flex items-center gap-1 rounded-full border px-2 py-0.5 text-xs font-medium whitespace-nowrap ${VERDICT_TONE[verdict]}`}
+      className={`inline-flex items-center gap-1 rounded-full border px-2 py-0.5 font-sans text-xs font-medium whitespace-nowrap ${VERDICT_TONE[verdict]}`}
     >
       <span aria-hidden>{VERDICT_MARK[verdict]}</span>
       {VERDICT_WORDS[verdict]}

@@ -61,7 +61,8 @@ export function CommentForm({
     const anchor = fixedAnchor ?? parseAnchorKey(values.anchor);
     try {
       await onSubmit({ body: values.body, ...(anchor ? { anchor } : {}) });
-      form.reset({ body: "", anchor: values.anchor });
+      // A fixed anchor stays; a chosen one goes back to "the whole plan" for the next comment.
+      form.reset();
     } catch {
       // The mutation's error is shown below; keep what was typed.
     }

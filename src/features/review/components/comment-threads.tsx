@@ -124,6 +124,14 @@ export function CommentThreads({ planId, anchorFilter, compact = false }: Commen
                 document={document}
                 latestRevision={plan.data.revision}
                 canComment={canComment}
+                canResolve={
+                  canComment &&
+                  !!me &&
+                  (me.role === "admin" ||
+                    me.role === "reviewer" ||
+                    me.user.id === plan.data.author.id ||
+                    me.user.id === thread.root.author.id)
+                }
                 candidates={candidates}
                 names={names}
                 units={units}
@@ -172,6 +180,7 @@ function ThreadCard({
   document,
   latestRevision,
   canComment,
+  canResolve,
   candidates,
   names,
   units,
@@ -183,6 +192,8 @@ function ThreadCard({
   document: Plan | null;
   latestRevision: number;
   canComment: boolean;
+  /** The server lets the thread's author, the plan's author, reviewers and admins resolve. */
+  canResolve: boolean;
   candidates: MentionCandidate[];
   names: string[];
   units: UnitSystem;
@@ -260,14 +271,16 @@ function ThreadCard({
             <Button variant="quiet" className="px-2 py-1 text-xs" onClick={() => setReplying(true)}>
               Reply
             </Button>
-            <Button
-              variant="quiet"
-              className="px-2 py-1 text-xs"
-              disabled={update.isPending}
-              onClick={() => update.mutate({ commentId: root.id, resolved: !thread.resolved })}
-            >
-              {thread.resolved ? "Reopen thread" : "Resolve thread"}
-            </Button>
+            {canResolve ? (
+              <Button
+                variant="quiet"
+                className="px-2 py-1 text-xs"
+                disabled={update.isPending}
+                onClick={() => update.mutate({ commentId: root.id, resolved: !thread.resolved })}
+              >
+                {thread.resolved ? "Reopen thread" : "Resolve thread"}
+              </Button>
+            ) : null}
           </div>
         )
       ) : null}

@@ -31,7 +31,11 @@ export function DiffView({ diff, units }: { diff: PlanDiff; units: UnitSystem })
         </Section>
       ) : null}
 
-      {worst || verdicts.length > 0 ? (
+      {!worst && verdicts.length === 0 ? (
+        <Section title="Verdicts">
+          <p className="text-sm text-ink-soft">No verdict changed between these revisions.</p>
+        </Section>
+      ) : (
         <Section title="Verdicts that changed">
           {worst ? (
             <p className="mb-2 flex flex-wrap items-center gap-2 text-sm">
@@ -45,7 +49,7 @@ export function DiffView({ diff, units }: { diff: PlanDiff; units: UnitSystem })
           ) : null}
           {verdicts.length > 0 ? <VerdictTable changes={verdicts} units={units} /> : null}
         </Section>
-      ) : null}
+      )}
 
       {diff.models.length > 0 ? (
         <Section title="Ground models">

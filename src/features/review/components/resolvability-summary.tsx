@@ -117,7 +117,7 @@ export function ResolvabilitySummaryView({
               </table>
             </div>
           )}
-          {model.recommendation ? (
+          {model.recommendation && summary.models.length > 1 ? (
             <p className="mt-1.5 text-xs text-ink-soft">{model.recommendation}</p>
           ) : null}
         </div>

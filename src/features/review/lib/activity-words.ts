@@ -1,4 +1,5 @@
 /** Audit actions in plain words for the activity lists ("plan.request_changes" → "asked for changes"). */
+import { PLAN_STATUS_LABELS, PLAN_STATUSES, type PlanStatus } from "@/contracts/plans";
 
 const ACTIONS: Record<string, string> = {
   "plan.create": "created the plan",
@@ -40,12 +41,27 @@ export function describeAction(action: string): string {
   return target ? `${target}: ${words}` : words;
 }
 
-const SHOWN = ["name", "revision", "from", "to", "note", "email", "role", "status"];
+const SHOWN = ["name", "revision", "note", "email", "role"];
 
-/** The useful parts of an event's detail, e.g. "revision 3 · note: tighten the spacing". */
+const isStatus = (value: unknown): value is PlanStatus =>
+  typeof value === "string" && (PLAN_STATUSES as readonly string[]).includes(value);
+
+/**
+ * The useful parts of an event's detail, e.g. "In review → Changes requested · revision: 3 ·
+ * note: tighten the spacing". Workflow statuses read in our own words.
+ */
 export function describeDetail(detail: Record<string, unknown> | null): string {
   if (!detail) return "";
   const parts: string[] = [];
+  const { from, to } = detail;
+  if (isStatus(from) && isStatus(to)) {
+    parts.push(`${PLAN_STATUS_LABELS[from]} → ${PLAN_STATUS_LABELS[to]}`);
+  } else if (
+    (typeof from === "string" || typeof from === "number") &&
+    (typeof to === "string" || typeof to === "number")
+  ) {
+    parts.push(`${from} → ${to}`);
+  }
   for (const key of SHOWN) {
     const value = detail[key];
     if (value === undefined || value === null || value === "") continue;

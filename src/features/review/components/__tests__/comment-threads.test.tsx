@@ -143,6 +143,22 @@ describe("CommentThreads", () => {
     expect(await screen.findByText("No resolved threads")).toBeInTheDocument();
   });
 
+  it("offers resolving only to those the server allows: not another lead's thread on someone else's plan", async () => {
+    serve([comment({ body: "Reviewer's point." })]);
+    const otherLead = testMe({
+      role: "lead",
+      user: {
+        id: "00000000-0000-4000-8000-000000000077",
+        email: "x@example.test",
+        name: "Other Lead",
+      },
+    });
+    renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: otherLead });
+    const thread = await screen.findByRole("article");
+    expect(within(thread).getByRole("button", { name: "Reply" })).toBeInTheDocument();
+    expect(within(thread).queryByRole("button", { name: "Resolve thread" })).toBeNull();
+  });
+
   it("lets a role without the comment permission read but not write", async () => {
     serve([comment({ body: "Looks good to me." })], false);
     renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: testMe({ role: "trainee" }) });

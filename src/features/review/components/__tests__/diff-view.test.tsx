@@ -41,6 +41,7 @@ describe("DiffView", () => {
     expect(screen.getByText("48").tagName).toBe("INS");
     expect(screen.getByText("0.50 ms").tagName).toBe("DEL");
     expect(screen.getByText("1.00 ms").tagName).toBe("INS");
+    expect(screen.getByText("No verdict changed between these revisions.")).toBeInTheDocument();
   });
 
   it("converts lengths to feet for an imperial user", () => {

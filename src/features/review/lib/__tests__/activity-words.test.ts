@@ -15,6 +15,18 @@ describe("activity words", () => {
     expect(describeDetail(null)).toBe("");
   });
 
+  it("reads workflow statuses in our own words", () => {
+    expect(
+      describeDetail({
+        from: "in-review",
+        to: "changes-requested",
+        revision: 2,
+        note: "more shots",
+      }),
+    ).toBe("In review → Changes requested · revision: 2 · note: more shots");
+    expect(describeDetail({ from: "Old name", to: "New name" })).toBe("Old name → New name");
+  });
+
   it("finds the newest workflow note whatever the order", () => {
     const note = latestDecisionNote([
       {
