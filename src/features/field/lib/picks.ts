@@ -62,7 +62,7 @@ export function countByOrigin(picks: readonly FirstBreakPick[]): Record<PickOrig
 }
 
 /** Distinct shot positions, ascending. */
-export function shotPositions(picks: readonly FirstBreakPick[]): number[] {
+export function shotPositions(picks: readonly { sourcePosition: number }[]): number[] {
   return [...new Set(picks.map((p) => p.sourcePosition))].sort((a, b) => a - b);
 }
 
