@@ -3,7 +3,9 @@ import { randomUUID } from "node:crypto";
 import type { DataSource, EntityManager } from "typeorm";
 import type { AuditEventSummary } from "@/contracts/audit";
 import { AuditEvent, type AuditDetail } from "../data/entities/audit-event";
+import { Plan } from "../data/entities/plan";
 import type { Actor } from "./actor";
+import { canSeePlan } from "./plans";
 
 export interface AuditEntry {
   teamId: string;
@@ -28,7 +30,10 @@ export async function recordAudit(manager: EntityManager, entry: AuditEntry): Pr
   });
 }
 
-/** The actor's team's events, newest first. */
+/**
+ * The actor's team's events, newest first. Events about plans the actor may not see (another
+ * trainee's sandbox) are left out, as in the CSV export.
+ */
 export async function listAudit(
   dataSource: DataSource,
   actor: Actor,
@@ -40,7 +45,14 @@ export async function listAudit(
     order: { createdAt: "DESC", id: "ASC" },
     take: limit,
   });
-  return rows.map((row) => ({
+  const plans = await dataSource.getRepository(Plan).find({ where: { teamId: actor.teamId } });
+  const byId = new Map(plans.map((plan) => [plan.id, plan]));
+  const visible = rows.filter((row) => {
+    if (row.targetType !== "plan" || !row.targetId) return true;
+    const plan = byId.get(row.targetId);
+    return !plan || canSeePlan(actor, plan);
+  });
+  return visible.map((row) => ({
     id: row.id,
     action: row.action,
     actor: row.actor ? { id: row.actor.id, name: row.actor.name } : null,

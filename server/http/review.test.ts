@@ -470,4 +470,14 @@ describe("activity and CSV", () => {
     expect(asAdmin.text).toContain(sandbox.id);
     expect((await api.trainee.get("/api/audit.csv")).status).toBe(403);
   });
+
+  it("the team trail as JSON leaves out the same sandbox plans", async () => {
+    const sandbox = await createPlan(api.trainee, team.sites.active, "Another private scenario");
+    const asLead = await api.lead.get("/api/audit?limit=500");
+    const asAdmin = await api.admin.get("/api/audit?limit=500");
+    expect(asLead.status).toBe(200);
+    const targets = (body: Array<{ targetId: string | null }>) => body.map((e) => e.targetId);
+    expect(targets(asLead.body)).not.toContain(sandbox.id);
+    expect(targets(asAdmin.body)).toContain(sandbox.id);
+  });
 });
