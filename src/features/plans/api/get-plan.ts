@@ -11,8 +11,10 @@ export const planQueryOptions = (planId: string) =>
   queryOptions({
     queryKey: plansKeys.one(planId),
     queryFn: () => fetchPlan(planId),
-    // The designer holds unsaved edits; never refetch underneath them.
+    // The designer holds unsaved edits: never refetch underneath them while it is open, but
+    // fetch afresh each time it opens (nothing kept once no one shows the plan).
     staleTime: Number.POSITIVE_INFINITY,
+    gcTime: 0,
   });
 
 export function usePlan(planId: string) {
