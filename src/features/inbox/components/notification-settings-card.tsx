@@ -6,7 +6,7 @@ const CHOICES: Array<{ kind: NotificationKind; label: string; detail: string }> 
   {
     kind: "submitted",
     label: "A plan is submitted for review",
-    detail: "sent to reviewers",
+    detail: "reviewers and admins get these",
   },
   {
     kind: "decision",
@@ -14,7 +14,11 @@ const CHOICES: Array<{ kind: NotificationKind; label: string; detail: string }> 
     detail: "approved, or changes requested",
   },
   { kind: "mention", label: "Someone mentions me", detail: "@your name in a comment" },
-  { kind: "reply", label: "Someone replies to my comment", detail: "in a thread you started" },
+  {
+    kind: "reply",
+    label: "Someone replies in a thread I took part in",
+    detail: "comment threads on plans",
+  },
 ];
 
 /** Which review events also arrive by e-mail (the inbox always shows them). */

@@ -132,8 +132,9 @@ export function ResolvabilitySummaryView({
         {summary.source === "stored"
           ? "From the analysis saved with this revision."
           : "Analysed in your browser from this revision's document."}{" "}
-        A design check is a model, not ground truth: boreholes and a qualified geophysicist’s review
-        decide.
+        Depth error is the interpreted minus the true depth under the first shot (negative:
+        interpreted too shallow; ⚠ beyond the plan's depth tolerance). A design check is a model,
+        not ground truth: boreholes and a qualified geophysicist’s review decide.
       </p>
     </div>
   );

@@ -63,7 +63,7 @@ export function TeamActivityPage() {
                         {timeFormat.format(new Date(event.createdAt))}
                       </time>
                     </td>
-                    <td className="py-2 pr-3 font-medium text-ink-deep">
+                    <td className="py-2 pr-3 font-medium whitespace-nowrap text-ink-deep">
                       {event.actor?.name ?? "—"}
                     </td>
                     <td className="py-2 pr-3">
