@@ -177,6 +177,10 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
               <Link to={paths.planReview(baseline.id)} className="text-ink underline">
                 Review
               </Link>
+              <span>·</span>
+              <Link to={paths.planField(baseline.id)} className="text-ink underline">
+                Field check
+              </Link>
             </p>
           </div>
           <div className="flex flex-wrap items-center gap-3">
