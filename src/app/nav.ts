@@ -18,6 +18,7 @@ const roles =
 /** The main navigation, in display order. Features add their entries here. */
 export const navItems: NavItem[] = [
   { to: paths.sites, label: "Sites", visible: anyRole },
+  { to: paths.activity, label: "Activity", visible: roles("admin", "lead", "reviewer") },
   { to: paths.team, label: "Team", visible: roles("admin") },
   {
     to: paths.mailbox,

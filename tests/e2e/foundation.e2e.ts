@@ -23,9 +23,9 @@ afterAll(async () => {
 });
 
 const navFor = {
-  admin: ["Sites", "Team", "Mailbox", "Settings"],
-  lead: ["Sites", "Settings"],
-  reviewer: ["Sites", "Settings"],
+  admin: ["Sites", "Activity", "Team", "Mailbox", "Settings"],
+  lead: ["Sites", "Activity", "Settings"],
+  reviewer: ["Sites", "Activity", "Settings"],
   trainee: ["Sites", "Settings"],
 } as const;
 
@@ -52,6 +52,9 @@ describe("foundation in the browser", () => {
       );
       if (role !== "admin") {
         expect(await nav.getByRole("link", { name: "Team" }).count()).toBe(0);
+      }
+      if (role === "trainee") {
+        expect(await nav.getByRole("link", { name: "Activity" }).count()).toBe(0);
       }
       await page.getByRole("heading", { name: "Sites" }).waitFor();
       await screenshot(page, `sites-${role}`);

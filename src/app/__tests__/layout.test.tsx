@@ -5,9 +5,9 @@ import type { Role } from "@/contracts/common";
 import { AppLayout } from "../layout";
 
 const expectedNav: Record<Role, string[]> = {
-  admin: ["Sites", "Team", "Mailbox", "Settings"],
-  lead: ["Sites", "Settings"],
-  reviewer: ["Sites", "Settings"],
+  admin: ["Sites", "Activity", "Team", "Mailbox", "Settings"],
+  lead: ["Sites", "Activity", "Settings"],
+  reviewer: ["Sites", "Activity", "Settings"],
   trainee: ["Sites", "Settings"],
 };
 
