@@ -302,12 +302,14 @@ function Legend({
         />
         first arrival
       </li>
-      {chart.curves.map((c) => (
-        <li key={c.key} className="flex items-center gap-1.5">
-          <span className="inline-block h-0.5 w-5" style={{ background: c.colour }} />
-          {c.label}
-        </li>
-      ))}
+      {chart.curves
+        .filter((c) => c.faintPath !== "")
+        .map((c) => (
+          <li key={c.key} className="flex items-center gap-1.5">
+            <span className="inline-block h-0.5 w-5" style={{ background: c.colour }} />
+            {c.label}
+          </li>
+        ))}
       <li className="flex items-center gap-1.5">
         <span className="inline-block h-0.5 w-5 opacity-30" style={{ background: palette.ink }} />
         faint: exists, not first
