@@ -22,6 +22,8 @@ export interface ShotRecordOptions {
   byteOrder?: "little" | "big";
   /** Wavelet frequency, Hz; default 60. */
   frequency?: number;
+  /** Time of the first sample, s (SEG-2 DELAY; negative = pre-trigger record); default 0. */
+  delay?: number;
 }
 
 export interface ShotRecord {
@@ -39,6 +41,7 @@ export function syntheticShotRecord(options: ShotRecordOptions): ShotRecord {
   const snr = options.snr ?? 20;
   const f = options.frequency ?? 60;
   const format = options.format ?? 4;
+  const delay = options.delay ?? 0;
   const noise = seededNormal(options.seed ?? 7);
   const arrivals = computeArrivals(options.model, options.spread, shotIndex);
   const source = arrivals.shotPosition;
@@ -54,7 +57,7 @@ export function syntheticShotRecord(options: ShotRecordOptions): ShotRecord {
     const gain = Math.max(0.2, 1 / (1 + g.offset / 20));
     const samples = new Array<number>(n);
     for (let i = 0; i < n; i++) {
-      const t = i * dt - onset;
+      const t = delay + i * dt - onset;
       const signal =
         t >= 0 ? gain * amplitude * Math.sin(2 * Math.PI * f * t) * Math.exp(-t * f * 0.8) : 0;
       const value = signal + sigma * noise();
@@ -66,7 +69,7 @@ export function syntheticShotRecord(options: ShotRecordOptions): ShotRecord {
       strings: [
         `CHANNEL_NUMBER ${k + 1}`,
         `SAMPLE_INTERVAL ${dt}`,
-        "DELAY 0",
+        `DELAY ${delay}`,
         `RECEIVER_LOCATION ${g.position}`,
         `SOURCE_LOCATION ${source}`,
       ],

@@ -61,10 +61,19 @@ export function fieldRights(plan: PlanDetail, me: MeResponse | null | undefined)
   return { edit, export: exporter };
 }
 
-const PICKERS: { value: PickerChoice["method"]; label: string }[] = [
-  { value: "sta-lta", label: "STA/LTA (Allen 1978)" },
-  { value: "aic", label: "AIC (Maeda 1985)" },
-  { value: "energy-ratio", label: "Modified energy ratio (Han et al. 2009)" },
+/** Pickers offered, by key (the key is saved with the picks). */
+export const PICKERS: { key: string; label: string; choice: PickerChoice }[] = [
+  {
+    key: "sta-lta+aic",
+    label: "STA/LTA refined by AIC (Allen 1978; Maeda 1985)",
+    choice: { method: "sta-lta", options: { refine: "aic" } },
+  },
+  { key: "sta-lta", label: "STA/LTA trigger (Allen 1978)", choice: { method: "sta-lta" } },
+  {
+    key: "energy-ratio",
+    label: "Modified energy ratio (Han, Wong & Bancroft 2009)",
+    choice: { method: "energy-ratio" },
+  },
 ];
 
 interface OpenRecord {
@@ -123,7 +132,7 @@ function FieldCheck({
     tone: "info" | "caution" | "success";
     text: string;
   } | null>(null);
-  const [picker, setPicker] = useState<PickerChoice["method"]>("sta-lta");
+  const [picker, setPicker] = useState(PICKERS[0].key);
   const [picking, setPicking] = useState(false);
   const [selected, setSelected] = useState<number | null>(null);
   const [view, setView] = useState<SectionView | null>(null);
@@ -254,7 +263,8 @@ function FieldCheck({
         receiverPosition: t.receiverPosition,
         sourcePosition: t.sourcePosition,
       }));
-      const result = await fieldWorker().pickRecord(traces, { method: picker });
+      const choice = (PICKERS.find((p) => p.key === picker) ?? PICKERS[0]).choice;
+      const result = await fieldWorker().pickRecord(traces, choice);
       const incoming: FirstBreakPick[] = [];
       const missed: string[] = [];
       result.forEach((r, i) => {
@@ -436,10 +446,10 @@ function FieldCheck({
                       <select
                         className="field-input py-1"
                         value={picker}
-                        onChange={(e) => setPicker(e.target.value as PickerChoice["method"])}
+                        onChange={(e) => setPicker(e.target.value)}
                       >
                         {PICKERS.map((p) => (
-                          <option key={p.value} value={p.value}>
+                          <option key={p.key} value={p.key}>
                             {p.label}
                           </option>
                         ))}
@@ -487,7 +497,7 @@ function FieldCheck({
 
       <section
         aria-label="Picks"
-        className="sticky bottom-0 z-10 flex flex-wrap items-center justify-between gap-3 rounded-lg border border-rule bg-card/95 px-5 py-3 shadow-[0_-2px_8px_rgba(18,72,74,0.08)]"
+        className="flex flex-wrap items-center justify-between gap-3 rounded-lg border border-rule bg-card px-5 py-3"
       >
         <p className="text-sm" aria-live="polite">
           <span className="font-semibold text-ink-deep">{picks.length} picks</span>{" "}

@@ -93,7 +93,7 @@ export function UploadPanel({
           </label>
         ) : null}
         <label className="flex flex-col gap-1 text-sm">
-          <span className="font-medium text-ink">File</span>
+          <span className="font-medium text-ink">File to upload</span>
           <input
             ref={input}
             type="file"

@@ -185,7 +185,7 @@ describe("UploadPanel", () => {
     renderWithApp(<UploadPanel planId={planId} onUploaded={onUploaded} />);
     await userEvent.selectOptions(screen.getByLabelText("Kind of file"), "picks");
     await userEvent.upload(
-      screen.getByLabelText("File"),
+      screen.getByLabelText("File to upload"),
       new File(["shot_m,geophone_m,time_ms\n"], "picks.csv", { type: "text/csv" }),
     );
     await userEvent.click(screen.getByRole("button", { name: "Upload" }));
