@@ -111,7 +111,10 @@ describe("Field check in the browser", () => {
     await page.getByRole("heading", { name: "Shot record" }).waitFor();
     const canvas = page.getByTestId("record-section");
     await canvas.waitFor();
-    await page.getByRole("cell", { name: /pilot-shot-A\.sg2/ }).first().waitFor();
+    await page
+      .getByRole("cell", { name: /pilot-shot-A\.sg2/ })
+      .first()
+      .waitFor();
 
     await page.getByRole("button", { name: "Pick first breaks" }).click();
     const summary = await page
