@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { compareModels, fitModel, residualsFor } from "./residuals";
 import { fitSegment } from "./segment-fit";
 import { interceptTimeDepths } from "./intercept-time";
-import { misfitWarnings, straightPieces } from "./misfit-pattern";
+import { localOutliers, misfitWarnings, straightPieces } from "./misfit-pattern";
 import { groupByShotSide, shotSidePoints, type ObservedPick } from "./field-picks";
 import { firstArrival, interceptTime, type TestLayer } from "./__fixtures__/flat-layers";
 import { seededNormal } from "./__fixtures__/random";
@@ -349,5 +349,32 @@ describe("misfitWarnings", () => {
     expect(x[pieces[0].last]).toBeLessThanOrEqual(12.5);
     expect(x[pieces[1].first]).toBeGreaterThanOrEqual(12.5);
     expect(1 / pieces[1].slope).toBeCloseTo(2500, 3);
+  });
+});
+
+describe("misfitWarnings with a single bad pick", () => {
+  const plan: TestLayer[] = [{ velocity: 500, thickness: 6 }, { velocity: 3000 }];
+
+  it("names one outlier and reads no layer into it", () => {
+    const picks = picksFrom(plan, { shots: [-1], noise: 0.0003, seed: 14 });
+    const k = 9;
+    const bad = picks.map((p, i) => (i === k ? { ...p, time: p.time + 0.008 } : p));
+    const warnings = misfitWarnings(bad, firstArrival(plan), { pickError: 0.0005 });
+    expect(warnings.map((w) => w.kind)).toEqual(["outlier"]);
+    expect(warnings[0].from).toBeCloseTo(
+      Math.abs(picks[k].receiverPosition - picks[k].sourcePosition),
+      9,
+    );
+    expect(warnings[0].message).toMatch(
+      /^The pick at geophone .* later than the trend of its neighbours/,
+    );
+  });
+
+  it("does not call a step between two straight pieces an outlier", () => {
+    const x = Array.from({ length: 12 }, (_, k) => 2 * k + 1);
+    const r = x.map((v) => (v < 12 ? 0 : 0.006));
+    expect(localOutliers(x, r, 0.0005)).toEqual([]);
+    const spike = r.map((v, i) => (i === 3 ? v + 0.006 : v));
+    expect(localOutliers(x, spike, 0.0005).map((o) => o.index)).toEqual([3]);
   });
 });

@@ -9,6 +9,11 @@
  *   per piece, pieces of at least `minPicks`); one counts when the slope changes by more than
  *   four standard errors and by more than 15 % of the local slowness. It is an extra break
  *   when the picks' slope changes more than the model's across it, else a missing one.
+ * - single picks far off the trend of their neighbours (outliers: a mis-pick or a noisy trace),
+ *   named on their own and left out of the two checks above, so one bad pick never reads as
+ *   a missed layer. A pick is an outlier when it lies more than 5σ (σ the larger of the pick
+ *   error and 1.4826·MAD of the neighbours about their own line) from the straight line
+ *   through up to two neighbours on each side (our choice; a robust local check).
  * The reading of the patterns is common practice for first-arrival checks (from memory): early
  * arrivals over a middle offset range point to a faster layer whose segment the model lacks,
  * or to thinner cover; late arrivals to slower or thicker cover or a deeper refractor.
@@ -23,7 +28,7 @@ import {
 
 /** One warning about a misfit pattern. */
 export interface MisfitWarning {
-  kind: "early" | "late" | "extra-break" | "missing-break";
+  kind: "early" | "late" | "extra-break" | "missing-break" | "outlier";
   sourcePosition: number;
   side: SpreadSide;
   /** Offset range concerned, m (a break: the interval between the picks it falls between). */
@@ -31,6 +36,50 @@ export interface MisfitWarning {
   to: number;
   /** Plain statement of the pattern and what it may mean. */
   message: string;
+}
+
+/** Neighbours on each side used by the outlier check. */
+const OUTLIER_NEIGHBOURS = 2;
+/** Distance from the neighbours' line, in robust standard deviations, that makes an outlier. */
+const OUTLIER_SIGMAS = 5;
+
+/**
+ * Indexes of the points that lie far off the straight line through their neighbours (up to
+ * OUTLIER_NEIGHBOURS each side, at least three in all), and each one's deviation from it.
+ */
+export function localOutliers(
+  x: readonly number[],
+  r: readonly number[],
+  sigma: number,
+): { index: number; deviation: number }[] {
+  const found: { index: number; deviation: number }[] = [];
+  for (let i = 0; i < x.length; i++) {
+    const idx: number[] = [];
+    for (let k = i - OUTLIER_NEIGHBOURS; k <= i + OUTLIER_NEIGHBOURS; k++) {
+      if (k !== i && k >= 0 && k < x.length) idx.push(k);
+    }
+    if (idx.length < 3) continue;
+    let mx = 0;
+    let mr = 0;
+    for (const k of idx) {
+      mx += x[k] / idx.length;
+      mr += r[k] / idx.length;
+    }
+    let sxx = 0;
+    let sxr = 0;
+    for (const k of idx) {
+      sxx += (x[k] - mx) ** 2;
+      sxr += (x[k] - mx) * (r[k] - mr);
+    }
+    const slope = sxx > 0 ? sxr / sxx : 0;
+    const line = (v: number) => mr + slope * (v - mx);
+    const spread = idx.map((k) => Math.abs(r[k] - line(x[k]))).sort((a, b) => a - b);
+    const mad = spread[Math.floor((spread.length - 1) / 2)];
+    const scale = Math.max(sigma, 1.4826 * mad);
+    const deviation = r[i] - line(x[i]);
+    if (Math.abs(deviation) > OUTLIER_SIGMAS * scale) found.push({ index: i, deviation });
+  }
+  return found;
 }
 
 /** Options of the misfit check. */
@@ -176,15 +225,33 @@ export function misfitWarnings(
   const warnings: MisfitWarning[] = [];
 
   for (const group of groupByShotSide(picks)) {
-    const rows = group.picks
+    const modelled = group.picks
       .map((p) => ({
         offset: p.offset,
+        receiverPosition: p.receiverPosition,
         time: p.time,
         model: firstArrival(p.sourcePosition, p.receiverPosition),
       }))
       .filter((r) => Number.isFinite(r.model));
-    if (rows.length < minPicks) continue;
     const base = { sourcePosition: group.sourcePosition, side: group.side };
+    const outliers = localOutliers(
+      modelled.map((r) => r.offset),
+      modelled.map((r) => r.time - r.model),
+      sigma,
+    );
+    for (const o of outliers) {
+      const r = modelled[o.index];
+      warnings.push({
+        ...base,
+        kind: "outlier",
+        from: r.offset,
+        to: r.offset,
+        message: `The pick at geophone ${m(r.receiverPosition)} (${m(r.offset)} offset) is ${ms(Math.abs(o.deviation))} ${o.deviation > 0 ? "later" : "earlier"} than the trend of its neighbours: check it for a mis-pick or a noisy trace. It is left out of the pattern checks.`,
+      });
+    }
+    const skip = new Set(outliers.map((o) => o.index));
+    const rows = modelled.filter((_, i) => !skip.has(i));
+    if (rows.length < minPicks) continue;
 
     // Runs of systematically early or late picks.
     for (const sign of [-1, 1]) {

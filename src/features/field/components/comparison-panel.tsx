@@ -441,6 +441,7 @@ const WARNING_TITLES: Record<MisfitWarning["kind"], string> = {
   late: "Picks systematically late",
   "extra-break": "A slope change the model lacks",
   "missing-break": "A modelled slope change the picks lack",
+  outlier: "A pick off its neighbours' trend",
 };
 
 /** Misfit patterns, stated plainly. A missed layer is brick red; other patterns ochre. */
@@ -475,7 +476,9 @@ export function MisfitWarnings({
             <p className="font-semibold">
               {WARNING_TITLES[w.kind]} — shot at {metres(w.sourcePosition)},{" "}
               {w.side === "forward" ? "geophones beyond the shot" : "geophones before the shot"},
-              offsets {metres(w.from, 1)}–{metres(w.to, 1)}
+              {w.from === w.to
+                ? `offset ${metres(w.from, 1)}`
+                : `offsets ${metres(w.from, 1)}–${metres(w.to, 1)}`}
             </p>
             <p>{w.message}</p>
           </li>
