@@ -166,6 +166,10 @@ describe("Field check in the browser", () => {
     const best = fits.getByRole("row").filter({ hasText: "best fit" });
     await expect(best.innerText()).resolves.toContain(document.models[0].name);
     await page.getByRole("img", { name: /Time–distance chart/ }).waitFor();
+    // The pick moved 8 ms off its neighbours is named as an outlier, and nothing else.
+    const warnings = page.getByRole("list", { name: "Misfit warnings" });
+    await warnings.getByText("A pick off its neighbours' trend", { exact: false }).waitFor();
+    expect(await warnings.getByRole("listitem").count()).toBe(1);
     await page.getByRole("heading", { name: "Misfit patterns" }).scrollIntoViewIfNeeded();
     await screenshot(page, "field-check");
 
