@@ -475,7 +475,7 @@ export function MisfitWarnings({
           >
             <p className="font-semibold">
               {WARNING_TITLES[w.kind]} — shot at {metres(w.sourcePosition)},{" "}
-              {w.side === "forward" ? "geophones beyond the shot" : "geophones before the shot"},
+              {w.side === "forward" ? "geophones beyond the shot" : "geophones before the shot"},{" "}
               {w.from === w.to
                 ? `offset ${metres(w.from, 1)}`
                 : `offsets ${metres(w.from, 1)}–${metres(w.to, 1)}`}
