@@ -106,7 +106,8 @@ export const pickSchema = z.strictObject({
 export type FirstBreakPick = z.infer<typeof pickSchema>;
 export type FirstBreakPickInput = z.input<typeof pickSchema>;
 
-export const MAX_PICKS = 20000;
+/** Most picks in one save (25 shots × about 200 geophones; keeps the body under the 1 MB JSON limit). */
+export const MAX_PICKS = 5000;
 
 /** PUT /api/plans/:id/picks — replaces the plan's saved picks. */
 export const picksSaveSchema = z
