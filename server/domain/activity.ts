@@ -5,9 +5,9 @@
 import type { DataSource } from "typeorm";
 import type { ActivityView } from "@/contracts/plans";
 import { AuditEvent } from "../data/entities/audit-event";
-import { Plan } from "../data/entities/plan";
 import { requireRole, type Actor } from "./actor";
-import { canSeePlan, findVisiblePlan } from "./plans";
+import { withoutHiddenPlans } from "./audit";
+import { findVisiblePlan } from "./plans";
 
 function toView(row: AuditEvent): ActivityView {
   return {
@@ -107,13 +107,8 @@ export async function teamAuditCsv(
     order: { createdAt: "DESC", id: "ASC" },
     take: limit,
   });
-  const plans = await dataSource.getRepository(Plan).find({ where: { teamId: actor.teamId } });
-  const byId = new Map(plans.map((p) => [p.id, p]));
-  const visible = rows.filter((row) => {
-    if (row.targetType !== "plan" || !row.targetId) return true;
-    const plan = byId.get(row.targetId);
-    return !plan || canSeePlan(actor, plan);
-  });
+  const { visible, plans } = await withoutHiddenPlans(dataSource, actor, rows);
   visible.reverse();
-  return toCsv(HEADER, csvRows(visible, new Map(plans.map((p) => [p.id, p.name]))));
+  const names = new Map([...plans.values()].map((p) => [p.id, p.name]));
+  return toCsv(HEADER, csvRows(visible, names));
 }

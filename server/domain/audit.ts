@@ -45,13 +45,7 @@ export async function listAudit(
     order: { createdAt: "DESC", id: "ASC" },
     take: limit,
   });
-  const plans = await dataSource.getRepository(Plan).find({ where: { teamId: actor.teamId } });
-  const byId = new Map(plans.map((plan) => [plan.id, plan]));
-  const visible = rows.filter((row) => {
-    if (row.targetType !== "plan" || !row.targetId) return true;
-    const plan = byId.get(row.targetId);
-    return !plan || canSeePlan(actor, plan);
-  });
+  const { visible } = await withoutHiddenPlans(dataSource, actor, rows);
   return visible.map((row) => ({
     id: row.id,
     action: row.action,
@@ -61,4 +55,23 @@ export async function listAudit(
     detail: row.detail,
     createdAt: row.createdAt.toISOString(),
   }));
+}
+
+/**
+ * Drops events about plans the actor may not see (another trainee's sandbox). Also returns the
+ * team's plans by id, for naming the rest.
+ */
+export async function withoutHiddenPlans(
+  dataSource: DataSource,
+  actor: Actor,
+  rows: AuditEvent[],
+): Promise<{ visible: AuditEvent[]; plans: Map<string, Plan> }> {
+  const all = await dataSource.getRepository(Plan).find({ where: { teamId: actor.teamId } });
+  const plans = new Map(all.map((plan) => [plan.id, plan]));
+  const visible = rows.filter((row) => {
+    if (row.targetType !== "plan" || !row.targetId) return true;
+    const plan = plans.get(row.targetId);
+    return !plan || canSeePlan(actor, plan);
+  });
+  return { visible, plans };
 }
