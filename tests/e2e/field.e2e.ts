@@ -173,6 +173,19 @@ describe("Field check in the browser", () => {
     await page.getByRole("heading", { name: "Misfit patterns" }).scrollIntoViewIfNeeded();
     await screenshot(page, "field-check");
 
+    // Segments suggested from the plan's model, read by the intercept-time method.
+    await page.getByRole("button", { name: /^Suggest from/ }).click();
+    const layers = page.getByRole("table", { name: "Layers from the intercept-time method" });
+    await layers.waitFor();
+    await page.getByText(/Left out of the line fits/).waitFor();
+    // Depth of the 2800 m/s refractor under the shot: the plan's 6 m within 10 % (our tolerance
+    // for automatic picks on synthetic data; intercept-time method, Telford et al. 1990 §4.3).
+    const depthCell = await layers.getByRole("row").nth(2).getByRole("cell").nth(2).innerText();
+    const depth = Number(/([\d.]+) m/.exec(depthCell)?.[1]);
+    expect(Math.abs(depth - 6)).toBeLessThan(0.6);
+    await layers.scrollIntoViewIfNeeded();
+    await screenshot(page, "field-segments");
+
     // Export the report.
     const [download] = await Promise.all([
       page.waitForEvent("download"),

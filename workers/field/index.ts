@@ -58,7 +58,12 @@ export {
   type InterpretedLayer,
   type InterceptTimeResult,
 } from "./intercept-time";
-export { misfitWarnings, type MisfitWarning, type MisfitOptions } from "./misfit-pattern";
+export {
+  misfitWarnings,
+  localOutliers,
+  type MisfitWarning,
+  type MisfitOptions,
+} from "./misfit-pattern";
 export { modelFirstArrival } from "./modelled-arrivals";
 
 export { fieldApi, type FieldApi } from "./worker-api";

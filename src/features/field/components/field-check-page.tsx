@@ -591,7 +591,11 @@ function FieldCheck({
               an intercept time, and together they give the layer depths under the shot by the
               intercept-time method.
             </p>
-            <SegmentsPanel picks={picks} candidate={shownCandidate} />
+            <SegmentsPanel
+              picks={picks}
+              candidate={shownCandidate}
+              pickError={doc.criteria.pickError}
+            />
           </Card>
         </ErrorBoundary>
       ) : null}

@@ -22,17 +22,21 @@ const sideLabel = (side: SpreadSide) =>
 export function SegmentsPanel({
   picks,
   candidate,
+  pickError,
 }: {
   picks: readonly FirstBreakPick[];
   candidate: Candidate | undefined;
+  /** The plan's pick error, s (scales the outlier check). */
+  pickError: number;
 }) {
   const sides = useMemo(() => shotSides(picks).filter((s) => s.count >= 2), [picks]);
   const [choice, setChoice] = useState(0);
   const [ranges, setRanges] = useState<SegmentRange[]>([]);
   const current = sides[Math.min(choice, sides.length - 1)];
   const reading = useMemo(
-    () => (current ? readSegments(picks, current.sourcePosition, current.side, ranges) : null),
-    [picks, current, ranges],
+    () =>
+      current ? readSegments(picks, current.sourcePosition, current.side, ranges, pickError) : null,
+    [picks, current, ranges, pickError],
   );
   if (!current) {
     return (
@@ -125,7 +129,8 @@ export function SegmentsPanel({
                         type="number"
                         step="any"
                         aria-label={`Segment ${i + 1} from offset (m)`}
-                        className="field-input w-20 py-0.5"
+                        className="field-input py-0.5"
+                        style={{ width: "5.5rem" }}
                         value={r[0]}
                         onChange={(e) => setRange(i, 0, Number(e.target.value))}
                       />
@@ -134,7 +139,8 @@ export function SegmentsPanel({
                         type="number"
                         step="any"
                         aria-label={`Segment ${i + 1} to offset (m)`}
-                        className="field-input w-20 py-0.5"
+                        className="field-input py-0.5"
+                        style={{ width: "5.5rem" }}
                         value={r[1]}
                         onChange={(e) => setRange(i, 1, Number(e.target.value))}
                       />
@@ -177,6 +183,13 @@ export function SegmentsPanel({
           </tbody>
         </table>
       )}
+      {reading && reading.excluded.length > 0 && ranges.length > 0 ? (
+        <p className="text-xs text-ochre">
+          Left out of the line fits as far off their neighbours' trend: the pick
+          {reading.excluded.length === 1 ? "" : "s"} at{" "}
+          {reading.excluded.map((o) => metres(o, 1)).join(", ")} offset.
+        </p>
+      ) : null}
       {reading?.interpretation ? (
         reading.interpretation.ok ? (
           <div>

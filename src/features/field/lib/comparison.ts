@@ -10,6 +10,7 @@ import {
   fitSegment,
   groupByShotSide,
   interceptTimeDepths,
+  localOutliers,
   misfitWarnings,
   modelFirstArrival,
   shotSidePoints,
@@ -74,6 +75,8 @@ export type SegmentRange = [number, number];
 
 export interface SegmentReading {
   fits: SegmentFit[];
+  /** Offsets of picks left out as outliers (far off the trend of their neighbours), m. */
+  excluded: number[];
   /** Intercept-time interpretation of the fitted segments, when two or more fitted. */
   interpretation: InterceptTimeResult | null;
 }
@@ -88,8 +91,19 @@ export function readSegments(
   sourcePosition: number,
   side: SpreadSide,
   ranges: readonly SegmentRange[],
+  pickError = 0.0005,
 ): SegmentReading {
-  const points = shotSidePoints(picks, sourcePosition, side);
+  const all = shotSidePoints(picks, sourcePosition, side);
+  // A single mis-pick would bend a segment's line: leave out picks far off their neighbours'
+  // trend (the same local check as the misfit warnings, on the times themselves).
+  const outliers = new Set(
+    localOutliers(
+      all.map((p) => p.offset),
+      all.map((p) => p.time),
+      Math.max(pickError, 0.0002),
+    ).map((o) => o.index),
+  );
+  const points = all.filter((_, i) => !outliers.has(i));
   const fits = ranges.map((r) => fitSegment(points, r));
   const ok = fits.filter((f): f is Extract<SegmentFit, { ok: true }> => f.ok);
   const interpretation =
@@ -103,7 +117,11 @@ export function readSegments(
           })),
         )
       : null;
-  return { fits, interpretation };
+  return {
+    fits,
+    excluded: all.filter((_, i) => outliers.has(i)).map((p) => p.offset),
+    interpretation,
+  };
 }
 
 /**

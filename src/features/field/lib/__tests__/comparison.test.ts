@@ -67,6 +67,16 @@ describe("segments and the intercept-time method", () => {
     }
   });
 
+  it("leaves a single mis-pick out of the line fits and says which", () => {
+    const spiked = picks.map((p, i) => (i === 12 ? { ...p, time: p.time + 0.008 } : p));
+    const ranges = suggestSegments(picks, -1, "forward", truth);
+    const reading = readSegments(spiked, -1, "forward", ranges, 0.0005);
+    expect(reading.excluded).toEqual([25]);
+    const interp = reading.interpretation;
+    expect(interp?.ok).toBe(true);
+    if (interp?.ok) expect(interp.layers[1].velocity).toBeCloseTo(v2, 6);
+  });
+
   it("gives no interpretation while a segment cannot be fitted", () => {
     const reading = readSegments(picks, -1, "forward", [
       [0, 3],
