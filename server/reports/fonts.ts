@@ -1,9 +1,10 @@
 /**
  * Fonts of the PDF report. pdfkit embeds TrueType, OpenType and WOFF fonts but draws WOFF2
- * subsets as empty glyphs, and public/fonts ships only WOFF2 (for the browser). The report
- * therefore embeds IBM Plex Sans and Mono from the WOFF files of the @fontsource packages the
- * client build installs, looking first in public/fonts for a .ttf/.otf/.woff of the same face.
- * WOFF files are unpacked to plain sfnt once per process (`unpackWoff`). When none is found it falls back to pdfkit's built-in Helvetica and Courier.
+ * subsets as empty glyphs, so public/fonts ships the WOFF files of the faces the report uses
+ * (IBM Plex Sans 400/500/600 and Mono 400, copied from the @fontsource packages) beside the
+ * WOFF2 files the browser loads; the @fontsource packages themselves are the fallback. WOFF
+ * files are unpacked to plain sfnt once per process (`unpackWoff`). When none is found the
+ * report falls back to pdfkit's built-in Helvetica and Courier.
  *
  * The Latin subsets hold U+0000–00FF, general punctuation and a few more; `pdfText` replaces the
  * handful of symbols the report would otherwise use (≤, σ, →, …) with plain equivalents so that
