@@ -4,8 +4,6 @@ import { SignInPage } from "@/features/auth/components/sign-in-page";
 import { ForgotPasswordPage, ResetPasswordPage } from "@/features/auth/components/password-pages";
 import { AcceptInvitationPage } from "@/features/auth/components/accept-invitation-page";
 import { SitesPage } from "@/features/sites/components/sites-page";
-import { SitePage } from "@/features/sites/components/site-page";
-import { PlansList } from "@/features/plans/components/plans-list";
 import { PlanDesignerPage } from "@/features/plans/components/designer/plan-designer-page";
 import { TeamPage } from "@/features/team/components/team-page";
 import { MailboxPage } from "@/features/mailbox/components/mailbox-page";
@@ -13,6 +11,7 @@ import { SettingsPage } from "@/features/settings/components/settings-page";
 import { ReviewPage, TeamActivityPage } from "@/features/review";
 import { InboxPage } from "@/features/inbox";
 import { AppLayout } from "./layout";
+import { SiteRoute } from "./site-route";
 import { RequireAuth, RequireRole } from "./guards";
 import { paths } from "./paths";
 import { NotFoundPage } from "./not-found";
@@ -22,14 +21,7 @@ import { FieldCheckPage } from "@/features/field";
 export const appRoutes: RouteObject[] = [
   { index: true, element: <Navigate to={paths.sites} replace /> },
   { path: paths.sites, element: <SitesPage /> },
-  {
-    path: paths.site(),
-    element: (
-      <SitePage>
-        <PlansList />
-      </SitePage>
-    ),
-  },
+  { path: paths.site(), element: <SiteRoute /> },
   { path: paths.plan(), element: <PlanDesignerPage /> },
   { path: paths.planReview(), element: <ReviewPage /> },
   { path: paths.planField(), element: <FieldCheckPage /> },

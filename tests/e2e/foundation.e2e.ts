@@ -1,3 +1,6 @@
+import { writeFileSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import {
   demoAccounts,
@@ -78,6 +81,29 @@ describe("foundation in the browser", () => {
     await page.getByRole("link", { name: "Copperfield bypass embankment" }).click();
     await page.getByText("Soft alluvium over gravel").waitFor();
     await screenshot(page, "site-detail");
+    await signOut(page);
+  });
+
+  it("lets a lead import a plan file on a site page and opens it in the designer", async () => {
+    const { page } = browser;
+    await signIn(page, app.url, demoAccounts.lead);
+    await page.getByRole("link", { name: "Scarrowfield road cutting" }).click();
+    await page.getByRole("heading", { name: "Plans" }).waitFor();
+    const bad = path.join(os.tmpdir(), "spreadsight-bad-plan.json");
+    writeFileSync(bad, JSON.stringify({ name: "Broken", models: [], spread: { spacing: -1 } }));
+    await page.getByLabel("Import plan (JSON)").setInputFiles(bad);
+    await page.getByText("The plan was not imported").waitFor();
+    await page
+      .getByText(/spread\.spacing/)
+      .first()
+      .waitFor();
+    await page
+      .getByLabel("Import plan (JSON)")
+      .setInputFiles("docs/examples/thin-blind-layer.json");
+    await page.getByRole("heading", { name: "Coldwater Lane footbridge, east abutment" }).waitFor();
+    expect(page.url()).toMatch(/\/plans\/[0-9a-f-]{36}$/);
+    await page.getByText("Analysis up to date").waitFor({ timeout: 20_000 });
+    await screenshot(page, "imported-plan");
     await signOut(page);
   });
 

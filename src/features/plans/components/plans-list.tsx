@@ -42,7 +42,14 @@ export const mayCreatePlan = (me: MeResponse | null | undefined) =>
   !!me && (can.editPlans(me.role) || can.useSandbox(me.role));
 
 /** The plans of one site: a table with status, worst verdict and last change, and its actions. */
-export function PlansList({ siteId: siteIdProp }: { siteId?: string }) {
+export function PlansList({
+  siteId: siteIdProp,
+  extraActions,
+}: {
+  siteId?: string;
+  /** More actions beside "New plan" for those who may create plans (e.g. an import button). */
+  extraActions?: React.ReactNode;
+}) {
   const params = useParams();
   const siteId = siteIdProp ?? params.siteId ?? "";
   const { data: me } = useMe();
@@ -74,9 +81,12 @@ export function PlansList({ siteId: siteIdProp }: { siteId?: string }) {
           </p>
         </div>
         {mayCreatePlan(me) && !creating ? (
-          <Button onClick={() => setCreating(true)}>
-            {trainee ? "New sandbox scenario" : "New plan"}
-          </Button>
+          <div className="flex flex-wrap items-start gap-2">
+            {extraActions}
+            <Button onClick={() => setCreating(true)}>
+              {trainee ? "New sandbox scenario" : "New plan"}
+            </Button>
+          </div>
         ) : null}
       </div>
 
