@@ -2,7 +2,7 @@ import { useMemo } from "react";
 import type { FirstBreakPick } from "@/contracts/field";
 import { chartFont, palette } from "@/lib/chart/palette";
 import type { ModelFit, MisfitWarning } from "../../../../workers/field/index";
-import { useElementWidth } from "../hooks/use-element-width";
+import { useElementWidth } from "@/hooks/use-element-width";
 import type { Candidate, Comparison } from "../lib/comparison";
 import { metres, ms, signedMs } from "../lib/format";
 import { shotPositions } from "../lib/picks";

@@ -2,7 +2,7 @@ import { useEffect, useMemo, useRef, useState } from "react";
 import type { FirstBreakPick } from "@/contracts/field";
 import { palette, chartFont } from "@/lib/chart/palette";
 import type { Seg2Record } from "../../../../workers/field/index";
-import { useElementWidth } from "../hooks/use-element-width";
+import { useElementWidth } from "@/hooks/use-element-width";
 import { metres, ms } from "../lib/format";
 import { findPick, type TracePlacement } from "../lib/picks";
 import {

@@ -1,6 +1,6 @@
 import { useMemo, useState } from "react";
 import { type UnitSystem } from "@/lib/units";
-import { useElementWidth } from "../../hooks/use-element-width";
+import { useElementWidth } from "@/hooks/use-element-width";
 import { useLatestResult } from "../../hooks/use-latest-result";
 import type { Plan, PlanAnalysis } from "../../lib/engine";
 import { modeller } from "../../lib/modeller-client";

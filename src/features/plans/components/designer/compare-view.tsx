@@ -6,7 +6,7 @@ import { chartFont, palette } from "@/lib/chart/palette";
 import { type UnitSystem } from "@/lib/units";
 import { useSitePlans } from "../../api/get-site-plans";
 import { planQueryOptions } from "../../api/get-plan";
-import { useElementWidth } from "../../hooks/use-element-width";
+import { useElementWidth } from "@/hooks/use-element-width";
 import { useModellerQuery } from "../../hooks/use-modeller-query";
 import type { Plan } from "../../lib/engine";
 import { privateModeller, type ModellerClient } from "../../lib/modeller-client";

@@ -1,7 +1,7 @@
 import { useId, useState } from "react";
 import { formatQuantity, type UnitSystem } from "@/lib/units";
 import { ErrorNotice } from "@/components/feedback";
-import { useElementWidth } from "../../hooks/use-element-width";
+import { useElementWidth } from "@/hooks/use-element-width";
 import { useLatestResult } from "../../hooks/use-latest-result";
 import type { Plan } from "../../lib/engine";
 import { modeller } from "../../lib/modeller-client";

@@ -8,7 +8,7 @@ import { paths } from "@/app/paths";
 import { palette, chartFont } from "@/lib/chart/palette";
 import { formatInput, parseInput, unitLabel, type UnitSystem } from "@/lib/units";
 import { useCreatePlan } from "../../api/create-plan";
-import { useElementWidth } from "../../hooks/use-element-width";
+import { useElementWidth } from "@/hooks/use-element-width";
 import type { Plan, SweepResult } from "../../lib/engine";
 import { isSuperseded, modeller } from "../../lib/modeller-client";
 import { buildHeatmap, CELL_FILL, type HeatCell } from "../../lib/sweep-heatmap";
