@@ -17,17 +17,17 @@ export class ApiError extends Error {
 
 type Method = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
 
-export async function api<T>(method: Method, path: string, body?: unknown): Promise<T> {
+/**
+ * Sends one request and reads its JSON answer; every failure becomes an ApiError. `init` is
+ * passed to fetch (cookies always included), so a caller may send FormData as well as JSON.
+ */
+export async function request<T>(path: string, init: RequestInit = {}): Promise<T> {
   let response: Response;
   try {
     response = await fetch(path, {
-      method,
       credentials: "same-origin",
-      headers:
-        body === undefined
-          ? { Accept: "application/json" }
-          : { "Content-Type": "application/json", Accept: "application/json" },
-      body: body === undefined ? undefined : JSON.stringify(body),
+      ...init,
+      headers: { Accept: "application/json", ...init.headers },
     });
   } catch {
     throw new ApiError(
@@ -60,6 +60,14 @@ export async function api<T>(method: Method, path: string, body?: unknown): Prom
     );
   }
   return data as T;
+}
+
+export function api<T>(method: Method, path: string, body?: unknown): Promise<T> {
+  return request<T>(path, {
+    method,
+    headers: body === undefined ? {} : { "Content-Type": "application/json" },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  });
 }
 
 export const get = <T>(path: string) => api<T>("GET", path);
