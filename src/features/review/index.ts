@@ -8,5 +8,6 @@ export {
   AnchorComments,
   type CommentThreadsProps,
 } from "./components/comment-threads";
+export { useAnchorThreadCounts, type AnchorThreadCount } from "./hooks/use-anchor-thread-counts";
 export { PlanStatusBadge } from "./components/badges";
 export { TeamActivityPage } from "./components/team-activity-page";

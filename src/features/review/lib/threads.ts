@@ -1,5 +1,6 @@
 /** Comment threads: a first comment with its replies, built from the flat list the API returns. */
 import type { CommentAnchor, CommentView } from "@/contracts/plans";
+import { anchorKey } from "./anchors";
 
 export interface Thread {
   root: CommentView;
@@ -79,4 +80,23 @@ export function filterThreads(
 export function threadCounts(threads: readonly Thread[]): { open: number; resolved: number } {
   const resolved = threads.filter((t) => t.resolved).length;
   return { open: threads.length - resolved, resolved };
+}
+
+/**
+ * Open and resolved thread counts per anchored place, keyed by `anchorKey` ("layer:0:2",
+ * "shot:0:1"); threads about the whole plan are left out.
+ */
+export function anchorThreadCounts(
+  threads: readonly Thread[],
+): Map<string, { open: number; resolved: number }> {
+  const counts = new Map<string, { open: number; resolved: number }>();
+  for (const thread of threads) {
+    if (!thread.anchor) continue;
+    const key = anchorKey(thread.anchor);
+    const count = counts.get(key) ?? { open: 0, resolved: 0 };
+    if (thread.resolved) count.resolved += 1;
+    else count.open += 1;
+    counts.set(key, count);
+  }
+  return counts;
 }

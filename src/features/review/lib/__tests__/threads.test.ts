@@ -1,5 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { buildThreads, filterThreads, sameAnchor, threadCounts } from "../threads";
+import {
+  anchorThreadCounts,
+  buildThreads,
+  filterThreads,
+  sameAnchor,
+  threadCounts,
+} from "../threads";
 import { comment } from "../../testing/fixtures";
 
 describe("buildThreads", () => {
@@ -75,5 +81,36 @@ describe("sameAnchor", () => {
     ).toBe(false);
     expect(sameAnchor(null, null)).toBe(true);
     expect(sameAnchor(null, { kind: "layer", model: 0, index: 0 })).toBe(false);
+  });
+});
+
+describe("anchorThreadCounts", () => {
+  it("counts open and resolved threads per anchored place, a thread once however many replies", () => {
+    const layer = { kind: "layer", model: 0, index: 1 } as const;
+    const open = comment({ anchor: layer });
+    const openReply = comment({ parentId: open.id });
+    const resolved = comment({ anchor: layer, resolved: true });
+    const shot = comment({ anchor: { kind: "shot", model: 0, index: 0 } });
+    const whole = comment({});
+    const counts = anchorThreadCounts(buildThreads([open, openReply, resolved, shot, whole]));
+    expect(counts.get("layer:0:1")).toEqual({ open: 1, resolved: 1 });
+    expect(counts.get("shot:0:0")).toEqual({ open: 1, resolved: 0 });
+    expect(counts.size).toBe(2);
+  });
+
+  it("files a shot under the spread whatever model index the anchor carries", () => {
+    const shot = comment({ anchor: { kind: "shot", model: 2, index: 1 } });
+    expect(anchorThreadCounts(buildThreads([shot])).get("shot:0:1")).toEqual({
+      open: 1,
+      resolved: 0,
+    });
+  });
+
+  it("keeps a layer and the refractor at its top apart", () => {
+    const layer = comment({ anchor: { kind: "layer", model: 1, index: 2 } });
+    const refractor = comment({ anchor: { kind: "refractor", model: 1, index: 2 } });
+    const counts = anchorThreadCounts(buildThreads([layer, refractor]));
+    expect(counts.get("layer:1:2")).toEqual({ open: 1, resolved: 0 });
+    expect(counts.get("refractor:1:2")).toEqual({ open: 1, resolved: 0 });
   });
 });
