@@ -5,10 +5,16 @@ import { ForgotPasswordPage, ResetPasswordPage } from "@/features/auth/component
 import { AcceptInvitationPage } from "@/features/auth/components/accept-invitation-page";
 import { SitesPage } from "@/features/sites/components/sites-page";
 import { PlanDesignerPage } from "@/features/plans/components/designer/plan-designer-page";
+import { DesignerSlotsProvider, type DesignerSlots } from "@/features/plans/designer-slots";
 import { TeamPage } from "@/features/team/components/team-page";
 import { MailboxPage } from "@/features/mailbox/components/mailbox-page";
 import { SettingsPage } from "@/features/settings/components/settings-page";
-import { ReviewPage, TeamActivityPage } from "@/features/review";
+import {
+  AnchorComments,
+  ReviewPage,
+  TeamActivityPage,
+  useAnchorThreadCounts,
+} from "@/features/review";
 import { InboxPage } from "@/features/inbox";
 import { AppLayout } from "./layout";
 import { SiteRoute } from "./site-route";
@@ -17,12 +23,25 @@ import { paths } from "./paths";
 import { NotFoundPage } from "./not-found";
 import { FieldCheckPage } from "@/features/field";
 
+/** What the designer borrows from the Review feature: the threads beside a layer, refractor or shot. */
+export const designerSlots: DesignerSlots = {
+  renderAnchorComments: (planId, anchor) => <AnchorComments planId={planId} anchor={anchor} />,
+  useAnchorCounts: useAnchorThreadCounts,
+};
+
 /** Routes shown inside the signed-in frame. Features add theirs here. */
 export const appRoutes: RouteObject[] = [
   { index: true, element: <Navigate to={paths.sites} replace /> },
   { path: paths.sites, element: <SitesPage /> },
   { path: paths.site(), element: <SiteRoute /> },
-  { path: paths.plan(), element: <PlanDesignerPage /> },
+  {
+    path: paths.plan(),
+    element: (
+      <DesignerSlotsProvider slots={designerSlots}>
+        <PlanDesignerPage />
+      </DesignerSlotsProvider>
+    ),
+  },
   { path: paths.planReview(), element: <ReviewPage /> },
   { path: paths.planField(), element: <FieldCheckPage /> },
   { path: paths.inbox, element: <InboxPage /> },

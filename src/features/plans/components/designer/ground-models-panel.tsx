@@ -4,6 +4,8 @@ import { MAX_LAYERS, MAX_MODELS } from "@engine";
 import { Button } from "@/components/button";
 import { unitLabel, type UnitSystem } from "@/lib/units";
 import { emptyLayer, type PlanForm } from "../../lib/plan-form";
+import { useDesignerSlots } from "../../designer-slots";
+import { AnchorCommentsChip } from "./anchor-comments";
 import { CellInput } from "./cell-input";
 import { MaterialPicker } from "./material-picker";
 
@@ -131,6 +133,7 @@ function ModelEditor({
   const h = unitLabel("length", units);
   const count = layers.fields.length;
   const layersError = errorAt(errors, `${base}.layers`);
+  const comments = useDesignerSlots() !== null;
 
   return (
     <div>
@@ -166,7 +169,13 @@ function ModelEditor({
                 Dip (°)
               </th>
               <th scope="col" className="w-24 py-1.5 font-semibold">
-                <span className="sr-only">Order and removal</span>
+                <span className="sr-only">
+                  {!comments
+                    ? "Order and removal"
+                    : readOnly
+                      ? "Comments"
+                      : "Order, removal and comments"}
+                </span>
               </th>
             </tr>
           </thead>
@@ -245,31 +254,37 @@ function ModelEditor({
                       )}
                     </td>
                     <td className="py-1.5 whitespace-nowrap">
-                      {!readOnly ? (
-                        <div className="flex gap-0.5">
-                          <IconButton
-                            label={`Move layer ${n} up`}
-                            disabled={i === 0}
-                            onClick={() => layers.move(i, i - 1)}
-                          >
-                            ↑
-                          </IconButton>
-                          <IconButton
-                            label={`Move layer ${n} down`}
-                            disabled={last}
-                            onClick={() => layers.move(i, i + 1)}
-                          >
-                            ↓
-                          </IconButton>
-                          <IconButton
-                            label={`Remove layer ${n}`}
-                            disabled={count <= 1}
-                            onClick={() => layers.remove(i)}
-                          >
-                            ✕
-                          </IconButton>
-                        </div>
-                      ) : null}
+                      <div className="flex flex-col items-start gap-1">
+                        {!readOnly ? (
+                          <div className="flex gap-0.5">
+                            <IconButton
+                              label={`Move layer ${n} up`}
+                              disabled={i === 0}
+                              onClick={() => layers.move(i, i - 1)}
+                            >
+                              ↑
+                            </IconButton>
+                            <IconButton
+                              label={`Move layer ${n} down`}
+                              disabled={last}
+                              onClick={() => layers.move(i, i + 1)}
+                            >
+                              ↓
+                            </IconButton>
+                            <IconButton
+                              label={`Remove layer ${n}`}
+                              disabled={count <= 1}
+                              onClick={() => layers.remove(i)}
+                            >
+                              ✕
+                            </IconButton>
+                          </div>
+                        ) : null}
+                        <AnchorCommentsChip
+                          anchor={{ kind: "layer", model: index, index: i }}
+                          label={`layer ${n}`}
+                        />
+                      </div>
                     </td>
                   </tr>
                   {bounds ? (

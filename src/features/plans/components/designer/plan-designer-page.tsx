@@ -30,6 +30,7 @@ import { SpreadPanel } from "./spread-panel";
 import { ResultsPanel } from "./results-panel";
 import { SweepView } from "./sweep-view";
 import { CompareView } from "./compare-view";
+import { AnchorCommentsScope } from "./anchor-comments";
 
 /** The designer route: loads the plan, then hands it to the editor keyed by plan and units. */
 export function PlanDesignerPage() {
@@ -47,11 +48,13 @@ export function PlanDesignerPage() {
     );
   if (!me) return null;
   return (
-    <PlanDesigner
-      key={`${plan.data.id}:${me.preferences.units}`}
-      detail={plan.data}
-      units={me.preferences.units}
-    />
+    <AnchorCommentsScope planId={plan.data.id}>
+      <PlanDesigner
+        key={`${plan.data.id}:${me.preferences.units}`}
+        detail={plan.data}
+        units={me.preferences.units}
+      />
+    </AnchorCommentsScope>
   );
 }
 

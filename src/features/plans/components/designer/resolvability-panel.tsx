@@ -3,6 +3,7 @@ import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
 import type { ModelAnalysis, Plan, PlanAnalysis, Segment } from "../../lib/engine";
 import { applyRecommendation, type AppliedSpread } from "../../lib/apply-recommendation";
 import { VerdictBadge, VERDICT_MEANINGS } from "../verdict-badge";
+import { AnchorCommentsChip } from "./anchor-comments";
 
 /** The cautions every design check carries (design.md). */
 export function Cautions() {
@@ -48,6 +49,7 @@ export function ResolvabilityPanel({
   plan,
   analysis,
   model,
+  modelIndex,
   units,
   readOnly,
   current,
@@ -56,6 +58,8 @@ export function ResolvabilityPanel({
   plan: Plan;
   analysis: PlanAnalysis;
   model: ModelAnalysis;
+  /** Which of the plan's ground models `model` is (0-based), for comments anchored there. */
+  modelIndex: number;
   units: UnitSystem;
   readOnly: boolean;
   current: boolean;
@@ -126,8 +130,14 @@ export function ResolvabilityPanel({
                   <th scope="row" className="py-2 pr-3 text-left font-sans text-sm font-medium">
                     Layer {r.layer}
                     {r.name ? ` (${r.name})` : ""}
-                    <span className="block text-xs font-normal text-ink-soft">
+                    <span className="flex items-center justify-between gap-2 text-xs font-normal text-ink-soft">
                       {formatQuantity("velocity", r.velocity, units)}
+                      <AnchorCommentsChip
+                        anchor={{ kind: "refractor", model: modelIndex, index: r.layer - 1 }}
+                        label={`the refractor at the top of layer ${r.layer}`}
+                        compact
+                        align="start"
+                      />
                     </span>
                   </th>
                   <td className="py-2 pr-3">

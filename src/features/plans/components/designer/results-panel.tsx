@@ -173,6 +173,7 @@ export function ResultsPanel({
               plan={plan}
               analysis={result}
               model={model}
+              modelIndex={modelIndex}
               units={units}
               readOnly={readOnly}
               current={current}

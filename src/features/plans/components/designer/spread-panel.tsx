@@ -5,6 +5,8 @@ import { Field } from "@/components/field";
 import { formatInput, formatQuantity, parseInput, unitLabel, type UnitSystem } from "@/lib/units";
 import type { PlanForm } from "../../lib/plan-form";
 import { patternShots, spreadFigures, type ShotPattern } from "../../lib/spread-figures";
+import { useDesignerSlots } from "../../designer-slots";
+import { AnchorCommentsChip } from "./anchor-comments";
 import { CellInput } from "./cell-input";
 import { errorAt } from "./ground-models-panel";
 
@@ -22,6 +24,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
   const shots = useFieldArray({ control, name: "spread.shots" });
   const spread = useWatch({ control, name: "spread" });
   const m = unitLabel("length", units);
+  const comments = useDesignerSlots() !== null;
 
   const geometry = {
     spacing: parseInput("length", spread?.spacing, units),
@@ -136,7 +139,9 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                 Offsets it records
               </th>
               <th scope="col">
-                <span className="sr-only">Remove</span>
+                <span className="sr-only">
+                  {!comments ? "Remove" : readOnly ? "Comments" : "Comments and removal"}
+                </span>
               </th>
             </tr>
           </thead>
@@ -177,19 +182,25 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                       "—"
                     )}
                   </td>
-                  <td className="py-1.5 text-right">
-                    {!readOnly ? (
-                      <button
-                        type="button"
-                        aria-label={`Remove shot ${i + 1}`}
-                        title={`Remove shot ${i + 1}`}
-                        disabled={shots.fields.length <= 1}
-                        onClick={() => shots.remove(i)}
-                        className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40"
-                      >
-                        ✕
-                      </button>
-                    ) : null}
+                  <td className="py-1.5">
+                    <div className="flex justify-end gap-1">
+                      <AnchorCommentsChip
+                        anchor={{ kind: "shot", model: 0, index: i }}
+                        label={`shot ${i + 1}`}
+                      />
+                      {!readOnly ? (
+                        <button
+                          type="button"
+                          aria-label={`Remove shot ${i + 1}`}
+                          title={`Remove shot ${i + 1}`}
+                          disabled={shots.fields.length <= 1}
+                          onClick={() => shots.remove(i)}
+                          className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40"
+                        >
+                          ✕
+                        </button>
+                      ) : null}
+                    </div>
                   </td>
                 </tr>
               );
