@@ -227,6 +227,49 @@ describe("team review in the browser", () => {
     await screenshot(lp, "review-lead-approved");
   });
 
+  it("shows the reviewer the anchored threads beside the shot in the designer, and takes a comment on a layer there", async () => {
+    const { page } = reviewer;
+    await page.goto(`${app.url}/plans/${planId}?edit=spread`);
+    await page.getByRole("heading", { name: PLAN }).waitFor();
+    await page.getByText("· read only").waitFor();
+
+    // The thread started on the Review screen, anchored to shot 1, with the lead's reply.
+    const shotChip = page.getByRole("button", { name: "Comments on shot 1 (1 open)" });
+    await shotChip.click();
+    const shotPanel = page.getByRole("dialog", { name: "Comments on shot 1" });
+    const thread = shotPanel.getByRole("article", { name: `Thread started by ${REVIEWER_NAME}` });
+    await thread.getByText("the spacing is too coarse").waitFor();
+    await thread.getByText("Done in the next revision").waitFor();
+    await screenshot(page, "review-designer-shot-comments");
+    await page.keyboard.press("Escape");
+    await shotPanel.waitFor({ state: "detached" });
+
+    // A new comment on layer 2, opened from the keyboard on the read-only plan.
+    await page.getByRole("tab", { name: "Ground models" }).click();
+    const layerChip = page.getByRole("button", { name: "Comments on layer 2" });
+    await layerChip.focus();
+    await page.keyboard.press("Enter");
+    const layerPanel = page.getByRole("dialog", { name: "Comments on layer 2" });
+    await layerPanel
+      .getByRole("combobox", { name: /^New comment on Layer 2/ })
+      .fill("Borehole BH2 puts the base of this layer a metre deeper; worth a sweep.");
+    await layerPanel.getByRole("button", { name: "Post comment" }).click();
+    await layerPanel
+      .getByRole("list", { name: "Comment threads" })
+      .getByText("Borehole BH2 puts the base")
+      .waitFor();
+    await page.getByRole("button", { name: "Comments on layer 2 (1 open)" }).waitFor();
+    await screenshot(page, "review-designer-layer-comment");
+
+    // The Review screen lists it, pointing at the layer.
+    await page.getByRole("link", { name: "Review", exact: true }).click();
+    await page.getByRole("heading", { name: `Review: ${PLAN}` }).waitFor();
+    const posted = page
+      .getByRole("article", { name: `Thread started by ${REVIEWER_NAME}` })
+      .filter({ hasText: "Borehole BH2 puts the base" });
+    await posted.getByTitle(/^Layer 2 · /).waitFor();
+  });
+
   it("has e-mailed every notice with a link to the plan's review", async () => {
     const admin = await openBrowser();
     try {

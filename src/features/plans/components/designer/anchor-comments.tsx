@@ -110,6 +110,7 @@ function Chip({
         tabIndex={0}
         aria-label={name}
         title={name}
+        data-comment-chip=""
         aria-haspopup="dialog"
         aria-expanded={open}
         aria-controls={open ? `${id}-panel` : undefined}
@@ -229,9 +230,12 @@ function CommentsPanel({
   }, []);
 
   useEffect(() => {
-    const onPointerDown = (event: PointerEvent) => {
-      const target = event.target as Node | null;
-      if (!target || panel.current?.contains(target) || chip.current?.contains(target)) return;
+    // On click, not pointerdown: closing shortens the page, and the page must not move under
+    // a press on a link before it is released. A chip's own click switches the panel.
+    const onClick = (event: MouseEvent) => {
+      const target = event.target as Element | null;
+      if (!target || panel.current?.contains(target) || target.closest?.("[data-comment-chip]"))
+        return;
       const writing = Array.from(panel.current?.querySelectorAll("textarea") ?? []).some(
         (box) => box.value.trim() !== "",
       );
@@ -244,13 +248,13 @@ function CommentsPanel({
       const fromPanel = !focus || focus === document.body || !!panel.current?.contains(focus);
       onClose(fromPanel);
     };
-    document.addEventListener("pointerdown", onPointerDown);
+    document.addEventListener("click", onClick);
     document.addEventListener("keydown", onKeyDown);
     return () => {
-      document.removeEventListener("pointerdown", onPointerDown);
+      document.removeEventListener("click", onClick);
       document.removeEventListener("keydown", onKeyDown);
     };
-  }, [chip, onClose]);
+  }, [onClose]);
 
   return (
     <div
