@@ -1,5 +1,6 @@
 import { useId, useMemo, useRef, useState } from "react";
 import { chartFont, chartMono, palette } from "@/lib/chart/palette";
+import { HorizontalGrid } from "@/lib/chart/grid";
 import { ErrorNotice, Loading } from "@/components/feedback";
 import { type UnitSystem } from "@/lib/units";
 import type { ArrivalCurves, ModelAnalysis, ShotArrivals } from "../../lib/engine";
@@ -221,27 +222,7 @@ function ChartFrame({ chart }: { chart: ArrivalsChartModel }) {
   const bottom = height - margin.bottom;
   return (
     <g>
-      {chart.yTicks.map((t) => (
-        <g key={`y${t.label}`}>
-          <line
-            x1={margin.left}
-            x2={width - margin.right}
-            y1={t.px}
-            y2={t.px}
-            stroke={palette.rule}
-            strokeWidth={0.6}
-          />
-          <text
-            x={margin.left - 6}
-            y={t.px + 3.5}
-            textAnchor="end"
-            fontSize={11}
-            fill={palette.inkSoft}
-          >
-            {t.label}
-          </text>
-        </g>
-      ))}
+      <HorizontalGrid ticks={chart.yTicks} left={margin.left} right={width - margin.right} />
       {chart.xTicks.map((t) => (
         <g key={`x${t.label}`}>
           <line

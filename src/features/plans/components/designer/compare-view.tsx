@@ -3,6 +3,7 @@ import { useQueries } from "@tanstack/react-query";
 import type { PlanDetail } from "@/contracts/plans";
 import { Card, ErrorNotice, Loading, Notice } from "@/components/feedback";
 import { chartFont, palette } from "@/lib/chart/palette";
+import { HorizontalGrid } from "@/lib/chart/grid";
 import { type UnitSystem } from "@/lib/units";
 import { useSitePlans } from "../../api/get-site-plans";
 import { planQueryOptions } from "../../api/get-plan";
@@ -249,27 +250,11 @@ function Comparison({
         fontFamily={chartFont}
         className="block max-w-full"
       >
-        {overlay.yTicks.map((t) => (
-          <g key={`y${t.label}`}>
-            <line
-              x1={margin.left}
-              x2={overlay.width - margin.right}
-              y1={t.px}
-              y2={t.px}
-              stroke={palette.rule}
-              strokeWidth={0.6}
-            />
-            <text
-              x={margin.left - 6}
-              y={t.px + 3.5}
-              textAnchor="end"
-              fontSize={11}
-              fill={palette.inkSoft}
-            >
-              {t.label}
-            </text>
-          </g>
-        ))}
+        <HorizontalGrid
+          ticks={overlay.yTicks}
+          left={margin.left}
+          right={overlay.width - margin.right}
+        />
         {overlay.xTicks.map((t) => (
           <text
             key={`x${t.label}`}
