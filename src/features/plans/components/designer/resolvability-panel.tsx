@@ -1,5 +1,5 @@
 import { Button } from "@/components/button";
-import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
+import { formatQuantity, formatSigned, localiseMessage, type UnitSystem } from "@/lib/units";
 import type { ModelAnalysis, Plan, PlanAnalysis, Segment } from "../../lib/engine";
 import { applyRecommendation, type AppliedSpread } from "../../lib/apply-recommendation";
 import { VerdictBadge, VERDICT_MEANINGS } from "../verdict-badge";
@@ -211,7 +211,7 @@ export function ResolvabilityPanel({
               className="rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick"
             >
               <span aria-hidden>⚑ </span>
-              {h.statement}
+              {localiseMessage(h.statement, units)}
             </li>
           ))}
         </ul>
@@ -222,7 +222,7 @@ export function ResolvabilityPanel({
         className="mt-4 rounded-md border border-rule bg-paper px-4 py-3"
       >
         <h3 className="text-sm font-semibold text-ink-deep">Recommendation</h3>
-        <p className="mt-1 text-sm">{rec.text}</p>
+        <p className="mt-1 text-sm">{localiseMessage(rec.text, units)}</p>
         <p className="mt-1 font-mono text-xs text-ink-soft">
           Largest spacing{" "}
           {rec.maxSpacing === null ? "any" : formatQuantity("length", rec.maxSpacing, units)} ·
