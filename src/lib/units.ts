@@ -105,7 +105,9 @@ export function parseInput(
   const trimmed = (text ?? "").trim();
   if (trimmed === "") return undefined;
   if (!/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(trimmed)) return Number.NaN;
-  return fromDisplay(quantity, Number(trimmed), system);
+  // Twelve significant digits drop the binary noise of the conversion ("10" ft is stored as
+  // 3.048 m, not 3.0480000000000005) while keeping far more precision than a survey needs.
+  return Number(fromDisplay(quantity, Number(trimmed), system).toPrecision(12));
 }
 
 /**

@@ -74,6 +74,10 @@ describe("units", () => {
 
   it("parses typed input into SI: empty is undefined, junk is NaN, commas are refused", () => {
     expect(parseInput("length", "10", "imperial")).toBeCloseTo(3.048, 12);
+    // the stored SI value carries no conversion noise into the saved plan (1 ft = 0.3048 m exactly)
+    expect(parseInput("length", "10", "imperial")).toBe(3.048);
+    expect(parseInput("length", "12.5", "imperial")).toBe(3.81);
+    expect(parseInput("velocity", "5000", "imperial")).toBe(1524);
     expect(parseInput("length", " 2.5 ", "metric")).toBe(2.5);
     expect(parseInput("length", "", "metric")).toBeUndefined();
     expect(parseInput("length", "  ", "metric")).toBeUndefined();
