@@ -2,6 +2,9 @@ import type { AttachmentSummary } from "@/contracts/field";
 import { attachmentContentUrl } from "../api/attachment-content";
 import { fileSize, metres, ms } from "../lib/format";
 
+/** The same day-and-time style as the rest of the app ("2 Nov 2026, 10:00"). */
+const uploadedAt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short" });
+
 /** One line of what the content check read from a file. */
 export function describeFacts(a: AttachmentSummary): string {
   const f = a.facts;
@@ -81,7 +84,7 @@ export function AttachmentList({
               <td className="py-2 pr-3 align-top text-xs text-ink-soft">
                 {a.uploadedBy.name}
                 <br />
-                {new Date(a.createdAt).toLocaleString()}
+                {uploadedAt.format(new Date(a.createdAt))}
               </td>
               <td className="py-2 align-top">
                 <div className="flex flex-wrap justify-end gap-1">

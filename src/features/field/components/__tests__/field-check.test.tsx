@@ -113,6 +113,9 @@ describe("FieldCheckPage", () => {
     expect(
       screen.getByRole("img", { name: /Time–distance chart: 24 observed picks/ }),
     ).toBeInTheDocument();
+    // the upload time reads like every other date in the app, not in the browser's locale
+    const files = screen.getByRole("table", { name: /uploaded field data/i });
+    expect(within(files).getAllByText(/2 Nov 2026, \d\d:\d\d/).length).toBeGreaterThan(0);
   });
 
   it("shows the misfit pattern when the thicker log's model is chosen", async () => {
