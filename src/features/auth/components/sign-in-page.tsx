@@ -4,7 +4,7 @@ import { Link, Navigate, useNavigate, useSearchParams } from "react-router-dom";
 import { signInSchema, type SignInInput } from "@/contracts/auth";
 import { Field } from "@/components/field";
 import { Button } from "@/components/button";
-import { ErrorNotice } from "@/components/feedback";
+import { ErrorNotice, Notice } from "@/components/feedback";
 import { paths } from "@/app/paths";
 import { useSignIn } from "../api/sign-in";
 import { useMe } from "../api/me";
@@ -35,6 +35,12 @@ export function SignInPage() {
   return (
     <AuthFrame title="Sign in">
       <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+        {params.get("ended") === "1" ? (
+          <Notice tone="caution">
+            Your session has ended (signed out elsewhere, or the password was changed). Sign in
+            again to carry on where you were.
+          </Notice>
+        ) : null}
         <Field label="E-mail" error={form.formState.errors.email?.message}>
           <input
             className="field-input"
