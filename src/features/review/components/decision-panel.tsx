@@ -28,6 +28,10 @@ const WAITING: Record<PlanStatus, string> = {
   archived: "The plan is archived.",
 };
 
+/** A sandbox scenario never enters the review workflow (docs/api.md, Plans). */
+const SANDBOX =
+  "This is a sandbox scenario: it stays with its author and is never submitted for review. An admin can adopt it by duplicating it as a team plan.";
+
 /**
  * The workflow buttons this user may press right now, as the server's `permissions` say: submit
  * (leads), approve or request changes with a required note (reviewers), start a new revision of
@@ -70,7 +74,11 @@ export function DecisionPanel({ plan }: { plan: PlanDetail }) {
 
   return (
     <div className="flex flex-col gap-3">
-      {nothing ? <p className="text-sm text-ink-soft">{WAITING[plan.status]}</p> : null}
+      {nothing ? (
+        <p className="text-sm text-ink-soft">
+          {plan.sandbox && plan.status !== "archived" ? SANDBOX : WAITING[plan.status]}
+        </p>
+      ) : null}
       {withNote ? (
         <form noValidate onSubmit={(e) => e.preventDefault()} className="flex flex-col gap-3">
           <Field

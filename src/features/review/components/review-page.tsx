@@ -168,7 +168,13 @@ function Review({ plan, units }: { plan: PlanDetail; units: UnitSystem }) {
                   by {lastNote.actorName ?? "someone"} ·{" "}
                   {timeFormat.format(new Date(lastNote.createdAt))}
                 </p>
-                <p className="mt-0.5 text-sm whitespace-pre-wrap text-ink-deep">{lastNote.note}</p>
+                {lastNote.note ? (
+                  <p className="mt-0.5 text-sm whitespace-pre-wrap text-ink-deep">
+                    {lastNote.note}
+                  </p>
+                ) : (
+                  <p className="mt-0.5 text-sm text-ink-soft italic">No note.</p>
+                )}
               </LastNote>
             ) : null}
             <DecisionPanel plan={plan} />

@@ -75,17 +75,24 @@ export function describeDetail(detail: Record<string, unknown> | null): string {
 export interface DecisionNote {
   kind: "submitted" | "approved" | "changes-requested";
   actorName: string | null;
-  note: string;
+  /** The note given with the step; null when none was given. */
+  note: string | null;
   createdAt: string;
 }
 
-const DECISIONS: Array<[RegExp, DecisionNote["kind"]]> = [
-  [/request[_-]?changes/, "changes-requested"],
-  [/approve/, "approved"],
-  [/submit/, "submitted"],
+const DECISIONS: Array<[RegExp, DecisionNote["kind"] | "reopened"]> = [
+  [/^plan\.request[_-]?changes$/, "changes-requested"],
+  [/^plan\.approve$/, "approved"],
+  [/^plan\.submit$/, "submitted"],
+  [/^plan\.reopen$/, "reopened"],
 ];
 
-/** The newest workflow step that carried a note (events may come in any order). */
+/**
+ * The newest workflow step (submit, approve, request changes) with its note, if any, so the
+ * Decision card never credits an approval to the submitter; null when there is none yet or the
+ * newest step started a new revision (the earlier decision is then history). Events may come in
+ * any order.
+ */
 export function latestDecisionNote(
   events: ReadonlyArray<{
     action: string;
@@ -94,14 +101,19 @@ export function latestDecisionNote(
     createdAt: string;
   }>,
 ): DecisionNote | null {
-  let best: DecisionNote | null = null;
+  let best: { kind: DecisionNote["kind"] | "reopened"; event: (typeof events)[number] } | null =
+    null;
   for (const event of events) {
-    const note = event.detail?.note;
-    if (typeof note !== "string" || note.trim() === "") continue;
     const kind = DECISIONS.find(([pattern]) => pattern.test(event.action))?.[1];
     if (!kind) continue;
-    if (!best || event.createdAt > best.createdAt)
-      best = { kind, actorName: event.actorName, note, createdAt: event.createdAt };
+    if (!best || event.createdAt > best.event.createdAt) best = { kind, event };
   }
-  return best;
+  if (!best || best.kind === "reopened") return null;
+  const note = best.event.detail?.note;
+  return {
+    kind: best.kind,
+    actorName: best.event.actorName,
+    note: typeof note === "string" && note.trim() !== "" ? note : null,
+    createdAt: best.event.createdAt,
+  };
 }

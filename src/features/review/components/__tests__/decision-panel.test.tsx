@@ -58,6 +58,22 @@ describe("DecisionPanel", () => {
     expect(screen.getByText(/A reviewer approves it or asks for changes/)).toBeInTheDocument();
   });
 
+  it("tells the author of a sandbox scenario that it never goes to review, not that a lead submits it", () => {
+    renderWithApp(
+      <DecisionPanel
+        plan={planDetail({
+          status: "draft",
+          sandbox: true,
+          permissions: { ...noPermissions, edit: true, duplicate: true },
+        })}
+      />,
+      { me: testMe({ role: "trainee" }) },
+    );
+    expect(screen.getByText(/sandbox scenario/)).toHaveTextContent("is never submitted for review");
+    expect(screen.queryByText(/A survey lead submits it/)).toBeNull();
+    expect(buttonNames()).toEqual([]);
+  });
+
   it("refuses to request changes without a note, inline, and sends nothing", async () => {
     const calls = stubFetch({});
     renderWithApp(

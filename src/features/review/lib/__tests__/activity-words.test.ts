@@ -27,8 +27,8 @@ describe("activity words", () => {
     expect(describeDetail({ from: "Old name", to: "New name" })).toBe("Old name → New name");
   });
 
-  it("finds the newest workflow note whatever the order", () => {
-    const note = latestDecisionNote([
+  it("finds the newest workflow step whatever the order, with its note when it has one", () => {
+    const events = [
       {
         action: "plan.submit",
         actorName: "A",
@@ -47,13 +47,31 @@ describe("activity words", () => {
         detail: { note: "not a decision" },
         createdAt: "2026-01-04T00:00:00Z",
       },
-      { action: "plan.approve", actorName: "D", detail: null, createdAt: "2026-01-05T00:00:00Z" },
-    ]);
-    expect(note).toEqual({
+    ];
+    expect(latestDecisionNote(events)).toEqual({
       kind: "changes-requested",
       actorName: "B",
       note: "fix",
       createdAt: "2026-01-03T00:00:00Z",
     });
+    // An approval without a note is still the latest decision: never credit it to the submitter.
+    const approved = [
+      { action: "plan.approve", actorName: "D", detail: null, createdAt: "2026-01-05T00:00:00Z" },
+      ...events,
+    ];
+    expect(latestDecisionNote(approved)).toEqual({
+      kind: "approved",
+      actorName: "D",
+      note: null,
+      createdAt: "2026-01-05T00:00:00Z",
+    });
+    // A new revision after the approval leaves no current decision to show.
+    expect(
+      latestDecisionNote([
+        ...approved,
+        { action: "plan.reopen", actorName: "A", detail: {}, createdAt: "2026-01-06T00:00:00Z" },
+      ]),
+    ).toBeNull();
+    expect(latestDecisionNote([])).toBeNull();
   });
 });
