@@ -9,6 +9,7 @@ import { ErrorNotice, Loading } from "@/components/feedback";
 import { paths } from "@/app/paths";
 import { useAcceptInvitation, useInvitationPreview } from "../api/invitation";
 import { AuthFrame } from "./auth-frame";
+import { isLinkProblem, LinkProblem } from "./link-problem";
 
 export function AcceptInvitationPage() {
   const { token = "" } = useParams();
@@ -29,7 +30,15 @@ export function AcceptInvitationPage() {
   if (preview.isError)
     return (
       <AuthFrame title="Join your team">
-        <ErrorNotice error={preview.error} title="This invitation cannot be used" />
+        {isLinkProblem(preview.error) ? (
+          <LinkProblem error={preview.error} kind="invitation" />
+        ) : (
+          <ErrorNotice
+            error={preview.error}
+            title="Could not check the invitation"
+            onRetry={() => preview.refetch()}
+          />
+        )}
       </AuthFrame>
     );
 
@@ -62,7 +71,13 @@ export function AcceptInvitationPage() {
             {...form.register("password")}
           />
         </Field>
-        {accept.isError ? <ErrorNotice error={accept.error} title="Could not join" /> : null}
+        {accept.isError ? (
+          isLinkProblem(accept.error) ? (
+            <LinkProblem error={accept.error} kind="invitation" />
+          ) : (
+            <ErrorNotice error={accept.error} title="Could not join" />
+          )
+        ) : null}
         <Button type="submit" disabled={accept.isPending}>
           {accept.isPending ? "Joining…" : "Join the team"}
         </Button>

@@ -9,6 +9,7 @@ import { ErrorNotice, Notice } from "@/components/feedback";
 import { paths } from "@/app/paths";
 import { useCompleteReset, useRequestReset } from "../api/password-reset";
 import { AuthFrame } from "./auth-frame";
+import { isLinkProblem, LinkProblem } from "./link-problem";
 
 export function ForgotPasswordPage() {
   const request = useRequestReset();
@@ -66,7 +67,9 @@ export function ResetPasswordPage() {
   });
   return (
     <AuthFrame title="Choose a new password">
-      {complete.isSuccess ? (
+      {isLinkProblem(complete.error) ? (
+        <LinkProblem error={complete.error} kind="reset" />
+      ) : complete.isSuccess ? (
         <Notice tone="success">
           Your password is changed.{" "}
           <Link to={paths.signIn} className="underline">
