@@ -1,10 +1,11 @@
-import type { ReactNode } from "react";
+import type { KeyboardEvent, ReactNode } from "react";
 import { Link, useParams, useSearchParams } from "react-router-dom";
 import type { PlanDetail } from "@/contracts/plans";
 import { useMe } from "@/features/auth/api/me";
 import { Card, ErrorNotice, Loading } from "@/components/feedback";
 import { ErrorBoundary } from "@/components/error-boundary";
 import { paths } from "@/app/paths";
+import { ApiError } from "@/lib/api-client";
 import type { UnitSystem } from "@/lib/units";
 import { useReviewPlan } from "../api/get-review-plan";
 import { useRevision } from "../api/get-revision";
@@ -26,7 +27,27 @@ export function ReviewPage() {
   const plan = useReviewPlan(planId);
   const { data: me } = useMe();
   if (plan.isPending) return <Loading label="Loading the plan…" />;
-  if (plan.isError)
+  if (plan.isError) {
+    // 404 (no such plan, another team's, a sandbox hidden from this role) or a mistyped id:
+    // trying again cannot help, so say what it means and offer the way back.
+    const missing =
+      plan.error instanceof ApiError && (plan.error.status === 404 || plan.error.status === 400);
+    if (missing)
+      return (
+        <div className="flex flex-col gap-3">
+          <ErrorNotice
+            error={
+              new Error(
+                "This plan does not exist, or you cannot see it (a sandbox scenario is seen only by its author, reviewers and admins).",
+              )
+            }
+            title="Cannot open this plan for review"
+          />
+          <Link to={paths.sites} className="text-sm text-ink underline">
+            Back to Sites
+          </Link>
+        </div>
+      );
     return (
       <ErrorNotice
         error={plan.error}
@@ -34,6 +55,7 @@ export function ReviewPage() {
         onRetry={() => plan.refetch()}
       />
     );
+  }
   if (!me) return null;
   return <Review plan={plan.data} units={me.preferences.units} />;
 }
@@ -50,6 +72,35 @@ function Review({ plan, units }: { plan: PlanDetail; units: UnitSystem }) {
   const activity = useActivity(plan.id);
   const [search, setSearch] = useSearchParams();
   const tab = TABS.find((t) => t.tab === search.get("tab"))?.tab ?? "plan";
+  const selectTab = (next: Tab) =>
+    setSearch(
+      (prev) => {
+        const params = new URLSearchParams(prev);
+        params.set("tab", next);
+        return params;
+      },
+      { replace: true },
+    );
+  // The tab list follows the usual keyboard pattern: one stop on Tab, arrows/Home/End move.
+  const onTabKey = (event: KeyboardEvent<HTMLButtonElement>) => {
+    const at = TABS.findIndex((t) => t.tab === tab);
+    const to =
+      event.key === "ArrowRight"
+        ? (at + 1) % TABS.length
+        : event.key === "ArrowLeft"
+          ? (at - 1 + TABS.length) % TABS.length
+          : event.key === "Home"
+            ? 0
+            : event.key === "End"
+              ? TABS.length - 1
+              : null;
+    if (to === null) return;
+    event.preventDefault();
+    selectTab(TABS[to].tab);
+    event.currentTarget.parentElement
+      ?.querySelector<HTMLButtonElement>(`#review-tab-${TABS[to].tab}`)
+      ?.focus();
+  };
   const lastNote = latestDecisionNote(activity.data ?? []);
   const document = revision.data?.document ?? plan.document;
 
@@ -128,16 +179,9 @@ function Review({ plan, units }: { plan: PlanDetail; units: UnitSystem }) {
                   id={`review-tab-${t.tab}`}
                   aria-selected={tab === t.tab}
                   aria-controls={`review-panel-${t.tab}`}
-                  onClick={() =>
-                    setSearch(
-                      (prev) => {
-                        const next = new URLSearchParams(prev);
-                        next.set("tab", t.tab);
-                        return next;
-                      },
-                      { replace: true },
-                    )
-                  }
+                  tabIndex={tab === t.tab ? 0 : -1}
+                  onClick={() => selectTab(t.tab)}
+                  onKeyDown={onTabKey}
                   className={`-mb-px border-b-2 px-3 py-1.5 text-sm font-medium ${tab === t.tab ? "border-ink text-ink-deep" : "border-transparent text-ink-soft hover:text-ink"}`}
                 >
                   {t.label}

@@ -199,6 +199,54 @@ describe("ReviewPage", () => {
     });
     renderPage();
     expect(await screen.findByText("Cannot open this plan for review")).toBeInTheDocument();
-    await waitFor(() => expect(screen.getByText("plan not found")).toBeInTheDocument());
+    await waitFor(() =>
+      expect(screen.getByText(/does not exist, or you cannot see it/)).toBeInTheDocument(),
+    );
+    // Trying again cannot help with a plan that is not there; the way back is offered instead.
+    expect(screen.queryByRole("button", { name: "Try again" })).toBeNull();
+    expect(screen.getByRole("link", { name: "Back to Sites" })).toHaveAttribute("href", "/sites");
+  });
+
+  it("says the same, not the server's path check, for a mistyped plan address", async () => {
+    stubFetch({
+      "GET /api/plans/not-a-uuid": () => ({
+        status: 400,
+        body: {
+          error: {
+            code: "invalid_input",
+            message: "invalid path: id: id must be a UUID",
+            fields: { id: ["id must be a UUID"] },
+          },
+        },
+      }),
+    });
+    renderWithApp(<ReviewPage />, {
+      me: testMe({ role: "reviewer" }),
+      path: "/plans/:planId/review",
+      route: "/plans/not-a-uuid/review",
+    });
+    expect(await screen.findByText(/does not exist, or you cannot see it/)).toBeInTheDocument();
+    expect(screen.queryByText(/invalid path/)).toBeNull();
+  });
+
+  it("moves between Plan, History and Activity with the arrow keys, Home and End", async () => {
+    serve(stored);
+    renderPage();
+    const plan = await screen.findByRole("tab", { name: "Plan" });
+    expect(plan).toHaveAttribute("tabindex", "0");
+    expect(screen.getByRole("tab", { name: "History" })).toHaveAttribute("tabindex", "-1");
+    plan.focus();
+    await userEvent.keyboard("{ArrowRight}");
+    const history = screen.getByRole("tab", { name: "History" });
+    expect(history).toHaveFocus();
+    expect(history).toHaveAttribute("aria-selected", "true");
+    expect(await screen.findByRole("list", { name: "Revisions" })).toBeInTheDocument();
+    await userEvent.keyboard("{End}");
+    expect(screen.getByRole("tab", { name: "Activity" })).toHaveFocus();
+    expect(screen.getByRole("tab", { name: "Activity" })).toHaveAttribute("aria-selected", "true");
+    await userEvent.keyboard("{ArrowRight}");
+    expect(screen.getByRole("tab", { name: "Plan" })).toHaveFocus();
+    await userEvent.keyboard("{ArrowLeft}{Home}");
+    expect(screen.getByRole("tab", { name: "Plan" })).toHaveAttribute("aria-selected", "true");
   });
 });
