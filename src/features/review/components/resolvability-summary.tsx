@@ -4,6 +4,7 @@ import { formatQuantity, type UnitSystem } from "@/lib/units";
 import { ErrorNotice } from "@/components/feedback";
 import { resolvabilityOf, type ResolvabilitySummary } from "../lib/resolvability";
 import { VerdictTag } from "./badges";
+import { sentenceInUnits } from "../lib/sentence-units";
 
 /**
  * Resolvability of a revision: the worst verdict, then per ground model each refractor's verdict
@@ -118,14 +119,16 @@ export function ResolvabilitySummaryView({
             </div>
           )}
           {model.recommendation && summary.models.length > 1 ? (
-            <p className="mt-1.5 text-xs text-ink-soft">{model.recommendation}</p>
+            <p className="mt-1.5 text-xs text-ink-soft">
+              {sentenceInUnits(model.recommendation, units)}
+            </p>
           ) : null}
         </div>
       ))}
       {summary.recommendation.text ? (
         <p className="rounded-md border border-rule bg-paper/60 px-3 py-2 text-sm text-ink-deep">
           <span className="font-medium">Recommendation at this revision: </span>
-          {summary.recommendation.text}
+          {sentenceInUnits(summary.recommendation.text, units)}
         </p>
       ) : null}
       <p className="text-xs text-ink-faint">

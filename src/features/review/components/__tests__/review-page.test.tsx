@@ -156,6 +156,19 @@ describe("ReviewPage", () => {
     expect(note).toHaveTextContent("Add a centre shot.");
   });
 
+  it("gives the stored recommendation sentence in the reader's units, like the table beside it", async () => {
+    serve(stored);
+    renderWithApp(<ReviewPage />, {
+      me: testMe({ role: "reviewer", preferences: { units: "imperial" } }),
+      path: "/plans/:planId/review",
+      route: `/plans/${PLAN_ID}/review`,
+    });
+    const sentence = await screen.findByText("Recommendation at this revision:", { exact: false });
+    // 1 m = 3.28 ft (1 ft = 0.3048 m exactly); the engine wrote "1 m".
+    expect(sentence.parentElement).toHaveTextContent("Use spacing at most 3.3 ft.");
+    expect(sentence.parentElement).not.toHaveTextContent(/\d m\b/);
+  });
+
   it("analyses the revision in the browser when it carries no stored summary", async () => {
     serve(null);
     renderPage();
