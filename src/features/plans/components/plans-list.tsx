@@ -14,6 +14,7 @@ import { paths } from "@/app/paths";
 import { useSitePlans } from "../api/get-site-plans";
 import { useCreatePlan } from "../api/create-plan";
 import { useDuplicatePlan } from "../api/duplicate-plan";
+import { useSite } from "@/features/sites/api/sites";
 import { useUpdatePlan } from "../api/update-plan";
 import { VerdictBadge } from "./verdict-badge";
 
@@ -62,6 +63,11 @@ export function PlansList({
   const [renamingId, setRenamingId] = useState<string | null>(null);
   const [showArchived, setShowArchived] = useState(false);
   const trainee = me ? can.useSandbox(me.role) : false;
+  // An archived site takes no new plans (the server answers 409 site_archived): offer nothing
+  // that would only fail, and say how to add plans again.
+  const site = useSite(siteId);
+  const siteArchived = site.data?.archived === true;
+  const mayAdd = mayCreatePlan(me) && !siteArchived;
 
   const all = plans.data ?? [];
   const visible = all.filter((p) => showArchived || p.status !== "archived");
@@ -80,7 +86,7 @@ export function PlansList({
               : "Survey designs for this site, each with its candidate ground models and spread."}
           </p>
         </div>
-        {mayCreatePlan(me) && !creating ? (
+        {mayAdd && !creating ? (
           <div className="flex flex-wrap items-start gap-2">
             {extraActions}
             <Button onClick={() => setCreating(true)}>
@@ -90,6 +96,12 @@ export function PlansList({
         ) : null}
       </div>
 
+      {siteArchived && mayCreatePlan(me) ? (
+        <p className="mb-3 rounded-md border border-rule bg-paper-deep px-3 py-2 text-sm text-ink-soft">
+          This site is archived: its plans can be read but no plans can be added or copied here.
+          Restore the site on the Sites page to plan on it again.
+        </p>
+      ) : null}
       {creating ? (
         <Card className="mb-4">
           <h3 className="mb-3 font-semibold text-ink">
@@ -133,7 +145,7 @@ export function PlansList({
 
       {plans.data && visible.length === 0 ? (
         <EmptyState title="No plans yet">
-          {mayCreatePlan(me)
+          {mayAdd
             ? "Start one to model the ground and try a spread."
             : "A survey lead starts the plans for a site."}
         </EmptyState>
@@ -219,7 +231,7 @@ export function PlansList({
                     </td>
                     <td className="px-4 py-2.5">
                       <div className="flex justify-end gap-1">
-                        {allowed.duplicate && !archived ? (
+                        {allowed.duplicate && !archived && !siteArchived ? (
                           <Button
                             variant="quiet"
                             aria-label={`Duplicate ${plan.name}`}

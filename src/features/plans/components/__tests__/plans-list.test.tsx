@@ -32,6 +32,33 @@ describe("PlansList", () => {
     expect(within(lead).getByText("Resolved")).toBeVisible();
   });
 
+  it("offers no new, imported or copied plan on an archived site, and says how to plan there again", async () => {
+    stubFetch({
+      [list]: () => ({ status: 200, body: [planSummary()] }),
+      [`GET /api/sites/${SITE_ID}`]: () => ({
+        status: 200,
+        body: {
+          id: SITE_ID,
+          name: "Old quarry",
+          description: "",
+          archived: true,
+          createdBy: "Lee Lead",
+          createdAt: "2026-11-01T10:00:00.000Z",
+          updatedAt: "2026-11-01T10:00:00.000Z",
+          planCount: 1,
+        },
+      }),
+    });
+    renderWithApp(<PlansList extraActions={<button type="button">Import plan</button>} />, route);
+    expect(await screen.findByText(/This site is archived/)).toBeVisible();
+    expect(screen.queryByRole("button", { name: "New plan" })).toBeNull();
+    expect(screen.queryByRole("button", { name: "Import plan" })).toBeNull();
+    expect(screen.queryByRole("button", { name: /^Duplicate/ })).toBeNull();
+    // the plans themselves stay readable and can still be renamed or archived
+    expect(screen.getByRole("link", { name: "Culvert crossing, line 2" })).toBeVisible();
+    expect(screen.getByRole("button", { name: "Rename Culvert crossing, line 2" })).toBeVisible();
+  });
+
   it("gives a reviewer no way to create or change plans", async () => {
     stubFetch({ [list]: () => ({ status: 200, body: [planSummary()] }) });
     renderWithApp(<PlansList />, { ...route, me: testMe({ role: "reviewer" }) });
