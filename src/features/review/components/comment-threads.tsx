@@ -62,8 +62,14 @@ export function CommentThreads({ planId, anchorFilter, compact = false }: Commen
   const scoped = anchorFilter === undefined ? threads : filterThreads(threads, "all", anchorFilter);
   const counts = threadCounts(scoped);
   const shown = filterThreads(scoped, filter);
+  // A sandbox scenario is seen only by its author, reviewers and admins: the server mentions no
+  // one else (docs/api.md, Mentions), so nobody else is offered.
+  const sandbox = plan.data?.sandbox ?? false;
+  const authorId = plan.data?.author.id;
   const candidates: MentionCandidate[] = (members.data ?? []).filter(
-    (m) => m.userId !== me?.user.id,
+    (m) =>
+      m.userId !== me?.user.id &&
+      (!sandbox || m.role === "admin" || m.role === "reviewer" || m.userId === authorId),
   );
   const names = (members.data ?? []).map((m) => m.name);
   const anchorChoices = useMemo(

@@ -207,4 +207,35 @@ describe("CommentThreads", () => {
     expect(mention.tagName).toBe("SPAN");
     expect(mention).toHaveClass("bg-ochre-soft");
   });
+
+  it("offers only members who can see a sandbox scenario when mentioning (its author, reviewers, admins)", async () => {
+    const trainee = members.find((m) => m.role === "trainee")!;
+    stubFetch({
+      [`GET ${base}`]: () => ({
+        status: 200,
+        body: planDetail({
+          sandbox: true,
+          status: "draft",
+          author: { id: trainee.userId, name: trainee.name },
+          permissions: { ...noPermissions, comment: true },
+        }),
+      }),
+      [`GET ${base}/comments`]: () => ({ status: 200, body: [] }),
+      "GET /api/team/members": () => ({ status: 200, body: members }),
+    });
+    const reviewer = testMe({
+      role: "reviewer",
+      user: { id: reviewerId, email: "oskar@example.test", name: "Oskar Bellweather" },
+    });
+    renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: reviewer });
+    const box = await screen.findByRole("combobox", { name: "New comment" });
+    await userEvent.type(box, "@");
+    const list = await screen.findByRole("listbox", { name: "Mention a team member" });
+    const offered = within(list)
+      .getAllByRole("option")
+      .map((o) => o.textContent);
+    expect(offered.some((t) => t?.includes(trainee.name))).toBe(true);
+    // The lead cannot see the scenario, so a mention would reach nobody.
+    expect(offered.some((t) => t?.includes("Tamsin Orchard"))).toBe(false);
+  });
 });
