@@ -450,6 +450,10 @@ export async function duplicatePlan(
   requireCreator(actor);
   const newId = await inTransaction(dataSource, async (manager) => {
     const source = await findVisiblePlan(manager, actor, id);
+    const site = await findTeamSite(manager, actor, source.siteId);
+    if (site.archivedAt) {
+      throw new AppError(409, "site_archived", "the site is archived; restore it to add plans");
+    }
     const revision = await latestRevisionRow(manager, source);
     const name = input.name ?? copyName(source.name);
     const planId = await insertPlan(manager, actor, source.siteId, name, {

@@ -286,6 +286,20 @@ describe("rename, archive, duplicate", () => {
     expect(await listIds(api.lead, team.sites.active, "all")).toContain(plan.id);
   });
 
+  it("refuses to copy a plan onto an archived site (409 site_archived), as creating one there is refused", async () => {
+    const site = await api.lead.post("/api/sites").send({ name: "Closed pit, copy check" });
+    expect(site.status).toBe(201);
+    const plan = await createPlan(api.lead, site.body.id, "On a site soon archived");
+    expect(
+      (await api.lead.patch(`/api/sites/${site.body.id}`).send({ archived: true })).status,
+    ).toBe(200);
+    const before = await countPlanRows(ctx.dataSource);
+    const copy = await api.lead.post(`/api/plans/${plan.id}/duplicate`).send({});
+    expect(copy.status).toBe(409);
+    expect(copy.body.error.code).toBe("site_archived");
+    expect(await countPlanRows(ctx.dataSource)).toEqual(before);
+  });
+
   it("a trainee's copy of a team plan lands in their sandbox with the same document", async () => {
     const source = await createPlan(api.lead, team.sites.active, "Source", thinLayerDocument());
     const copy = await api.trainee.post(`/api/plans/${source.id}/duplicate`).send({});
