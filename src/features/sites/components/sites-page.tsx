@@ -71,9 +71,16 @@ export function SitesPage() {
       </div>
       {sites.isPending ? <Loading label="Loading sites…" /> : null}
       {sites.isError ? <ErrorNotice error={sites.error} onRetry={() => sites.refetch()} /> : null}
+      {updateSite.isError && editingId === null ? (
+        <ErrorNotice error={updateSite.error} title="Could not change the site" />
+      ) : null}
       {sites.data && sites.data.length === 0 ? (
         <EmptyState title={filter === "true" ? "No archived sites" : "No sites yet"}>
-          {mayEdit ? "Create one to start planning a survey." : "A survey lead creates sites."}
+          {filter === "true"
+            ? "A site you archive leaves the active list and waits here until it is restored."
+            : mayEdit
+              ? "Create one to start planning a survey."
+              : "A survey lead creates sites."}
         </EmptyState>
       ) : null}
       <ul className="grid gap-4 md:grid-cols-2">
@@ -152,7 +159,11 @@ function SiteCard({
             <Button variant="secondary" onClick={onEdit} aria-label={`Rename ${site.name}`}>
               Rename
             </Button>
-            <Button variant="quiet" onClick={() => onArchive(!site.archived)}>
+            <Button
+              variant="quiet"
+              onClick={() => onArchive(!site.archived)}
+              aria-label={`${site.archived ? "Restore" : "Archive"} ${site.name}`}
+            >
               {site.archived ? "Restore" : "Archive"}
             </Button>
           </div>

@@ -63,4 +63,31 @@ describe("SitesPage", () => {
       description: "",
     });
   });
+
+  it("explains the empty archived list instead of inviting a new site there", async () => {
+    stubFetch({
+      "GET /api/sites?archived=false": () => ({ status: 200, body: [site] }),
+      "GET /api/sites?archived=true": () => ({ status: 200, body: [] }),
+    });
+    renderWithApp(<SitesPage />);
+    await screen.findByRole("link", { name: "Quarry Lane cut" });
+    await userEvent.click(screen.getByRole("radio", { name: "Archived" }));
+    expect(await screen.findByText("No archived sites")).toBeInTheDocument();
+    expect(screen.getByText(/waits here until it is restored/)).toBeInTheDocument();
+    expect(screen.queryByText(/Create one to start planning/)).toBeNull();
+  });
+
+  it("says so when archiving a site fails, naming the site on its button", async () => {
+    stubFetch({
+      "GET /api/sites?archived=false": () => ({ status: 200, body: [site] }),
+      [`PATCH /api/sites/${site.id}`]: () => ({
+        status: 403,
+        body: { error: { code: "forbidden", message: "your role may not change sites" } },
+      }),
+    });
+    renderWithApp(<SitesPage />);
+    await userEvent.click(await screen.findByRole("button", { name: "Archive Quarry Lane cut" }));
+    expect(await screen.findByText("Could not change the site")).toBeInTheDocument();
+    expect(screen.getByText("your role may not change sites")).toBeInTheDocument();
+  });
 });
