@@ -41,7 +41,7 @@ export function describeAction(action: string): string {
   return target ? `${target}: ${words}` : words;
 }
 
-const SHOWN = ["name", "revision", "note", "email", "role"];
+const SHOWN = ["name", "revision", "message", "note", "email", "role"];
 
 const isStatus = (value: unknown): value is PlanStatus =>
   typeof value === "string" && (PLAN_STATUSES as readonly string[]).includes(value);

@@ -15,6 +15,12 @@ describe("activity words", () => {
     expect(describeDetail(null)).toBe("");
   });
 
+  it("keeps the message a revision was saved with (what the reviewer wants to know)", () => {
+    expect(describeDetail({ revision: 2, message: "tighter spacing", worstVerdict: "blind" })).toBe(
+      "revision: 2 · message: tighter spacing",
+    );
+  });
+
   it("reads workflow statuses in our own words", () => {
     expect(
       describeDetail({
