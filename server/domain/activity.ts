@@ -7,6 +7,7 @@ import type { ActivityView } from "@/contracts/plans";
 import { AuditEvent } from "../data/entities/audit-event";
 import { requireRole, type Actor } from "./actor";
 import { withoutHiddenPlans } from "./audit";
+import { fileSlug } from "./exports";
 import { findVisiblePlan } from "./plans";
 
 function toView(row: AuditEvent): ActivityView {
@@ -81,14 +82,31 @@ export async function planActivityCsv(
   planId: string,
   limit: number,
 ): Promise<string> {
+  return (await planActivityCsvFile(dataSource, actor, planId, limit)).csv;
+}
+
+/**
+ * The plan's trail as CSV with a file name from the plan's name. Like the JSON list, `limit`
+ * keeps the newest events; the file then lists them oldest first.
+ */
+export async function planActivityCsvFile(
+  dataSource: DataSource,
+  actor: Actor,
+  planId: string,
+  limit: number,
+): Promise<{ csv: string; filename: string }> {
   const plan = await findVisiblePlan(dataSource.manager, actor, planId);
   const rows = await dataSource.getRepository(AuditEvent).find({
     where: { teamId: actor.teamId, targetType: "plan", targetId: planId },
     relations: { actor: true },
-    order: { createdAt: "ASC", id: "ASC" },
+    order: { createdAt: "DESC", id: "DESC" },
     take: limit,
   });
-  return toCsv(HEADER, csvRows(rows, new Map([[plan.id, plan.name]])));
+  rows.reverse();
+  return {
+    csv: toCsv(HEADER, csvRows(rows, new Map([[plan.id, plan.name]]))),
+    filename: `${fileSlug(plan.name)}-activity.csv`,
+  };
 }
 
 /**

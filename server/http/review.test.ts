@@ -451,6 +451,30 @@ describe("activity and CSV", () => {
     expect(rows[0][1]).toBe(team.users.lead.name);
   });
 
+  it("a limited CSV keeps the newest events, oldest first, in a file named after the plan", async () => {
+    const plan = await createPlan(api.lead, team.sites.active, "Limit check, line C");
+    await api.lead.patch(`/api/plans/${plan.id}`).send({ name: "Limit check, line C2" });
+    await api.lead.patch(`/api/plans/${plan.id}`).send({ name: "Limit check, line C3" });
+    const response = await api.reviewer.get(`/api/plans/${plan.id}/activity.csv?limit=2`);
+    expect(response.status).toBe(200);
+    expect(response.headers["content-disposition"]).toBe(
+      'attachment; filename="limit-check-line-c3-activity.csv"',
+    );
+    const rows = Papa.parse<string[]>(response.text.trimEnd(), { newline: "\r\n" }).data.slice(1);
+    // The newest two (the create is left out), as the JSON list with the same limit.
+    expect(rows.map((r) => r[6]).sort()).toEqual(
+      [
+        "from=Limit check, line C; to=Limit check, line C2",
+        "from=Limit check, line C2; to=Limit check, line C3",
+      ].sort(),
+    );
+    const json = await api.reviewer.get(`/api/plans/${plan.id}/activity?limit=2`);
+    expect(json.body.map((e: { action: string }) => e.action)).toEqual([
+      "plan.rename",
+      "plan.rename",
+    ]);
+  });
+
   it("guards cells that a spreadsheet would run as a formula", async () => {
     const plan = await createPlan(api.lead, team.sites.active, '=HYPERLINK("x")');
     const csv = (await api.lead.get(`/api/plans/${plan.id}/activity.csv`)).text;

@@ -5,7 +5,7 @@ import { Router, type Response } from "express";
 import { idParamSchema } from "@/contracts/common";
 import { activityQuerySchema } from "@/contracts/plans";
 import { requireRole } from "../../domain/actor";
-import { planActivity, planActivityCsv, teamAuditCsv } from "../../domain/activity";
+import { planActivity, planActivityCsvFile, teamAuditCsv } from "../../domain/activity";
 import type { RouteContext } from "../context";
 import { requireActor } from "../session";
 import { parseParams, parseQuery } from "../validate";
@@ -31,7 +31,8 @@ export function activityRouter(ctx: RouteContext): Router {
     const actor = requireActor(res);
     const { id } = parseParams(idParamSchema, req);
     const { limit } = parseQuery(activityQuerySchema, req);
-    sendCsv(res, `plan-${id}-activity.csv`, await planActivityCsv(dataSource, actor, id, limit));
+    const { csv, filename } = await planActivityCsvFile(dataSource, actor, id, limit);
+    sendCsv(res, filename, csv);
   });
 
   router.get("/audit.csv", async (req, res) => {
