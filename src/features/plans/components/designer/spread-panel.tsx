@@ -49,14 +49,18 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
 
   const addPattern = (pattern: ShotPattern) => {
     if (!sound) return;
+    // Compare positions as the boxes show them: a value typed or shown in feet comes back in
+    // metres with rounding noise (154.199 ft → 46.99985 m), so 6-decimal metres would differ.
+    const key = (p: number) => formatInput("length", p, units);
     const taken = new Set(
-      shotPositions.filter((p): p is number => p !== undefined).map((p) => p.toFixed(6)),
+      shotPositions.filter((p): p is number => p !== undefined && Number.isFinite(p)).map(key),
     );
     for (const shot of patternShots(geometry as never, pattern)) {
-      if (taken.has(shot.position.toFixed(6))) continue;
+      const position = key(shot.position);
+      if (taken.has(position)) continue;
       if (shots.fields.length >= MAX_SHOTS) break;
-      shots.append({ position: formatInput("length", shot.position, units), label: shot.label });
-      taken.add(shot.position.toFixed(6));
+      shots.append({ position, label: shot.label });
+      taken.add(position);
     }
   };
 

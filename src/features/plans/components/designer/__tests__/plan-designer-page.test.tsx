@@ -137,4 +137,19 @@ describe("PlanDesignerPage", () => {
     expect(screen.getByLabelText("Channels")).toHaveValue(channels);
     expect(screen.getByText("● Unsaved changes")).toBeVisible();
   });
+
+  it("adds no second shot where one already stands, also for an imperial user", async () => {
+    // the fixture's spread already has end shots half a spacing beyond each end geophone
+    open(planDetail(), testMe({ preferences: { units: "imperial" } }));
+    await upToDate();
+    await userEvent.click(screen.getByRole("tab", { name: "Spread" }));
+    const positions = () => screen.getAllByLabelText(/^Shot \d+ position \(ft\)$/);
+    expect(positions()).toHaveLength(2);
+    await userEvent.click(screen.getByRole("button", { name: "+ End shots" }));
+    expect(positions()).toHaveLength(2);
+    await userEvent.click(screen.getByRole("button", { name: "+ Centre shot" }));
+    expect(positions()).toHaveLength(3);
+    await userEvent.click(screen.getByRole("button", { name: "+ Centre shot" }));
+    expect(positions()).toHaveLength(3);
+  });
 });
