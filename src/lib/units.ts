@@ -132,12 +132,18 @@ export function formatQuantity(
 }
 
 /**
- * Rewrite the SI limits inside a validation message for an imperial user, keeping the SI
- * figure: "velocity must be at most 10000 m/s" → "… 10000 m/s (32808 ft/s)".
+ * Rewrite the SI limits inside a validation message in the units the boxes use, keeping the SI
+ * figure: "velocity must be at most 10000 m/s" → "… 10000 m/s (32808 ft/s)" for an imperial
+ * user; seconds gain their ms figure for everyone ("0.1 s (100 ms)").
  */
 export function localiseMessage(message: string, system: UnitSystem): string {
-  if (system === "metric") return message;
-  return message.replace(/(-?\d+(?:\.\d+)?) (m\/s|m)\b/g, (whole, value: string, unit: string) => {
+  // Times are typed in ms in both systems: "between 0 and 0.1 s" → "… 0.1 s (100 ms)".
+  const timed = message.replace(
+    /(\d+(?:\.\d+)?) s\b/g,
+    (whole, value: string) => `${whole} (${Number((Number(value) * 1000).toPrecision(6))} ms)`,
+  );
+  if (system === "metric") return timed;
+  return timed.replace(/(-?\d+(?:\.\d+)?) (m\/s|m)\b/g, (whole, value: string, unit: string) => {
     const quantity: Quantity = unit === "m/s" ? "velocity" : "length";
     const shown = toDisplay(quantity, Number(value), system);
     return `${whole} (${Number(shown.toPrecision(5))} ${unitLabel(quantity, system)})`;

@@ -95,6 +95,16 @@ describe("units", () => {
     expect(formatInput("time", 0.0005, "metric")).toBe("0.5");
   });
 
+  it("adds the ms figure to a limit in seconds for every user (times are typed in ms)", () => {
+    expect(localiseMessage("pick error must be between 0 and 0.1 s", "metric")).toBe(
+      "pick error must be between 0 and 0.1 s (100 ms)",
+    );
+    expect(localiseMessage("pick error must be between 0 and 0.1 s", "imperial")).toBe(
+      "pick error must be between 0 and 0.1 s (100 ms)",
+    );
+    expect(localiseMessage("at most 10 shots", "metric")).toBe("at most 10 shots");
+  });
+
   it("adds the feet figure to SI limits in messages for an imperial user only", () => {
     expect(localiseMessage("velocity must be at most 10000 m/s", "imperial")).toBe(
       "velocity must be at most 10000 m/s (32808 ft/s)",

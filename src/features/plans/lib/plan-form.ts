@@ -246,7 +246,7 @@ function localiseErrors(errors: unknown, units: UnitSystem): void {
   }
 }
 
-/** The react-hook-form resolver: zod through the engine's schema, SI limits restated in feet. */
+/** The react-hook-form resolver: zod through the engine's schema, SI limits restated in the units of the boxes (feet, ms). */
 export function planFormResolver(
   units: UnitSystem,
   name: string,
@@ -259,7 +259,7 @@ export function planFormResolver(
   >;
   return async (values, context, options) => {
     const result = await base(values, context, options);
-    if (units === "imperial") localiseErrors(result.errors, units);
+    localiseErrors(result.errors, units);
     return result;
   };
 }

@@ -152,4 +152,16 @@ describe("PlanDesignerPage", () => {
     await userEvent.click(screen.getByRole("button", { name: "+ Centre shot" }));
     expect(positions()).toHaveLength(3);
   });
+
+  it("states the pick-error limit in ms, the unit of its box", async () => {
+    open();
+    await upToDate();
+    await userEvent.click(screen.getByRole("tab", { name: "Spread" }));
+    const pickError = screen.getByLabelText("Pick error (ms)");
+    await userEvent.clear(pickError);
+    await userEvent.type(pickError, "500");
+    expect(
+      await screen.findByText("pick error must be between 0 and 0.1 s (100 ms)"),
+    ).toBeVisible();
+  });
 });
