@@ -5,7 +5,15 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
-import { demoAccounts, openBrowser, screenshot, signIn, startApp, type E2eApp } from "./harness";
+import {
+  DEMO_PASSWORD,
+  demoAccounts,
+  openBrowser,
+  screenshot,
+  signIn,
+  startApp,
+  type E2eApp,
+} from "./harness";
 
 type Browser = Awaited<ReturnType<typeof openBrowser>>;
 
@@ -293,5 +301,30 @@ describe("team review in the browser", () => {
     } finally {
       await admin.close();
     }
+  });
+
+  it("sends a reviewer whose session ended elsewhere to sign in, and back to the review", async () => {
+    const { page, context } = reviewer;
+    await openReview(page);
+    // The session ends outside this tab (signed out on another device).
+    const cookie = (await context.cookies()).find((c) => c.name === "spreadsight_session");
+    expect(cookie).toBeTruthy();
+    const ended = await fetch(`${app.url}/api/auth/sign-out`, {
+      method: "POST",
+      headers: { Origin: app.url, Cookie: `spreadsight_session=${cookie!.value}` },
+    });
+    expect(ended.status).toBe(204);
+
+    // The next thing the page sends to the server meets the ended session.
+    await page.getByLabel("New comment").fill("One more look at the centre shot.");
+    await page.getByRole("button", { name: "Post comment" }).click();
+    await page.getByRole("heading", { name: "Sign in" }).waitFor();
+    await page.getByText("Your session has ended").waitFor();
+    await screenshot(page, "review-session-ended");
+    await page.getByLabel("E-mail").fill(demoAccounts.reviewer);
+    await page.getByLabel("Password").fill(DEMO_PASSWORD);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.getByRole("heading", { name: `Review: ${PLAN}` }).waitFor();
+    expect(new URL(page.url()).pathname).toBe(`/plans/${planId}/review`);
   });
 });
