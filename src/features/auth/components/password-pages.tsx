@@ -9,7 +9,7 @@ import { ErrorNotice, Notice } from "@/components/feedback";
 import { paths } from "@/app/paths";
 import { useCompleteReset, useRequestReset } from "../api/password-reset";
 import { AuthFrame } from "./auth-frame";
-import { isLinkProblem, LinkProblem } from "./link-problem";
+import { friendlierRateLimit, isLinkProblem, LinkProblem } from "./link-problem";
 
 export function ForgotPasswordPage() {
   const request = useRequestReset();
@@ -38,7 +38,12 @@ export function ForgotPasswordPage() {
               {...form.register("email")}
             />
           </Field>
-          {request.isError ? <ErrorNotice error={request.error} /> : null}
+          {request.isError ? (
+            <ErrorNotice
+              error={friendlierRateLimit(request.error)}
+              title="Could not send the reset link"
+            />
+          ) : null}
           <Button type="submit" disabled={request.isPending}>
             Send reset link
           </Button>

@@ -9,6 +9,7 @@ import { paths } from "@/app/paths";
 import { useSignIn } from "../api/sign-in";
 import { useMe } from "../api/me";
 import { AuthFrame } from "./auth-frame";
+import { friendlierRateLimit } from "./link-problem";
 
 /** Only same-app paths are followed after sign-in. */
 function safeNext(next: string | null): string {
@@ -57,7 +58,9 @@ export function SignInPage() {
             {...form.register("password")}
           />
         </Field>
-        {signIn.isError ? <ErrorNotice error={signIn.error} title="Could not sign in" /> : null}
+        {signIn.isError ? (
+          <ErrorNotice error={friendlierRateLimit(signIn.error)} title="Could not sign in" />
+        ) : null}
         <Button type="submit" disabled={signIn.isPending}>
           {signIn.isPending ? "Signing in…" : "Sign in"}
         </Button>

@@ -44,4 +44,23 @@ describe("SignInPage", () => {
     await waitFor(() => expect(router.state.location.pathname).toBe("/team"));
     expect(calls[0].body).toEqual({ email: "lead@example.test", password: "a long password" });
   });
+
+  it("turns the rate limit's seconds into minutes and points to the password reset", async () => {
+    stubFetch({
+      "POST /api/auth/sign-in": () => ({
+        status: 429,
+        body: {
+          error: { code: "rate_limited", message: "too many attempts; try again in 900 seconds" },
+        },
+      }),
+    });
+    renderWithApp(<SignInPage />, { me: null });
+    await userEvent.type(screen.getByLabelText("E-mail"), "lead@example.test");
+    await userEvent.type(screen.getByLabelText("Password"), "a password");
+    await userEvent.click(screen.getByRole("button", { name: "Sign in" }));
+    const alert = await screen.findByRole("alert");
+    expect(alert).toHaveTextContent("try again in 15 minutes");
+    expect(alert).toHaveTextContent("reset it instead");
+    expect(alert).not.toHaveTextContent("900 seconds");
+  });
 });
