@@ -235,14 +235,27 @@ export function parsePlanForm(
   return result.success ? result.data : null;
 }
 
-function localiseErrors(errors: unknown, units: UnitSystem): void {
+/**
+ * Restate each error for the boxes: SI limits in the box's units, and an empty box that must
+ * hold a number says so ("velocity is required") rather than "velocity must be a number".
+ * `values` is the form subtree at the same path as `errors`.
+ */
+function localiseErrors(errors: unknown, units: UnitSystem, values: unknown): void {
   if (!errors || typeof errors !== "object") return;
   for (const [key, value] of Object.entries(errors)) {
     // `ref` points at the DOM element: never walk into it.
     if (key === "ref" || !value || typeof value !== "object") continue;
+    const typed =
+      values && typeof values === "object" ? (values as Record<string, unknown>)[key] : undefined;
     const node = value as { message?: unknown };
-    if (typeof node.message === "string") node.message = localiseMessage(node.message, units);
-    localiseErrors(value, units);
+    if (typeof node.message === "string") {
+      const missing = /^(.+) must be a number$/.exec(node.message);
+      node.message =
+        missing && typeof typed === "string" && typed.trim() === ""
+          ? `${missing[1]} is required`
+          : localiseMessage(node.message, units);
+    }
+    localiseErrors(value, units, typed);
   }
 }
 
@@ -259,7 +272,7 @@ export function planFormResolver(
   >;
   return async (values, context, options) => {
     const result = await base(values, context, options);
-    localiseErrors(result.errors, units);
+    localiseErrors(result.errors, units, values);
     return result;
   };
 }

@@ -48,7 +48,7 @@ describe("PlanDesignerPage", () => {
     await upToDate();
     const velocity = screen.getByLabelText("Layer 2 velocity (m/s)");
     await userEvent.clear(velocity);
-    expect(await screen.findByText("velocity must be a number")).toBeVisible();
+    expect(await screen.findByText("velocity is required")).toBeVisible();
     expect(velocity).toHaveAttribute("aria-invalid", "true");
     await userEvent.type(velocity, "-5");
     expect(await screen.findByText("velocity must be > 0")).toBeVisible();
@@ -63,7 +63,9 @@ describe("PlanDesignerPage", () => {
     const added = screen.getByLabelText("Layer 3 velocity (m/s)");
     expect(added).toHaveValue("");
     expect(screen.getByLabelText("Layer 4 velocity (m/s)")).toHaveValue("3000");
-    expect(await screen.findByText("velocity must be a number")).toBeVisible();
+    // an empty box is "required", not "not a number"
+    expect(await screen.findByText("velocity is required")).toBeVisible();
+    expect(screen.queryByText("velocity must be a number")).toBeNull();
     await userEvent.type(added, "900");
     expect(
       await screen.findByText("layer 3 needs a thickness (only the last layer is a half-space)"),
