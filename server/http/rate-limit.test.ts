@@ -50,6 +50,16 @@ describe("SlidingWindowLimiter", () => {
     expect(caught).toBeInstanceOf(AppError);
     expect((caught as AppError).status).toBe(429);
     expect((caught as AppError).headers).toEqual({ "Retry-After": "50" });
+    expect((caught as AppError).message).toBe(
+      "Too many attempts: for your security, try again in a minute.",
+    );
     expect(() => assertNotLimited([[short, "other"]])).not.toThrow();
+  });
+
+  it("words a wait of more than a minute in whole minutes, rounded up", () => {
+    const c = clock();
+    const limiter = new SlidingWindowLimiter({ limit: 1, windowMs: 900_000 }, c.now);
+    limiter.hit("k");
+    expect(() => assertNotLimited([[limiter, "k"]])).toThrow("try again in 15 minutes.");
   });
 });

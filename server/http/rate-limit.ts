@@ -68,10 +68,11 @@ export class SlidingWindowLimiter {
 export function assertNotLimited(checks: [SlidingWindowLimiter, string][]): void {
   const wait = Math.max(0, ...checks.map(([limiter, key]) => limiter.retryAfter(key)));
   if (wait > 0) {
+    const when = wait <= 60 ? "in a minute" : `in ${Math.ceil(wait / 60)} minutes`;
     throw new AppError(
       429,
       "rate_limited",
-      `too many attempts; try again in ${wait} seconds`,
+      `Too many attempts: for your security, try again ${when}.`,
       undefined,
       { "Retry-After": String(wait) },
     );

@@ -61,18 +61,10 @@ export function LinkProblem({ error, kind }: { error: unknown; kind: "reset" | "
 }
 
 /**
- * The server's "too many attempts; try again in 900 seconds" in minutes, with what to do
- * meanwhile; any other error is returned as it is.
+ * A rate-limit refusal (the server words the wait) with what to do meanwhile; any other
+ * error is returned as it is.
  */
 export function friendlierRateLimit(error: unknown): unknown {
   if (!(error instanceof ApiError) || error.code !== "rate_limited") return error;
-  const seconds = Number(/(\d+) seconds?/.exec(error.message)?.[1]);
-  const wait = Number.isFinite(seconds)
-    ? seconds <= 60
-      ? "in a minute"
-      : `in ${Math.ceil(seconds / 60)} minutes`
-    : "later";
-  return new Error(
-    `Too many attempts: for your security, try again ${wait}. If you have forgotten the password, reset it instead.`,
-  );
+  return new Error(`${error.message} If you have forgotten the password, reset it instead.`);
 }

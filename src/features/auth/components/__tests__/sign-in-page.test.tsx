@@ -45,12 +45,15 @@ describe("SignInPage", () => {
     expect(calls[0].body).toEqual({ email: "lead@example.test", password: "a long password" });
   });
 
-  it("turns the rate limit's seconds into minutes and points to the password reset", async () => {
+  it("shows the rate limit's wait and points to the password reset", async () => {
     stubFetch({
       "POST /api/auth/sign-in": () => ({
         status: 429,
         body: {
-          error: { code: "rate_limited", message: "too many attempts; try again in 900 seconds" },
+          error: {
+            code: "rate_limited",
+            message: "Too many attempts: for your security, try again in 15 minutes.",
+          },
         },
       }),
     });
