@@ -30,6 +30,8 @@ function modelFrom(layers: { velocity: number; thickness: number; dip: number }[
 }
 
 describe("computeArrivals", () => {
+  // Direct wave t = x / v1; no head wave along a layer not faster than every layer above
+  // (Telford, Geldart & Sheriff 1990, §4.3).
   it("gives the direct wave t = x / v1 and no head wave along the slower layer 3", () => {
     const shot = computeArrivals(model, spread, 0);
     expect(shot.geophones).toHaveLength(48);

@@ -15,6 +15,7 @@ function linesFrom(defs: { t: number; p: number; c: number; exists?: boolean }[]
 }
 
 describe("firstArrivalPieces", () => {
+  // Crossover distance x = t_i / (1/v1 − 1/v2) (Kearey, Brooks & Hill 2002, ch. 5).
   it("switches from the direct wave to a head wave at the crossover distance", () => {
     // direct 1/500 s/m; head wave t = 0.02 + x/2000 → crossover 0.02 / (1/500 − 1/2000) = 13.33 m
     const lines = linesFrom([
@@ -27,6 +28,7 @@ describe("firstArrivalPieces", () => {
     expect(segmentHull(pieces, 1)).toEqual({ from: pieces.to[0], to: Infinity });
   });
 
+  // Critical distance x_crit = Σ 2 h_i tan θ_in (Telford, Geldart & Sheriff 1990, §4.3).
   it("starts a head wave at its critical distance when it is already earliest there", () => {
     const lines = linesFrom([
       { t: 0, p: 1 / 500, c: 0 },

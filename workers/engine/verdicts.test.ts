@@ -37,6 +37,8 @@ describe("verdicts", () => {
     expect(codes).toEqual([0, 0, 0]);
   });
 
+  // Blind layer: a head wave that is never the first arrival (Soske 1959; Kearey, Brooks &
+  // Hill 2002, ch. 5).
   it("calls a thin intermediate layer blind when its head wave is never first", () => {
     const codes = judge(
       [{ velocity: 500, thickness: 5 }, { velocity: 1500, thickness: 2 }, { velocity: 3000 }],
@@ -46,6 +48,8 @@ describe("verdicts", () => {
     expect(codes[2]).toBe(STATUS_CODE.resolved);
   });
 
+  // Velocity inversion: no head wave along a layer slower than one above it (Telford,
+  // Geldart & Sheriff 1990, §4.3).
   it("calls a slower layer under a faster one inverted", () => {
     const codes = judge(
       [{ velocity: 1500, thickness: 3 }, { velocity: 700, thickness: 5 }, { velocity: 3000 }],
@@ -54,6 +58,7 @@ describe("verdicts", () => {
     expect(codes[1]).toBe(STATUS_CODE.inverted);
   });
 
+  // At least two picks per segment to fit a line (common practice; three for a residual).
   it("calls a refractor under-sampled when its segment holds fewer geophones than the minimum", () => {
     // segment of layer 2: offsets 14.1 m to 18.2 m (4.0 m long)
     const layers = [
