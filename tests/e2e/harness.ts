@@ -24,14 +24,17 @@ export interface E2eApp {
 }
 
 export async function startApp(): Promise<E2eApp> {
-  if (!existsSync("dist/index.html"))
-    throw new Error("dist/ is missing: run `npm run build` before the e2e tests");
+  // SPREADSIGHT_CLIENT_DIR lets a developer test a private build (vite build --outDir …).
+  const clientDir = path.resolve(process.env.SPREADSIGHT_CLIENT_DIR ?? "dist");
+  if (!existsSync(path.join(clientDir, "index.html")))
+    throw new Error(`${clientDir} is missing: run \`npm run build\` before the e2e tests`);
   const dir = mkdtempSync(path.join(tmpdir(), "spreadsight-e2e-"));
   const server = await startServer({
     port: 0,
     dbPath: path.join(dir, "e2e.sqlite"),
     demo: true,
     serveClient: true,
+    clientDir,
   });
   return {
     url: server.url,
