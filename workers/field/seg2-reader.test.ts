@@ -4,7 +4,12 @@
 import { describe, expect, it } from "vitest";
 import { readSeg2 } from "./seg2-reader";
 import { Seg2Error } from "./seg2-error";
-import { writeSeg2, type WriterFormat, type WriterTrace } from "./__fixtures__/seg2-writer";
+import {
+  onesComplementWord,
+  writeSeg2,
+  type WriterFormat,
+  type WriterTrace,
+} from "./__fixtures__/seg2-writer";
 
 const orders = ["little", "big"] as const;
 
@@ -86,23 +91,47 @@ describe("readSeg2", () => {
     });
   }
 
-  it("decodes a hand-made 20-bit group: exponents in one word, then four mantissas", () => {
+  it("decodes a hand-made 20-bit group: exponents in one word, then four one's-complement mantissas", () => {
+    // Pullan (1990), data format code 3: per group of four samples one word of four 4-bit
+    // exponents, then four 16-bit mantissas in one's complement; value = mantissa · 2^exponent.
     // Exponent word 0x3210: sample 1 exponent 0, sample 2 → 1, sample 3 → 2, sample 4 → 3.
-    // Mantissas 100, -100, 7, -1 → values 100, -200, 28, -8.
+    // Mantissa words 0x0064 (+100), 0xFF9B (one's complement of 100 → −100), 0x0007 (+7) and
+    // 0xFFFF (one's complement of 0, "minus zero") → values 100, −200, 28, 0.
     const le = writeSeg2({
       byteOrder: "little",
       traces: [{ strings: ["SAMPLE_INTERVAL 0.001"], format: 3, samples: [0, 0, 0, 0] }],
     });
-    const group = [0x10, 0x32, 100, 0x00, 0x9c, 0xff, 0x07, 0x00, 0xff, 0xff];
+    const group = [0x10, 0x32, 100, 0x00, 0x9b, 0xff, 0x07, 0x00, 0xff, 0xff];
     le.set(group, le.length - 10);
-    expect(Array.from(readSeg2(le).traces[0].samples)).toEqual([100, -200, 28, -8]);
+    expect(Array.from(readSeg2(le).traces[0].samples)).toEqual([100, -200, 28, 0]);
 
     const be = writeSeg2({
       byteOrder: "big",
       traces: [{ strings: ["SAMPLE_INTERVAL 0.001"], format: 3, samples: [0, 0, 0, 0] }],
     });
-    be.set([0x32, 0x10, 0x00, 100, 0xff, 0x9c, 0x00, 0x07, 0xff, 0xff], be.length - 10);
-    expect(Array.from(readSeg2(be).traces[0].samples)).toEqual([100, -200, 28, -8]);
+    be.set([0x32, 0x10, 0x00, 100, 0xff, 0x9b, 0x00, 0x07, 0xff, 0xff], be.length - 10);
+    expect(Array.from(readSeg2(be).traces[0].samples)).toEqual([100, -200, 28, 0]);
+  });
+
+  it("reads 0xFF9C as −99 and 0x8000 as −32767 (one's complement, not two's)", () => {
+    // One's complement (Pullan 1990, format 3): 0xFF9C inverts to 0x0063 = 99; 0x8000 inverts
+    // to 0x7FFF = 32767. A two's-complement reading would give −100 and −32768.
+    const file = writeSeg2({
+      byteOrder: "little",
+      traces: [{ strings: ["SAMPLE_INTERVAL 0.001"], format: 3, samples: [0, 0, 0, 0] }],
+    });
+    file.set([0x00, 0x00, 0x9c, 0xff, 0x00, 0x80, 0x01, 0x00, 0xfe, 0xff], file.length - 10);
+    expect(Array.from(readSeg2(file).traces[0].samples)).toEqual([-99, -32767, 1, -1]);
+  });
+
+  it("the test writer's one's-complement words follow the standard's wording", () => {
+    // Inverting every bit of the magnitude (Pullan 1990): −1 → 0xFFFE, −100 → 0xFF9B,
+    // −32767 → 0x8000; positive values unchanged.
+    expect(onesComplementWord(-1)).toBe(0xfffe);
+    expect(onesComplementWord(-100)).toBe(0xff9b);
+    expect(onesComplementWord(-32767)).toBe(0x8000);
+    expect(onesComplementWord(32767)).toBe(0x7fff);
+    expect(() => onesComplementWord(-32768)).toThrow(RangeError);
   });
 
   it("reads a 20-bit trace whose sample count is not a multiple of four", () => {
@@ -179,12 +208,12 @@ describe("readSeg2", () => {
     expect(Array.from(readSeg2(padded.subarray(7)).traces[0].samples)).toEqual([4, 5]);
   });
 
-  it("reads a file with no traces", () => {
-    const record = readSeg2(
-      writeSeg2({ byteOrder: "little", fileStrings: ["NOTE empty"], traces: [] }),
+  it("refuses a file with no traces, saying so", () => {
+    const e = errorOf(() =>
+      readSeg2(writeSeg2({ byteOrder: "little", fileStrings: ["NOTE empty"], traces: [] })),
     );
-    expect(record.traces).toEqual([]);
-    expect(record.strings.NOTE).toBe("empty");
+    expect(e.offset).toBe(6);
+    expect(e.message).toMatch(/at least one trace.*found 0 traces/);
   });
 
   describe("errors", () => {
@@ -254,7 +283,19 @@ describe("readSeg2", () => {
       const file = good([
         { strings: ["SAMPLE_INTERVAL 0.001"], format: 2, samples: [1, 2], declaredDataSize: 4 },
       ]);
-      expect(errorOf(() => readSeg2(file)).expected).toMatch(/data block of at least 8 bytes/);
+      expect(errorOf(() => readSeg2(file)).expected).toMatch(
+        /data block size consistent with 2 samples in format 2 \(8 bytes\)/,
+      );
+    });
+
+    it("refuses a data block size larger than the samples fill", () => {
+      const file = good([
+        { strings: ["SAMPLE_INTERVAL 0.001"], format: 1, samples: [1, 2], declaredDataSize: 40 },
+      ]);
+      const e = errorOf(() => readSeg2(file));
+      expect(e.message).toMatch(
+        /consistent with 2 samples in format 1 \(4 bytes\), found 40 bytes/,
+      );
     });
 
     it("refuses a sample interval that is not a number, naming the string's offset", () => {

@@ -120,12 +120,15 @@ function decodeSamples(
     case 3:
       // 20-bit floating point: each group of 4 samples is five 16-bit words in the file's
       // byte order; word 0 holds the four 4-bit exponents (sample 1 in bits 0–3, sample 2 in
-      // bits 4–7, …), words 1–4 the signed 16-bit mantissas; value = mantissa · 2^exponent.
+      // bits 4–7, …), words 1–4 the 16-bit mantissas in one's complement (a negative value
+      // has every bit of its magnitude inverted, so 0xFFFF is −0); value = mantissa · 2^exponent.
       for (let i = 0; i < count; i++) {
         const group = start + Math.floor(i / 4) * 10;
         const k = i % 4;
         const exponent = (view.getUint16(group, le) >> (4 * k)) & 0x0f;
-        out[i] = view.getInt16(group + 2 + 2 * k, le) * 2 ** exponent;
+        const word = view.getUint16(group + 2 + 2 * k, le);
+        const mantissa = word & 0x8000 ? word - 0xffff : word;
+        out[i] = mantissa * 2 ** exponent;
       }
       break;
     case 4:
@@ -215,10 +218,12 @@ function readTraceHeader(
       `${available} bytes before the end of the file`,
     );
   }
-  if (declaredData < dataLength) {
+  // The data block size must agree with the sample count (a few bytes of padding to a 4-byte
+  // boundary are tolerated): a mismatch means the count, the format or the size is wrong.
+  if (declaredData < dataLength || declaredData > dataLength + 3) {
     throw new Seg2Error(
       pointer + 4,
-      `a data block of at least ${dataLength} bytes for ${samples} samples in format ${format}`,
+      `a data block size consistent with ${samples} samples in format ${format} (${dataLength} bytes)`,
       `${declaredData} bytes`,
     );
   }
@@ -259,6 +264,13 @@ export function readSeg2(input: ArrayBuffer | Uint8Array): Seg2Record {
   if (revision < 1) throw new Seg2Error(2, "a revision number of at least 1", String(revision));
   const pointerBlock = view.getUint16(4, le);
   const traceCount = view.getUint16(6, le);
+  if (traceCount === 0) {
+    throw new Seg2Error(
+      6,
+      "at least one trace (a SEG-2 record without traces holds no data)",
+      "0 traces",
+    );
+  }
   if (pointerBlock % 4 !== 0 || pointerBlock < 4 * traceCount) {
     throw new Seg2Error(
       4,

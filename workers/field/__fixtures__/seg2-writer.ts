@@ -98,13 +98,37 @@ function writeStrings(sink: ByteSink, strings: string[], terminator: number[]): 
   sink.u16(0);
 }
 
-/** Splits a value into a 4-bit exponent and a 16-bit mantissa, value = mantissa · 2^exponent. */
+/**
+ * Splits a value into a 4-bit exponent and a 16-bit mantissa, value = mantissa · 2^exponent.
+ * The mantissa is a one's-complement number (Pullan 1990, data format code 3), so its range is
+ * −32767…32767 (one's complement has no −32768).
+ */
 export function encode20Bit(value: number): { exponent: number; mantissa: number } {
   for (let e = 0; e < 16; e++) {
     const m = value / 2 ** e;
-    if (Number.isInteger(m) && m >= -32768 && m <= 32767) return { exponent: e, mantissa: m };
+    if (Number.isInteger(m) && m >= -32767 && m <= 32767) return { exponent: e, mantissa: m };
   }
   throw new RangeError(`${value} has no exact 20-bit SEG-2 form`);
+}
+
+/**
+ * The 16-bit one's-complement word of a mantissa, written from the standard's wording (Pullan
+ * 1990, format code 3: "mantissas in one's complement"): a positive mantissa is its binary
+ * value; a negative one is its magnitude with every one of the 16 bits inverted. Shares nothing
+ * with the reader.
+ */
+export function onesComplementWord(mantissa: number): number {
+  if (!Number.isInteger(mantissa) || Math.abs(mantissa) > 32767) {
+    throw new RangeError(`${mantissa} is not a 16-bit one's-complement mantissa`);
+  }
+  if (mantissa >= 0) return mantissa;
+  let word = 0;
+  const magnitude = -mantissa;
+  for (let bit = 0; bit < 16; bit++) {
+    const set = Math.floor(magnitude / 2 ** bit) % 2 === 1;
+    if (!set) word += 2 ** bit; // invert every bit of the magnitude
+  }
+  return word;
 }
 
 function writeSamples(
@@ -124,7 +148,7 @@ function writeSamples(
       );
       // Exponent of the first sample of the group in the lowest four bits of the first word.
       sink.u16(group.reduce((w, s, k) => w | (s.exponent << (4 * k)), 0));
-      for (const s of group) sink.u16(s.mantissa & 0xffff);
+      for (const s of group) sink.u16(onesComplementWord(s.mantissa));
     }
     return;
   }
