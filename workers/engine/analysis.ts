@@ -27,7 +27,12 @@ import {
   type Pieces,
 } from "./segments";
 import { STATUS_CODE, statusFromCode, worstStatus, type Status } from "./statuses";
-import { lineCovariance, pickStats, propagateUncertainty } from "./uncertainty";
+import {
+  directWaveCovariance,
+  lineCovariance,
+  pickStats,
+  propagateUncertainty,
+} from "./uncertainty";
 import {
   lastCrossover,
   maxSpacingFor,
@@ -381,7 +386,7 @@ function interpret(
   // least-squares pick uncertainty on the same segments
   const sigma = criteria.pickError;
   const directStats = pickStats(layout, primary.branch, primary.pieces, 0);
-  const directCov = lineCovariance(directStats, sigma, true);
+  const directCov = directWaveCovariance(directStats, sigma);
   const covs = layersSeen.map((m) =>
     lineCovariance(pickStats(layout, primary.branch, primary.pieces, m), sigma),
   );

@@ -4,7 +4,12 @@ import { earthFromModel } from "./geometry";
 import { prepareEarth } from "./head-waves";
 import { createPieces, firstArrivalPieces } from "./segments";
 import { branchOf, branchOffset, firstAtOrBeyond, countBetween } from "./branches";
-import { lineCovariance, pickStats, propagateUncertainty } from "./uncertainty";
+import {
+  directWaveCovariance,
+  lineCovariance,
+  pickStats,
+  propagateUncertainty,
+} from "./uncertainty";
 
 /** Seeded uniform generator (mulberry32) and normal deviates (Box–Muller). */
 function rng(seed: number) {
@@ -56,6 +61,17 @@ describe("lineCovariance", () => {
   });
 });
 
+describe("directWaveCovariance", () => {
+  it("fits the direct wave with a free intercept: σ_p² = σ²/Sxx, not σ²/Σx² (common practice)", () => {
+    // picks at x = 2, 4, 6, 8: Sxx = 20, Σx² = 120
+    const c = directWaveCovariance({ n: 4, sum: 20, sumSq: 120 }, 0.001);
+    expect(c.varSlowness).toBeCloseTo(1e-6 / 20, 18);
+    expect(c.varSlowness).toBeGreaterThan(
+      lineCovariance({ n: 4, sum: 20, sumSq: 120 }, 0.001, true).varSlowness,
+    );
+  });
+});
+
 describe("propagateUncertainty", () => {
   it("agrees with a seeded Monte Carlo simulation of noisy picks within 8 %", () => {
     const layers = [
@@ -87,7 +103,7 @@ describe("propagateUncertainty", () => {
       slowness: lines.slowness[m],
     }));
     const covs = [1, 2].map((m) => lineCovariance(pickStats(layout, branch, pieces, m), sigma));
-    const directVar = lineCovariance(pickStats(layout, branch, pieces, 0), sigma, true).varSlowness;
+    const directVar = directWaveCovariance(pickStats(layout, branch, pieces, 0), sigma).varSlowness;
     const predicted = propagateUncertainty(lines.slowness[0], directVar, observed, covs);
 
     const normal = rng(20240611);
@@ -96,10 +112,16 @@ describe("propagateUncertainty", () => {
     const v2: number[] = [];
     for (let t = 0; t < trials; t++) {
       const fits = [0, 1, 2].map((m) => {
+        // A 2 ms trigger delay on every pick: the free intercepts absorb it (common practice).
         const ts = offsets[m].map(
-          (x) => lines.intercept[m] * (m === 0 ? 0 : 1) + lines.slowness[m] * x + sigma * normal(),
+          (x) =>
+            0.002 +
+            lines.intercept[m] * (m === 0 ? 0 : 1) +
+            lines.slowness[m] * x +
+            sigma * normal(),
         );
-        return fit(offsets[m], ts, m === 0);
+        const f = fit(offsets[m], ts, false);
+        return { intercept: f.intercept - 0.002, slowness: f.slowness };
       });
       const r = interceptTimeMethod(fits[0].slowness, fits.slice(1));
       depths[0].push(r.depths[0]);

@@ -2,8 +2,10 @@
  * Pick uncertainty: a first-break pick error σ_t (s, independent per geophone) propagated
  * by least squares to the velocities and depths of the intercept-time interpretation.
  *
- * Each resolved segment is fitted by a straight line t = τ + p·x through its picks
- * (the direct wave through the origin, as its intercept is the shot time). The line
+ * Each resolved segment is fitted by a straight line t = τ + p·x through its picks. The
+ * direct wave too is fitted with a free intercept: field picks carry a trigger delay (the
+ * time between the shot and the recorder's zero), and forcing the line through the origin
+ * would make its slowness look 40–80 % better determined than it is. The line
  * covariances follow from ordinary least squares; depths depend on all lines above them,
  * and their variance is J C Jᵀ with J the Jacobian of the intercept-time depths (central
  * differences). Velocity σ_v = σ_p / p².
@@ -77,6 +79,15 @@ export function lineCovariance(
     varSlowness: s2 / sxx,
     covariance: (-s2 * mean) / sxx,
   };
+}
+
+/**
+ * Covariance of the direct-wave line t = τ_0 + x/v_1 fitted with a free intercept τ_0 (the
+ * trigger delay, s), from picks with error `sigma` (s). Only its slowness variance enters the
+ * depths; the intercept absorbs the delay instead of biasing the slowness.
+ */
+export function directWaveCovariance(stats: PickStats, sigma: number): LineCovariance {
+  return lineCovariance(stats, sigma, false);
 }
 
 /** Standard deviations of the interpreted velocities (top layer first) and refractor depths. */

@@ -9,6 +9,7 @@ import { localOutliers, misfitWarnings, straightPieces } from "./misfit-pattern"
 import { groupByShotSide, shotSidePoints, type ObservedPick } from "./field-picks";
 import { firstArrival, interceptTime, type TestLayer } from "./__fixtures__/flat-layers";
 import { seededNormal } from "./__fixtures__/random";
+import { lineCovariance, propagateUncertainty } from "../engine/uncertainty";
 
 function picksFrom(
   layers: TestLayer[],
@@ -227,6 +228,92 @@ describe("interceptTimeDepths", () => {
       6,
     );
     expect(one.layers[1].depthError).toBeCloseTo(one.layers[0].thicknessError ?? -1, 9);
+  });
+
+  it("depth ± keeps each fit's slope–intercept covariance: agrees with a seeded repetition and with the planner", () => {
+    // Two layers, picks every 2 m, σ_t = 0.5 ms. Independent check: repeat the whole reading
+    // (two least-squares fits → intercept-time depth) 3000 times with seeded noise and take the
+    // spread of the depths (a brute-force Monte Carlo written here). The planner's propagation
+    // (workers/engine/uncertainty.ts, J C Jᵀ with the full covariance) must agree too.
+    const layers: TestLayer[] = [{ velocity: 500, thickness: 6 }, { velocity: 2200 }];
+    const t = firstArrival(layers);
+    const sigmaT = 0.0005;
+    const direct = [2, 4, 6, 8, 10, 12];
+    const head = Array.from({ length: 14 }, (_, i) => 24 + 4 * i);
+    const noise = seededNormal(77);
+    const depths: number[] = [];
+    let last: ReturnType<typeof interceptTimeDepths> | null = null;
+    const lsq = (xs: number[], ts: number[]) => {
+      const n = xs.length;
+      const mx = xs.reduce((a, b) => a + b, 0) / n;
+      const mt = ts.reduce((a, b) => a + b, 0) / n;
+      let sxx = 0;
+      let sxt = 0;
+      xs.forEach((x, i) => {
+        sxx += (x - mx) ** 2;
+        sxt += (x - mx) * (ts[i] - mt);
+      });
+      const p = sxt / sxx;
+      return { p, tau: mt - p * mx, mx, sxx, n };
+    };
+    for (let r = 0; r < 3000; r++) {
+      const a = lsq(
+        direct,
+        direct.map((x) => t(0, x) + sigmaT * noise()),
+      );
+      const b = lsq(
+        head,
+        head.map((x) => t(0, x) + sigmaT * noise()),
+      );
+      const cov = (f: typeof a) => ({
+        velocityError: Math.sqrt(sigmaT ** 2 / f.sxx) / f.p ** 2,
+        interceptError: Math.sqrt(sigmaT ** 2 * (1 / f.n + f.mx ** 2 / f.sxx)),
+        velocityInterceptCovariance: (sigmaT ** 2 * f.mx) / f.sxx / f.p ** 2,
+      });
+      last = interceptTimeDepths([
+        { velocity: 1 / a.p, intercept: a.tau, ...cov(a) },
+        { velocity: 1 / b.p, intercept: b.tau, ...cov(b) },
+      ]);
+      if (last.ok) depths.push(last.layers[1].depth);
+    }
+    expect(depths.length).toBe(3000);
+    const mean = depths.reduce((x, y) => x + y, 0) / depths.length;
+    const spread = Math.sqrt(depths.reduce((x, y) => x + (y - mean) ** 2, 0) / (depths.length - 1));
+    if (!last?.ok) throw new Error("no interpretation");
+    const predicted = last.layers[1].depthError ?? NaN;
+    // First-order propagation against the Monte Carlo spread: within 10 % (3000 draws give the
+    // spread to about ±1.3 %; the rest is the linearisation).
+    expect(predicted / spread).toBeGreaterThan(0.9);
+    expect(predicted / spread).toBeLessThan(1.1);
+    // The planner's propagation of the same lines and σ_t (free direct-wave intercept).
+    const stats = (xs: number[]) => ({
+      n: xs.length,
+      sum: xs.reduce((x, y) => x + y, 0),
+      sumSq: xs.reduce((x, y) => x + y * y, 0),
+    });
+    const exact = [{ intercept: interceptTime(layers, 1), slowness: 1 / 2200 }];
+    const planner = propagateUncertainty(
+      1 / 500,
+      lineCovariance(stats(direct), sigmaT).varSlowness,
+      exact,
+      [lineCovariance(stats(head), sigmaT)],
+    );
+    const exactReading = interceptTimeDepths([
+      {
+        velocity: 500,
+        intercept: 0,
+        velocityError: Math.sqrt(sigmaT ** 2 / lsq(direct, direct).sxx) * 500 ** 2,
+      },
+      {
+        velocity: 2200,
+        intercept: exact[0].intercept,
+        velocityError: Math.sqrt(lineCovariance(stats(head), sigmaT).varSlowness) * 2200 ** 2,
+        interceptError: Math.sqrt(lineCovariance(stats(head), sigmaT).varIntercept),
+        velocityInterceptCovariance: -lineCovariance(stats(head), sigmaT).covariance * 2200 ** 2,
+      },
+    ]);
+    if (!exactReading.ok) throw new Error(exactReading.reason);
+    expect(exactReading.layers[1].depthError).toBeCloseTo(planner.depthSigma[0], 4);
   });
 
   it("refuses velocities that do not increase, and segments that imply a negative thickness", () => {

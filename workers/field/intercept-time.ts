@@ -6,8 +6,10 @@
  * solved layer by layer for the thicknesses:
  *   h_{n−1} = (t_i,n − Σ_{i<n−1} 2 h_i cos θ_in / v_i) · v_{n−1} / (2 cos θ_{n−1,n});
  * for two layers h_1 = t_i v_1 v_2 / (2 √(v_2² − v_1²)).
- * Standard errors are propagated to first order from the segments' own errors, taken as
- * independent.
+ * Standard errors are propagated to first order (J C Jᵀ) from each segment's least-squares
+ * covariance: a segment's velocity and intercept come from one line fit and are correlated, so
+ * their covariance is kept (as the planner does, workers/engine/uncertainty.ts); different
+ * segments are independent.
  */
 
 /** One straight segment of the time–offset plot, as fitted. */
@@ -18,6 +20,8 @@ export interface InterpretedSegment {
   intercept: number;
   velocityError?: number | null;
   interceptError?: number | null;
+  /** Covariance of velocity and intercept from the same line fit, m (m/s · s); 0 when absent. */
+  velocityInterceptCovariance?: number | null;
 }
 
 /** One layer of the interpretation. */
@@ -82,18 +86,15 @@ export function interceptTimeDepths(segments: readonly InterpretedSegment[]): In
   const h = thicknesses(v, t);
   if (typeof h === "string") return { ok: false, reason: h };
 
-  // First-order propagation by central differences over each segment's velocity and intercept.
+  // First-order propagation: Jacobians of thicknesses and depths over each segment's velocity
+  // and intercept by central differences, then J C Jᵀ with C the segment's 2×2 covariance.
   const n = v.length;
   const varH = new Array<number>(n - 1).fill(0);
   const varDepth = new Array<number>(n).fill(0);
   let propagated = false;
-  const perturb = (
-    values: number[],
-    k: number,
-    sigma: number | null | undefined,
-    isVelocity: boolean,
-  ) => {
-    if (sigma === null || sigma === undefined || !(sigma > 0)) return true;
+  let complete = true;
+  const derivative = (k: number, isVelocity: boolean): number[] | null => {
+    const values = isVelocity ? v : t;
     const step = Math.max(Math.abs(values[k]) * 1e-6, 1e-9);
     const up = values.slice();
     const down = values.slice();
@@ -101,23 +102,32 @@ export function interceptTimeDepths(segments: readonly InterpretedSegment[]): In
     down[k] -= step;
     const hu = isVelocity ? thicknesses(up, t) : thicknesses(v, up);
     const hd = isVelocity ? thicknesses(down, t) : thicknesses(v, down);
-    if (typeof hu === "string" || typeof hd === "string") return false;
-    let depthU = 0;
-    let depthD = 0;
+    if (typeof hu === "string" || typeof hd === "string") return null;
+    return hu.map((_, j) => (hu[j] - hd[j]) / (2 * step));
+  };
+  const positive = (x: number | null | undefined): number =>
+    x === null || x === undefined || !(x > 0) ? 0 : x;
+  segments.forEach((s, k) => {
+    const sv = positive(s.velocityError);
+    const st = positive(s.interceptError);
+    if (sv === 0 && st === 0) return;
+    const cvt = sv > 0 && st > 0 ? (s.velocityInterceptCovariance ?? 0) : 0;
+    const dv = sv > 0 ? derivative(k, true) : new Array<number>(n - 1).fill(0);
+    const dt = st > 0 ? derivative(k, false) : new Array<number>(n - 1).fill(0);
+    if (!dv || !dt) {
+      complete = false;
+      return;
+    }
+    let depthDv = 0;
+    let depthDt = 0;
     for (let j = 0; j < n - 1; j++) {
-      const dh = (hu[j] - hd[j]) / (2 * step);
-      varH[j] += (dh * sigma) ** 2;
-      depthU += hu[j];
-      depthD += hd[j];
-      varDepth[j + 1] += (((depthU - depthD) / (2 * step)) * sigma) ** 2;
+      varH[j] += dv[j] ** 2 * sv ** 2 + 2 * dv[j] * dt[j] * cvt + dt[j] ** 2 * st ** 2;
+      depthDv += dv[j];
+      depthDt += dt[j];
+      varDepth[j + 1] +=
+        depthDv ** 2 * sv ** 2 + 2 * depthDv * depthDt * cvt + depthDt ** 2 * st ** 2;
     }
     propagated = true;
-    return true;
-  };
-  let complete = true;
-  segments.forEach((s, k) => {
-    complete = perturb(v, k, s.velocityError, true) && complete;
-    complete = perturb(t, k, s.interceptError, false) && complete;
   });
   const haveErrors = propagated && complete;
 
@@ -128,9 +138,9 @@ export function interceptTimeDepths(segments: readonly InterpretedSegment[]): In
       velocity: v[k],
       velocityError: segments[k].velocityError ?? null,
       depth,
-      depthError: k === 0 ? 0 : haveErrors ? Math.sqrt(varDepth[k]) : null,
+      depthError: k === 0 ? 0 : haveErrors ? Math.sqrt(Math.max(0, varDepth[k])) : null,
       thickness: k < n - 1 ? h[k] : null,
-      thicknessError: k < n - 1 && haveErrors ? Math.sqrt(varH[k]) : null,
+      thicknessError: k < n - 1 && haveErrors ? Math.sqrt(Math.max(0, varH[k])) : null,
     });
     if (k < n - 1) depth += h[k];
   }

@@ -30,6 +30,12 @@ export type SegmentFit =
       slopeError: number | null;
       interceptError: number | null;
       velocityError: number | null;
+      /**
+       * Covariance of slope and intercept of the one fit, s²/m (−s² x̄ / Sxx); null with 2 picks.
+       */
+      slopeInterceptCovariance: number | null;
+      /** The same as a covariance of velocity and intercept, m (−cov / slope²); null with 2 picks. */
+      velocityInterceptCovariance: number | null;
       /** RMS of the residuals about the line, s. */
       rms: number;
     }
@@ -103,6 +109,8 @@ export function fitSegment(
     slopeError,
     interceptError: s2 === null ? null : Math.sqrt(s2 * (1 / n + (mx * mx) / sxx)),
     velocityError: slopeError === null ? null : slopeError / (slope * slope),
+    slopeInterceptCovariance: s2 === null ? null : (-s2 * mx) / sxx,
+    velocityInterceptCovariance: s2 === null ? null : (s2 * mx) / sxx / (slope * slope),
     rms: Math.sqrt(sse / n),
   };
 }

@@ -114,6 +114,7 @@ export function readSegments(
             intercept: f.intercept,
             velocityError: f.velocityError,
             interceptError: f.interceptError,
+            velocityInterceptCovariance: f.velocityInterceptCovariance,
           })),
         )
       : null;
