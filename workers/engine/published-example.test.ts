@@ -3,8 +3,9 @@
  * Geldart & Sheriff (2004), Problems in Exploration Seismology and their Solutions (SEG),
  * problem 11.3 "Effect of a hidden layer". Its velocity–depth table (seven flat layers with two
  * low-velocity zones) is used as printed; the solution states that the 3650 m/s shale and the
- * 5000 m/s zone are hidden layers and that "the 5750 m/s curve will be responsible for first
- * breaks for only 1.30 km".
+ * 5000 m/s zone are hidden layers and gives the first-arrival window of the 5750 m/s head
+ * wave as 1.30 km; the closed forms give 1.398 km (see the window test for what we could and
+ * could not reproduce).
  */
 import { describe, expect, it } from "vitest";
 import { analyzePlan, parsePlan } from "./index";
@@ -59,21 +60,25 @@ describe("Geldart & Sheriff (2004) problem 11.3, effect of a hidden layer", () =
     expect(byLayer(5).headWave).toBe(false);
   });
 
-  it("gives the 5750 m/s head wave a first-arrival window close to the printed 1.30 km", () => {
+  it("gives the 5750 m/s head wave the first-arrival window of the closed forms (1.398 km)", () => {
     const segment = byLayer(4).segment;
     expect(segment).not.toBeNull();
     expect(segment!.to).not.toBeNull();
     const window = segment!.to! - segment!.from;
-    // Unrounded closed forms give 1.398 km. The window is the difference of two crossover
-    // distances, each the quotient of an intercept-time difference by a slowness difference of
-    // about 2e-5 s/m, so rounding the intercept times to the millisecond (as a printed
-    // solution does) moves it by up to about ±0.1 km: tolerance 0.15 km.
-    expect(Math.abs(window - 1300)).toBeLessThan(150);
-    // And exactly the window the closed-form crossover distances give (Kearey et al. 2002 ch. 5).
+    // Closed-form crossover distances (Kearey et al. 2002 ch. 5) from the closed-form intercept
+    // times above: the window is x47 − x24, which for the printed table is 1398.2 m.
     const x24 = (interceptTime(4) - interceptTime(2)) / (1 / 5150 - 1 / 5750);
     const x47 = (interceptTime(7) - interceptTime(4)) / (1 / 5750 - 1 / 6400);
     expect(segment!.from).toBeCloseTo(x24, 6);
     expect(segment!.to!).toBeCloseTo(x47, 6);
+    expect(window).toBeCloseTo(x47 - x24, 6);
+    expect(Math.abs(window - 1398.2)).toBeLessThan(0.5);
+    // The printed solution says 1.30 km. We could not reproduce that figure: rounding the
+    // intercept times to 1 ms moves the window to 1.436 km (away from 1.30), to 2 ms gives
+    // 1.379 km; the printed value is most likely read off a plotted graph. So the test holds the
+    // engine to the closed form above and only records that the printed value is 7 % below it.
+    expect(Math.abs(window - 1300) / window).toBeGreaterThan(0.06);
+    expect(Math.abs(window - 1300) / window).toBeLessThan(0.08);
   });
 
   it("reads the first refractor right and puts the refractors under the missed inversions too deep", () => {
