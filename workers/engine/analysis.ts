@@ -11,12 +11,8 @@ import { layoutExtent, type Branch, type Layout, type Side } from "./branches";
 import { checkedEarth, interfaceDepth, type Earth } from "./geometry";
 import { linesFor, prepareEarth, type PreparedEarth } from "./head-waves";
 import { createLineSet, type LineSet } from "./lines";
-import {
-  crossoverMethod,
-  interceptTimeMethod,
-  recoverDip,
-  type ObservedLine,
-} from "./interpretation";
+import { crossoverMethod, interceptTimeMethod, type ObservedLine } from "./interpretation";
+import { recoverDipLayered } from "./dip-recovery";
 import { degrees, finiteOrNull } from "./numbers";
 import type { Criteria, GroundModel, Plan } from "./plan-schema";
 import {
@@ -416,9 +412,10 @@ function interpret(
 
 /**
  * Reversed pairs: a forward branch of shot A and a reverse branch of shot B with B beyond A,
- * both resolving the refractor; the widest pair is used. The velocity above a refractor is
- * the recovered velocity of the nearest shallower refractor (from its own pair), or the
- * direct-wave velocity `v0`.
+ * both resolving the refractor; the widest pair is used. Velocity and dip are recovered
+ * layer by layer through the recovered interfaces above (Adachi 1954; Johnson 1976; see
+ * dip-recovery.ts), starting from the direct-wave velocity `v0`; they are null for a refractor
+ * under one whose own velocity and dip could not be recovered.
  */
 function dipChecks(earth: Earth, states: BranchState[], v0: number): DipCheck[] {
   const n = earth.layerCount;
@@ -427,6 +424,9 @@ function dipChecks(earth: Earth, states: BranchState[], v0: number): DipCheck[] 
   const reverse = states.filter((s) => s.branch.side === "reverse");
   let vAbove = v0;
   let twoLayer = true;
+  // Recovered layers above the current refractor (Adachi 1954; Johnson 1976): velocities top
+  // first and the dips of the interfaces between them; null once a refractor above has no pair.
+  let upper: { velocities: number[]; dips: number[] } | null = { velocities: [v0], dips: [] };
   for (let m = 1; m < n; m++) {
     let best: [BranchState, BranchState] | null = null;
     for (const a of forward) {
@@ -437,9 +437,14 @@ function dipChecks(earth: Earth, states: BranchState[], v0: number): DipCheck[] 
         if (!best || width > best[1].branch.shot - best[0].branch.shot) best = [a, b];
       }
     }
-    if (!best) continue;
+    if (!best) {
+      upper = null;
+      continue;
+    }
     const [a, b] = best;
-    const recovered = recoverDip(vAbove, a.lines.slowness[m], b.lines.slowness[m]);
+    const recovered = upper
+      ? recoverDipLayered(upper.velocities, upper.dips, a.lines.slowness[m], b.lines.slowness[m])
+      : null;
     const xa = a.branch.shot;
     const xb = b.branch.shot;
     const span = xb - xa;
@@ -476,10 +481,14 @@ function dipChecks(earth: Earth, states: BranchState[], v0: number): DipCheck[] 
         observable: span >= a.lines.start[m] && span >= b.lines.start[m],
       },
     });
-    if (recovered) {
+    if (recovered && upper) {
       vAbove = recovered.velocity;
       twoLayer = false;
-    }
+      upper = {
+        velocities: [...upper.velocities, recovered.velocity],
+        dips: [...upper.dips, recovered.dip],
+      };
+    } else upper = null;
   }
   return checks;
 }
