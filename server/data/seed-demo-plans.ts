@@ -312,7 +312,7 @@ async function approvedPlan(c: Ctx, siteId: string) {
     anchor: "refractor 1",
     mentions: 1,
   });
-  await notifyDemo(c, t.thread, "lead", "reviewer", "mention", id, `mentioned you in a comment on “${name}”.`, true);
+  await notifyDemo(c, t.thread, "lead", "reviewer", "mention", id, `mentioned you in a review note on “${name}”.`, true);
   const note =
     "Tighten the spacing so the weathered sandstone is well sampled, and add a centre shot so it is reversed.";
   await audit(c, t.requested, "reviewer", "plan.request_changes", id, {
@@ -322,7 +322,7 @@ async function approvedPlan(c: Ctx, siteId: string) {
     to: "changes-requested",
     note,
   });
-  await notifyDemo(c, t.requested, "lead", "reviewer", "decision", id, `requested changes to “${name}” (revision 1). Note: ${note}`, true);
+  await notifyDemo(c, t.requested, "lead", "reviewer", "decision", id, `returned with notes “${name}” (revision 1). Note: ${note}`, true);
   const reply = await comment(c, {
     planId: id,
     revision: 1,
@@ -339,7 +339,7 @@ async function approvedPlan(c: Ctx, siteId: string) {
     anchor: null,
     mentions: 0,
   });
-  await notifyDemo(c, t.reply, "reviewer", "lead", "reply", id, `replied in a comment thread on “${name}”.`, true);
+  await notifyDemo(c, t.reply, "reviewer", "lead", "reply", id, `replied to a review note on “${name}”.`, true);
   await audit(c, t.saved, "lead", "plan.save", id, {
     name,
     revision: 2,
@@ -381,7 +381,7 @@ async function approvedPlan(c: Ctx, siteId: string) {
     to: "approved",
     note: approval,
   });
-  await notifyDemo(c, t.approved, "lead", "reviewer", "decision", id, `approved “${name}” (revision 2). Note: ${approval}`, false);
+  await notifyDemo(c, t.approved, "lead", "reviewer", "decision", id, `signed off for mobilisation “${name}” (revision 2). Note: ${approval}`, false);
 }
 
 /** Inserts the demo plans unless the demo team already has plans. Returns whether it did. */

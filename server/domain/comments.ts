@@ -232,7 +232,7 @@ async function commentNotifications(
     actor,
     kind: "mention",
     recipients: mentions,
-    text: `${actor.name} mentioned you in a comment on “${plan.name}”.`,
+    text: `${actor.name} mentioned you in a review note on “${plan.name}”.`,
   });
   if (!root) return mail;
   const replies = await manager
@@ -247,7 +247,7 @@ async function commentNotifications(
     actor,
     kind: "reply",
     recipients: participants,
-    text: `${actor.name} replied in a comment thread on “${plan.name}”.`,
+    text: `${actor.name} replied to a review note on “${plan.name}”.`,
   });
   return [...mail, ...replyMail];
 }

@@ -22,8 +22,8 @@ import { exportablePlan, fileSlug } from "./exports";
 /** Review steps of the workflow as they read in the report. */
 const REVIEW_LABELS: Record<string, string> = {
   "plan.submit": "Submitted for review",
-  "plan.approve": "Approved",
-  "plan.request_changes": "Changes requested",
+  "plan.approve": "Signed off for mobilisation",
+  "plan.request_changes": "Returned to the lead with notes",
   "plan.reopen": "Reopened",
 };
 

@@ -46,14 +46,14 @@ export const WORKFLOW: Record<WorkflowStep, StepRule> = {
     to: "approved",
     roles: ["admin", "reviewer"],
     action: "plan.approve",
-    verb: "approved",
+    verb: "signed off for mobilisation",
   },
   "request-changes": {
     from: ["in-review"],
     to: "changes-requested",
     roles: ["admin", "reviewer"],
     action: "plan.request_changes",
-    verb: "requested changes to",
+    verb: "returned with notes",
   },
   reopen: {
     from: ["approved"],

@@ -102,7 +102,7 @@ describe("notifications on submit and decision", () => {
       .send({ note: "Add an off-end shot at 110 m." });
     const entry = (await inbox(api.lead)).find((n) => n.planId === plan.id)!;
     expect(entry.kind).toBe("decision");
-    expect(entry.text).toContain("requested changes");
+    expect(entry.text).toContain("returned with notes");
     expect(entry.text).toContain("Add an off-end shot at 110 m.");
     const [message] = await mailFor(team.users.lead.email, plan.name);
     expect(message.subject).toBe(`Review decision: ${plan.name}`);

@@ -135,11 +135,11 @@ function titleBlock(w: ReportWriter, input: PlanReportInput): void {
   const approved = input.approval;
   if (approved) {
     w.callout(
-      `Approved by ${approved.by} on ${when(approved.at)} (revision ${approved.revision})${approved.revision === input.plan.revision ? "" : `; this report shows revision ${input.plan.revision}, which is not the approved one`}.`,
+      `Signed off for mobilisation by ${approved.by} on ${when(approved.at)} (revision ${approved.revision})${approved.revision === input.plan.revision ? "" : `; this report shows revision ${input.plan.revision}, which is not the signed-off one`}.`,
       approved.revision === input.plan.revision ? "ok" : "caution",
     );
   } else {
-    w.callout(`Not approved. Status: ${input.plan.status}.`, "caution");
+    w.callout(`Not signed off. Status: ${input.plan.status}.`, "caution");
   }
 }
 
@@ -395,11 +395,11 @@ function reviewHistory(w: ReportWriter, input: PlanReportInput): void {
   w.heading(REPORT_SECTIONS[8]);
   if (input.approval) {
     w.callout(
-      `Approved by ${input.approval.by} on ${when(input.approval.at)}, revision ${input.approval.revision}${input.approval.note ? `: "${input.approval.note}"` : "."}`,
+      `Signed off for mobilisation by ${input.approval.by} on ${when(input.approval.at)}, revision ${input.approval.revision}${input.approval.note ? `: "${input.approval.note}"` : "."}`,
       "ok",
     );
   } else {
-    w.callout(`This plan has not been approved (status: ${input.plan.status}).`, "caution");
+    w.callout(`This plan has not been signed off for mobilisation (status: ${input.plan.status}).`, "caution");
   }
   w.subheading("Review");
   if (input.review.length === 0) w.paragraph("No review steps recorded.", { color: ink.soft });

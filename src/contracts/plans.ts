@@ -19,8 +19,8 @@ export type PlanStatus = (typeof PLAN_STATUSES)[number];
 export const PLAN_STATUS_LABELS: Record<PlanStatus, string> = {
   draft: "Draft",
   "in-review": "In review",
-  "changes-requested": "Changes requested",
-  approved: "Approved",
+  "changes-requested": "Returned with notes",
+  approved: "Signed off",
   archived: "Archived",
 };
 

@@ -55,7 +55,7 @@ async function unreadCount(page: Page): Promise<number> {
   const link = page.getByRole("link", { name: /^Inbox/ });
   await link.waitFor();
   const label = (await link.getAttribute("aria-label")) ?? "";
-  return Number(/, (\d+) unread$/.exec(label)?.[1] ?? 0);
+  return Number(/, (\d+) new$/.exec(label)?.[1] ?? 0);
 }
 
 /** Reloads until the header shows `count` unread notices (they arrive with the next poll). */
@@ -69,7 +69,7 @@ async function waitForUnread(page: Page, count: number) {
 }
 
 const unreadNotice = (page: Page, text: string) =>
-  page.getByRole("button", { name: `Unread: ${text}` });
+  page.getByRole("button", { name: `New: ${text}` });
 
 async function openReview(page: Page) {
   await page.goto(reviewUrl());
@@ -118,7 +118,7 @@ describe("team review in the browser", () => {
     await statusBadge(page, "In review").waitFor();
 
     // A comment anchored to the spread's first shot, mentioning the lead through the suggestions.
-    const box = page.getByRole("combobox", { name: "New comment" });
+    const box = page.getByRole("combobox", { name: "New note" });
     await box.click();
     await box.pressSequentially("@Tob");
     await page.getByRole("option", { name: new RegExp(LEAD_NAME) }).waitFor();
@@ -132,20 +132,20 @@ describe("team review in the browser", () => {
     );
     expect(firstShot).toBeTruthy();
     await pointsAt.selectOption({ label: firstShot! });
-    await page.getByRole("button", { name: "Post comment" }).click();
-    const thread = page.getByRole("article", { name: `Thread started by ${REVIEWER_NAME}` });
+    await page.getByRole("button", { name: "Post note" }).click();
+    const thread = page.getByRole("article", { name: `Note started by ${REVIEWER_NAME}` });
     await thread.getByText(`@${LEAD_NAME}`).waitFor();
     await thread.getByText(firstShot!).waitFor();
     expect(await pointsAt.inputValue()).toBe("");
 
-    await page.getByRole("button", { name: "↺ Request changes" }).click();
+    await page.getByRole("button", { name: "↺ Return to lead with notes" }).click();
     await page.getByText("say what needs to change").waitFor();
     await screenshot(page, "review-reviewer-note-required");
     await page
       .getByLabel("Note for the survey lead")
       .fill("Halve the geophone spacing and keep the spread length.");
-    await page.getByRole("button", { name: "↺ Request changes" }).click();
-    await statusBadge(page, "Changes requested").waitFor();
+    await page.getByRole("button", { name: "↺ Return to lead with notes" }).click();
+    await statusBadge(page, "Returned with notes").waitFor();
     await page.getByLabel("Latest note").getByText("Halve the geophone spacing").waitFor();
     await screenshot(page, "review-reviewer-changes-requested");
   });
@@ -154,15 +154,15 @@ describe("team review in the browser", () => {
     const { page } = lead;
     await waitForUnread(page, leadUnread + 2);
     await page.getByRole("link", { name: /^Inbox/ }).click();
-    await unreadNotice(page, `${REVIEWER_NAME} mentioned you in a comment on “${PLAN}”`).waitFor();
-    const decision = unreadNotice(page, `${REVIEWER_NAME} requested changes to “${PLAN}”`);
+    await unreadNotice(page, `${REVIEWER_NAME} mentioned you in a review note on “${PLAN}”`).waitFor();
+    const decision = unreadNotice(page, `${REVIEWER_NAME} returned with notes “${PLAN}”`);
     await decision.waitFor();
     await screenshot(page, "review-lead-inbox");
     await decision.click();
     await page.getByRole("heading", { name: `Review: ${PLAN}` }).waitFor();
-    await statusBadge(page, "Changes requested").waitFor();
+    await statusBadge(page, "Returned with notes").waitFor();
 
-    const thread = page.getByRole("article", { name: `Thread started by ${REVIEWER_NAME}` });
+    const thread = page.getByRole("article", { name: `Note started by ${REVIEWER_NAME}` });
     await thread.getByRole("button", { name: "Reply" }).click();
     await thread
       .getByRole("combobox", { name: `Reply to ${REVIEWER_NAME}` })
@@ -209,28 +209,28 @@ describe("team review in the browser", () => {
   it("tells the reviewer again, who approves; the lead then sees the approval and may reopen", async () => {
     const rp = reviewer.page;
     await rp.goto(`${app.url}/inbox`);
-    await unreadNotice(rp, `${LEAD_NAME} replied in a comment thread on “${PLAN}”`).waitFor();
+    await unreadNotice(rp, `${LEAD_NAME} replied to a review note on “${PLAN}”`).waitFor();
     await unreadNotice(rp, `${LEAD_NAME} submitted “${PLAN}” (revision 2)`).waitFor();
     await screenshot(rp, "review-reviewer-inbox-again");
-    await rp.getByRole("button", { name: "Mark all read" }).click();
+    await rp.getByRole("button", { name: "Mark all seen" }).click();
     await waitForUnread(rp, 0);
 
     await openReview(rp);
     await rp.getByRole("tab", { name: "History" }).click();
     await rp.getByLabel("Changes from revision 1 to 2").getByText("geophone spacing:").waitFor();
     await rp.getByLabel("Note for the survey lead").fill("Spacing now samples the lens. Approved.");
-    await rp.getByRole("button", { name: "✓ Approve" }).click();
-    await statusBadge(rp, "Approved").waitFor();
-    expect(await rp.getByRole("button", { name: "✓ Approve" }).count()).toBe(0);
+    await rp.getByRole("button", { name: "✓ Sign off for mobilisation" }).click();
+    await statusBadge(rp, "Signed off").waitFor();
+    expect(await rp.getByRole("button", { name: "✓ Sign off for mobilisation" }).count()).toBe(0);
     await screenshot(rp, "review-reviewer-approved");
 
     const lp = lead.page;
     // Still unread: the mention; new: the approval.
     await waitForUnread(lp, leadUnread + 2);
     await lp.getByRole("link", { name: /^Inbox/ }).click();
-    await unreadNotice(lp, `${REVIEWER_NAME} approved “${PLAN}” (revision 2)`).click();
+    await unreadNotice(lp, `${REVIEWER_NAME} signed off for mobilisation “${PLAN}” (revision 2)`).click();
     await lp.getByRole("heading", { name: `Review: ${PLAN}` }).waitFor();
-    await statusBadge(lp, "Approved").waitFor();
+    await statusBadge(lp, "Signed off").waitFor();
     await lp.getByRole("button", { name: "Start a new revision" }).waitFor();
     await screenshot(lp, "review-lead-approved");
   });
@@ -245,7 +245,7 @@ describe("team review in the browser", () => {
     const shotChip = page.getByRole("button", { name: "Comments on shot 1 (1 open)" });
     await shotChip.click();
     const shotPanel = page.getByRole("dialog", { name: "Comments on shot 1" });
-    const thread = shotPanel.getByRole("article", { name: `Thread started by ${REVIEWER_NAME}` });
+    const thread = shotPanel.getByRole("article", { name: `Note started by ${REVIEWER_NAME}` });
     await thread.getByText("the spacing is too coarse").waitFor();
     await thread.getByText("Done in the next revision").waitFor();
     await screenshot(page, "review-designer-shot-comments");
@@ -259,11 +259,11 @@ describe("team review in the browser", () => {
     await page.keyboard.press("Enter");
     const layerPanel = page.getByRole("dialog", { name: "Comments on layer 2" });
     await layerPanel
-      .getByRole("combobox", { name: /^New comment on Layer 2/ })
+      .getByRole("combobox", { name: /^New note on Layer 2/ })
       .fill("Borehole BH2 puts the base of this layer a metre deeper; worth a sweep.");
-    await layerPanel.getByRole("button", { name: "Post comment" }).click();
+    await layerPanel.getByRole("button", { name: "Post note" }).click();
     await layerPanel
-      .getByRole("list", { name: "Comment threads" })
+      .getByRole("list", { name: "Review notes" })
       .getByText("Borehole BH2 puts the base")
       .waitFor();
     await page.getByRole("button", { name: "Comments on layer 2 (1 open)" }).waitFor();
@@ -273,7 +273,7 @@ describe("team review in the browser", () => {
     await page.getByRole("link", { name: "Review", exact: true }).click();
     await page.getByRole("heading", { name: `Review: ${PLAN}` }).waitFor();
     const posted = page
-      .getByRole("article", { name: `Thread started by ${REVIEWER_NAME}` })
+      .getByRole("article", { name: `Note started by ${REVIEWER_NAME}` })
       .filter({ hasText: "Borehole BH2 puts the base" });
     await posted.getByTitle(/^Layer 2 · /).waitFor();
   });
@@ -316,8 +316,8 @@ describe("team review in the browser", () => {
     expect(ended.status).toBe(204);
 
     // The next thing the page sends to the server meets the ended session.
-    await page.getByLabel("New comment").fill("One more look at the centre shot.");
-    await page.getByRole("button", { name: "Post comment" }).click();
+    await page.getByLabel("New note").fill("One more look at the centre shot.");
+    await page.getByRole("button", { name: "Post note" }).click();
     await page.getByRole("heading", { name: "Sign in" }).waitFor();
     await page.getByText("Your session has ended").waitFor();
     await screenshot(page, "review-session-ended");

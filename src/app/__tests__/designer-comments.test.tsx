@@ -99,10 +99,10 @@ describe("comments in the designer, lent by the Review feature", () => {
     press(chip);
     const panel = screen.getByRole("dialog", { name: "Comments on layer 2" });
     const box = await within(panel).findByRole("combobox", {
-      name: "New comment on Layer 2 · stiff clay",
+      name: "New note on Layer 2 · stiff clay",
     });
     await userEvent.type(box, "Is the clay really 6 m thick here?");
-    await userEvent.click(within(panel).getByRole("button", { name: "Post comment" }));
+    await userEvent.click(within(panel).getByRole("button", { name: "Post note" }));
 
     await within(panel).findByText("Is the clay really 6 m thick here?");
     const posts = calls.filter((c) => c.method === "POST");

@@ -2,14 +2,14 @@ import { NavLink } from "react-router-dom";
 import { paths } from "@/app/paths";
 import { useUnreadCount } from "../api/notifications";
 
-/** "Inbox" in the header with the number of unread notices (refreshed every 30 s). */
+/** "Inbox" in the header with the number of notices not yet seen (refreshed every 30 s). */
 export function InboxLink() {
   const unread = useUnreadCount();
   const count = unread.data ?? 0;
   return (
     <NavLink
       to={paths.inbox}
-      aria-label={count > 0 ? `Inbox, ${count} unread` : "Inbox"}
+      aria-label={count > 0 ? `Inbox, ${count} new` : "Inbox"}
       className={({ isActive }) =>
         `relative inline-flex items-center gap-1.5 rounded-md px-2.5 py-1 text-sm font-medium ${isActive ? "bg-ink text-card" : "text-ink hover:bg-paper-deep"}`
       }

@@ -38,7 +38,7 @@ export function noticeTarget(notice: NotificationView): string {
   return paths.planReview(notice.planId);
 }
 
-/** The inbox: every notice about plans that concern the user; opening one marks it read. */
+/** The inbox: every notice about plans that concern the user; opening one marks it seen. */
 export function InboxPage() {
   const { data: me } = useMe();
   const notifications = useNotifications();
@@ -62,7 +62,7 @@ export function InboxPage() {
         title="Inbox"
         subtitle={
           unread > 0
-            ? `${unread} unread · plans submitted to you, decisions on your plans, mentions and replies.`
+            ? `${unread} not yet seen · plans submitted to you, decisions on your plans, mentions and replies.`
             : "Plans submitted to you, decisions on your plans, mentions and replies."
         }
         actions={
@@ -80,7 +80,7 @@ export function InboxPage() {
               disabled={unread === 0 || markAll.isPending}
               onClick={() => markAll.mutate()}
             >
-              Mark all read
+              Mark all seen
             </Button>
           </>
         }
@@ -92,13 +92,13 @@ export function InboxPage() {
             checked={unreadOnly}
             onChange={(e) => setUnreadOnly(e.target.checked)}
           />
-          Unread only
+          Not yet seen only
         </label>
         {markAll.isError ? (
-          <ErrorNotice error={markAll.error} title="Could not mark everything read" />
+          <ErrorNotice error={markAll.error} title="Could not mark everything seen" />
         ) : null}
         {markRead.isError ? (
-          <ErrorNotice error={markRead.error} title="Could not mark the notice read" />
+          <ErrorNotice error={markRead.error} title="Could not mark the notice seen" />
         ) : null}
         {notifications.isPending ? <Loading label="Loading your inbox…" /> : null}
         {notifications.isError ? (
@@ -109,7 +109,7 @@ export function InboxPage() {
           />
         ) : null}
         {notifications.data && shown.length === 0 ? (
-          <EmptyState title={unreadOnly ? "Nothing unread" : "Your inbox is empty"}>
+          <EmptyState title={unreadOnly ? "Nothing new" : "Your inbox is empty"}>
             You will hear here when a plan is submitted to you, when your plan gets a decision, and
             when someone mentions you or replies to you.
           </EmptyState>
@@ -129,7 +129,7 @@ export function InboxPage() {
                   type="button"
                   onClick={() => open(notice)}
                   className="min-w-0 flex-1 text-left"
-                  aria-label={`${notice.read ? "" : "Unread: "}${notice.text}`}
+                  aria-label={`${notice.read ? "" : "New: "}${notice.text}`}
                 >
                   <span className="flex flex-wrap items-center gap-2">
                     <span
@@ -156,9 +156,9 @@ export function InboxPage() {
                     variant="quiet"
                     className="shrink-0 px-2 py-1 text-xs"
                     onClick={() => markRead.mutate(notice.id)}
-                    aria-label={`Mark read: ${notice.text}`}
+                    aria-label={`Mark seen: ${notice.text}`}
                   >
-                    Mark read
+                    Mark seen
                   </Button>
                 ) : null}
               </li>

@@ -11,13 +11,13 @@ const CHOICES: Array<{ kind: NotificationKind; label: string; detail: string }> 
   {
     kind: "decision",
     label: "A decision on my plan",
-    detail: "approved, or changes requested",
+    detail: "signed off for mobilisation, or returned to the lead with notes",
   },
   { kind: "mention", label: "Someone mentions me", detail: "@your name in a comment" },
   {
     kind: "reply",
-    label: "Someone replies in a thread I took part in",
-    detail: "comment threads on plans",
+    label: "Someone replies to a note I took part in",
+    detail: "review notes on plans",
   },
 ];
 

@@ -27,8 +27,8 @@ import { CommentForm } from "./comment-form";
 const timeFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short" });
 
 const FILTERS: Array<{ value: ThreadFilter; label: string }> = [
-  { value: "open", label: "Open" },
-  { value: "resolved", label: "Resolved" },
+  { value: "open", label: "Open notes" },
+  { value: "resolved", label: "Closed notes" },
   { value: "all", label: "All" },
 ];
 
@@ -44,8 +44,9 @@ export interface CommentThreadsProps {
 }
 
 /**
- * The comment threads of a plan: filter open/resolved, start a thread (anchored or not), reply,
- * resolve or reopen, with @mention suggestions from the team. Fetches what it needs itself.
+ * The review notes of a plan (comment threads in the API): show open or closed notes, start a
+ * note (anchored or not), reply, close or reopen it (API: `resolved`), with @mention suggestions
+ * from the team. Fetches what it needs itself.
  */
 export function CommentThreads({ planId, anchorFilter, compact = false }: CommentThreadsProps) {
   const plan = useReviewPlan(planId);
@@ -90,8 +91,15 @@ export function CommentThreads({ planId, anchorFilter, compact = false }: Commen
 
   return (
     <div className="flex flex-col gap-4">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <div role="group" aria-label="Show threads" className="flex rounded-md border border-rule">
+      <div className="flex flex-wrap items-center gap-2">
+        <span className="text-xs font-medium text-ink-soft" aria-hidden>
+          Show:
+        </span>
+        <div
+          role="group"
+          aria-label="Show notes"
+          className="flex flex-wrap rounded-md border border-rule"
+        >
           {FILTERS.map((f) => (
             <button
               key={f.value}
@@ -112,16 +120,16 @@ export function CommentThreads({ planId, anchorFilter, compact = false }: Commen
         <EmptyState
           title={
             filter === "resolved"
-              ? "No resolved threads"
+              ? "No closed notes"
               : filter === "open"
-                ? "No open threads"
-                : "No comments yet"
+                ? "No open notes"
+                : "No notes yet"
           }
         >
           {canComment && filter !== "resolved" ? "Start one below." : null}
         </EmptyState>
       ) : (
-        <ol className="flex flex-col gap-3" aria-label="Comment threads">
+        <ol className="flex flex-col gap-3" aria-label="Review notes">
           {shown.map((thread) => (
             <li key={thread.root.id}>
               <ThreadCard
@@ -154,10 +162,10 @@ export function CommentThreads({ planId, anchorFilter, compact = false }: Commen
           <CommentForm
             label={
               anchorFilter
-                ? `New comment on ${anchorLabel(anchorFilter, document, units)}`
-                : "New comment"
+                ? `New note on ${anchorLabel(anchorFilter, document, units)}`
+                : "New note"
             }
-            submitLabel="Post comment"
+            submitLabel="Post note"
             members={candidates}
             anchorChoices={anchorChoices}
             fixedAnchor={anchorFilter}
@@ -167,9 +175,7 @@ export function CommentThreads({ planId, anchorFilter, compact = false }: Commen
           />
         </div>
       ) : (
-        <p className="text-sm text-ink-soft">
-          Your role can read the comments but not add to them.
-        </p>
+        <p className="text-sm text-ink-soft">Your role can read the notes but not add to them.</p>
       )}
     </div>
   );
@@ -198,7 +204,7 @@ function ThreadCard({
   document: Plan | null;
   latestRevision: number;
   canComment: boolean;
-  /** The server lets the thread's author, the plan's author, reviewers and admins resolve. */
+  /** The server lets the note's author, the plan's author, reviewers and admins close it. */
   canResolve: boolean;
   candidates: MentionCandidate[];
   names: string[];
@@ -212,7 +218,7 @@ function ThreadCard({
   const { root } = thread;
   return (
     <article
-      aria-label={`Thread started by ${root.author.name}`}
+      aria-label={`Note started by ${root.author.name}`}
       className={`rounded-md border bg-card ${thread.resolved ? "border-rule/70 opacity-80" : "border-rule"} ${compact ? "p-2.5" : "p-3.5"}`}
     >
       <div className="mb-2 flex flex-wrap items-center gap-2 text-xs">
@@ -224,7 +230,7 @@ function ThreadCard({
         ) : null}
         {thread.resolved ? (
           <span className="rounded-full border border-moss/40 bg-moss-soft px-2 py-0.5 font-medium text-moss">
-            ✓ Resolved
+            ✓ Closed
           </span>
         ) : null}
         <span
@@ -249,7 +255,7 @@ function ThreadCard({
       ) : null}
       {update.isError ? (
         <div className="mt-2">
-          <ErrorNotice error={update.error} title="Could not change the thread" />
+          <ErrorNotice error={update.error} title="Could not change the note" />
         </div>
       ) : null}
       {canComment ? (
@@ -284,7 +290,7 @@ function ThreadCard({
                 disabled={update.isPending}
                 onClick={() => update.mutate({ commentId: root.id, resolved: !thread.resolved })}
               >
-                {thread.resolved ? "Reopen thread" : "Resolve thread"}
+                {thread.resolved ? "Reopen note" : "Close note"}
               </Button>
             ) : null}
           </div>

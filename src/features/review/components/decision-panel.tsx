@@ -21,10 +21,12 @@ type Errors = Record<string, never>;
 /** What happens next, in plain words, when the user has no button for this status. */
 const WAITING: Record<PlanStatus, string> = {
   draft: "The plan is a draft. A survey lead submits it for review when it is ready.",
-  "in-review": "The plan is with the reviewers. A reviewer approves it or asks for changes.",
+  "in-review":
+    "The plan is with the reviewers. A reviewer signs it off for mobilisation or returns it to the lead with notes.",
   "changes-requested":
-    "A reviewer asked for changes. A survey lead revises the plan and submits it again.",
-  approved: "The plan is approved and read-only. A survey lead can start a new revision.",
+    "A reviewer returned the plan with notes. A survey lead revises it and submits it again.",
+  approved:
+    "The plan is signed off for mobilisation and read-only. A survey lead can start a new revision.",
   archived: "The plan is archived.",
 };
 
@@ -34,8 +36,8 @@ const SANDBOX =
 
 /**
  * The workflow buttons this user may press right now, as the server's `permissions` say: submit
- * (leads), approve or request changes with a required note (reviewers), start a new revision of
- * an approved plan (leads).
+ * (leads), sign off for mobilisation (API: approve) or return to the lead with a required note
+ * (API: request-changes) (reviewers), start a new revision of a signed-off plan (leads).
  */
 export function DecisionPanel({ plan }: { plan: PlanDetail }) {
   const { permissions } = plan;
@@ -44,7 +46,7 @@ export function DecisionPanel({ plan }: { plan: PlanDetail }) {
   const request = useRequestChanges(plan.id);
   const reopen = useReopenPlan(plan.id);
   const intent = useRef<Intent>("approve");
-  // Asking for changes needs a note; approving or submitting takes an optional one.
+  // Returning the plan needs a note; signing off or submitting takes an optional one.
   const resolver: Resolver<NoteForm> = (values) => {
     const schema = intent.current === "request" ? requestChangesSchema : decisionNoteSchema;
     const parsed = schema.safeParse(values);
@@ -85,7 +87,7 @@ export function DecisionPanel({ plan }: { plan: PlanDetail }) {
             label={permissions.decide ? "Note for the survey lead" : "Note for the reviewers"}
             hint={
               permissions.decide
-                ? "Required when you ask for changes; optional with an approval."
+                ? "Required when you return the plan to the lead; optional when you sign it off."
                 : "Optional: what changed, what to look at."
             }
             error={form.formState.errors.note?.message}
@@ -104,10 +106,10 @@ export function DecisionPanel({ plan }: { plan: PlanDetail }) {
                   onClick={() => run("approve")}
                   className="bg-moss hover:bg-moss/90"
                 >
-                  ✓ Approve
+                  ✓ Sign off for mobilisation
                 </Button>
                 <Button variant="danger" disabled={pending} onClick={() => run("request")}>
-                  ↺ Request changes
+                  ↺ Return to lead with notes
                 </Button>
               </>
             ) : null}
@@ -122,7 +124,7 @@ export function DecisionPanel({ plan }: { plan: PlanDetail }) {
       {permissions.reopen ? (
         <div className="flex flex-col gap-2">
           <p className="text-sm text-ink-soft">
-            Approved plans are read-only. A new revision returns the plan to draft so it can be
+            Signed-off plans are read-only. A new revision returns the plan to draft so it can be
             edited and reviewed again.
           </p>
           <div>
@@ -144,7 +146,7 @@ const label = (plan: PlanDetail) =>
   ({
     draft: "a draft",
     "in-review": "in review",
-    "changes-requested": "back with the survey lead for changes",
-    approved: "approved",
+    "changes-requested": "back with the survey lead, with notes",
+    approved: "signed off for mobilisation",
     archived: "archived",
   })[plan.status];

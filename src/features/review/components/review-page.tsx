@@ -205,9 +205,9 @@ function Review({ plan, units }: { plan: PlanDetail; units: UnitSystem }) {
               <LastNote>
                 <p className="text-xs text-ink-soft">
                   {lastNote.kind === "changes-requested"
-                    ? "Changes requested"
+                    ? "Returned with notes"
                     : lastNote.kind === "approved"
-                      ? "Approved"
+                      ? "Signed off for mobilisation"
                       : "Submitted"}{" "}
                   by {lastNote.actorName ?? "someone"} ·{" "}
                   {timeFormat.format(new Date(lastNote.createdAt))}
@@ -224,8 +224,8 @@ function Review({ plan, units }: { plan: PlanDetail; units: UnitSystem }) {
             <DecisionPanel plan={plan} />
           </Card>
           <Card>
-            <h2 className="mb-3 font-semibold text-ink">Comments</h2>
-            <ErrorBoundary title="The comments failed to draw">
+            <h2 className="mb-3 font-semibold text-ink">Review notes</h2>
+            <ErrorBoundary title="The review notes failed to draw">
               <CommentThreads planId={plan.id} />
             </ErrorBoundary>
           </Card>

@@ -1,4 +1,4 @@
-/** Audit actions in plain words for the activity lists ("plan.request_changes" → "asked for changes"). */
+/** Audit actions in plain words for the activity lists ("plan.request_changes" → "returned the plan with notes"). */
 import { PLAN_STATUS_LABELS, PLAN_STATUSES, type PlanStatus } from "@/contracts/plans";
 
 const ACTIONS: Record<string, string> = {
@@ -11,13 +11,13 @@ const ACTIONS: Record<string, string> = {
   "plan.unarchive": "restored the plan",
   "plan.restore": "restored the plan",
   "plan.submit": "submitted the plan for review",
-  "plan.approve": "approved the plan",
-  "plan.request_changes": "asked for changes",
+  "plan.approve": "signed the plan off for mobilisation",
+  "plan.request_changes": "returned the plan to the lead with notes",
   "plan.reopen": "started a new revision",
-  "comment.create": "commented",
-  "comment.reply": "replied to a comment",
-  "comment.resolve": "resolved a thread",
-  "comment.reopen": "reopened a thread",
+  "comment.create": "wrote a review note",
+  "comment.reply": "replied to a review note",
+  "comment.resolve": "closed a review note",
+  "comment.reopen": "reopened a review note",
   "auth.sign_in": "signed in",
   "auth.password_reset": "reset their password",
   "invitation.create": "invited a member",

@@ -21,7 +21,7 @@ const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium" });
 const ROLE_DUTIES: Record<Role, string> = {
   admin: "everything a lead may, plus the team",
   lead: "creates sites and plans, submits for review",
-  reviewer: "reads, comments, approves or asks for changes",
+  reviewer: "reads, writes review notes, signs plans off or returns them with notes",
   trainee: "reads team plans, works in a personal sandbox",
 };
 

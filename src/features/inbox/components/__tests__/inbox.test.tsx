@@ -30,7 +30,7 @@ describe("InboxLink", () => {
       }),
     });
     renderWithApp(<InboxLink />);
-    const link = await screen.findByRole("link", { name: "Inbox, 3 unread" });
+    const link = await screen.findByRole("link", { name: "Inbox, 3 new" });
     expect(within(link).getByTestId("unread-badge")).toHaveTextContent("3");
   });
 
@@ -77,14 +77,14 @@ describe("InboxPage", () => {
         <InboxPage />
       </>,
     );
-    expect(await screen.findByRole("link", { name: "Inbox, 1 unread" })).toBeInTheDocument();
-    expect(screen.getByText(/1 unread/)).toBeInTheDocument();
-    await userEvent.click(screen.getByRole("button", { name: "Mark all read" }));
+    expect(await screen.findByRole("link", { name: "Inbox, 1 new" })).toBeInTheDocument();
+    expect(screen.getByText(/1 not yet seen/)).toBeInTheDocument();
+    await userEvent.click(screen.getByRole("button", { name: "Mark all seen" }));
     await waitFor(() =>
       expect(calls.some((c) => c.url === "/api/notifications/read-all")).toBe(true),
     );
     expect(await screen.findByRole("link", { name: "Inbox" })).toBeInTheDocument();
-    expect(screen.getByRole("button", { name: "Mark all read" })).toBeDisabled();
+    expect(screen.getByRole("button", { name: "Mark all seen" })).toBeDisabled();
   });
 
   it("opens the plan's Review screen from a notice and marks it read", async () => {
@@ -94,7 +94,7 @@ describe("InboxPage", () => {
     });
     await userEvent.click(
       await screen.findByRole("button", {
-        name: "Unread: Tamsin Orchard submitted Tollbar cutting, line A for review",
+        name: "New: Tamsin Orchard submitted Tollbar cutting, line A for review",
       }),
     );
     expect(await screen.findByText("Review screen")).toBeInTheDocument();
@@ -105,7 +105,7 @@ describe("InboxPage", () => {
     serve();
     renderWithApp(<InboxPage />);
     await screen.findByText("Older, already read");
-    await userEvent.click(screen.getByLabelText("Unread only"));
+    await userEvent.click(screen.getByLabelText("Not yet seen only"));
     expect(screen.queryByText("Older, already read")).toBeNull();
     expect(
       screen.getByText("Tamsin Orchard submitted Tollbar cutting, line A for review"),

@@ -104,7 +104,7 @@ describe("CommentThreads", () => {
   it("refuses an empty comment inline", async () => {
     const { calls } = serve([]);
     renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: lead });
-    await userEvent.click(await screen.findByRole("button", { name: "Post comment" }));
+    await userEvent.click(await screen.findByRole("button", { name: "Post note" }));
     expect(await screen.findByText("write a comment")).toBeInTheDocument();
     expect(calls.filter((c) => c.method === "POST")).toHaveLength(0);
   });
@@ -112,9 +112,9 @@ describe("CommentThreads", () => {
   it("starts a thread anchored to the chosen shot", async () => {
     const { calls } = serve([]);
     renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: lead });
-    await userEvent.type(await screen.findByLabelText("New comment"), "Move this shot off-end.");
+    await userEvent.type(await screen.findByLabelText("New note"), "Move this shot off-end.");
     await userEvent.selectOptions(screen.getByLabelText("Points at"), "Shot 1 · west end (-1.0 m)");
-    await userEvent.click(screen.getByRole("button", { name: "Post comment" }));
+    await userEvent.click(screen.getByRole("button", { name: "Post note" }));
     await waitFor(() =>
       expect(calls.find((c) => c.method === "POST")?.body).toEqual({
         body: "Move this shot off-end.",
@@ -128,19 +128,19 @@ describe("CommentThreads", () => {
     const { calls } = serve([root]);
     renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: lead });
     const thread = await screen.findByRole("article");
-    await userEvent.click(within(thread).getByRole("button", { name: "Resolve thread" }));
+    await userEvent.click(within(thread).getByRole("button", { name: "Close note" }));
     await waitFor(() =>
       expect(calls.find((c) => c.method === "PATCH")?.body).toEqual({ resolved: true }),
     );
-    expect(await screen.findByText("No open threads")).toBeInTheDocument();
-    await userEvent.click(screen.getByRole("button", { name: "Resolved (1)" }));
+    expect(await screen.findByText("No open notes")).toBeInTheDocument();
+    await userEvent.click(screen.getByRole("button", { name: "Closed notes (1)" }));
     const resolved = await screen.findByRole("article");
-    expect(within(resolved).getByText("✓ Resolved")).toBeInTheDocument();
-    await userEvent.click(within(resolved).getByRole("button", { name: "Reopen thread" }));
+    expect(within(resolved).getByText("✓ Closed")).toBeInTheDocument();
+    await userEvent.click(within(resolved).getByRole("button", { name: "Reopen note" }));
     await waitFor(() =>
       expect(calls.filter((c) => c.method === "PATCH").at(-1)?.body).toEqual({ resolved: false }),
     );
-    expect(await screen.findByText("No resolved threads")).toBeInTheDocument();
+    expect(await screen.findByText("No closed notes")).toBeInTheDocument();
   });
 
   it("offers resolving only to those the server allows: not another lead's thread on someone else's plan", async () => {
@@ -156,7 +156,7 @@ describe("CommentThreads", () => {
     renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: otherLead });
     const thread = await screen.findByRole("article");
     expect(within(thread).getByRole("button", { name: "Reply" })).toBeInTheDocument();
-    expect(within(thread).queryByRole("button", { name: "Resolve thread" })).toBeNull();
+    expect(within(thread).queryByRole("button", { name: "Close note" })).toBeNull();
   });
 
   it("lets a role without the comment permission read but not write", async () => {
@@ -164,8 +164,8 @@ describe("CommentThreads", () => {
     renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: testMe({ role: "trainee" }) });
     expect(await screen.findByText("Looks good to me.")).toBeInTheDocument();
     expect(screen.queryByRole("button", { name: "Reply" })).toBeNull();
-    expect(screen.queryByRole("button", { name: "Post comment" })).toBeNull();
-    expect(screen.getByText(/can read the comments but not add to them/)).toBeInTheDocument();
+    expect(screen.queryByRole("button", { name: "Post note" })).toBeNull();
+    expect(screen.getByText(/can read the notes but not add to them/)).toBeInTheDocument();
   });
 
   it("shows beside a refractor only the threads anchored there, and anchors new ones there", async () => {
@@ -184,9 +184,9 @@ describe("CommentThreads", () => {
     );
     expect(await screen.findByText("Refractor at the lens base.")).toBeInTheDocument();
     expect(screen.queryByText("About the first layer.")).toBeNull();
-    const box = screen.getByLabelText(/New comment on Refractor · top of layer 3/);
+    const box = screen.getByLabelText(/New note on Refractor · top of layer 3/);
     await userEvent.type(box, "Agreed.");
-    await userEvent.click(screen.getByRole("button", { name: "Post comment" }));
+    await userEvent.click(screen.getByRole("button", { name: "Post note" }));
     await waitFor(() =>
       expect(calls.find((c) => c.method === "POST")?.body).toEqual({
         body: "Agreed.",
@@ -228,7 +228,7 @@ describe("CommentThreads", () => {
       user: { id: reviewerId, email: "oskar@example.test", name: "Oskar Bellweather" },
     });
     renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: reviewer });
-    const box = await screen.findByRole("combobox", { name: "New comment" });
+    const box = await screen.findByRole("combobox", { name: "New note" });
     await userEvent.type(box, "@");
     const list = await screen.findByRole("listbox", { name: "Mention a team member" });
     const offered = within(list)

@@ -20,7 +20,7 @@ describe("DecisionPanel", () => {
       who: "a reviewer on a plan in review",
       permissions: { decide: true, comment: true },
       status: "in-review",
-      buttons: ["✓ Approve", "↺ Request changes"],
+      buttons: ["✓ Sign off for mobilisation", "↺ Return to lead with notes"],
     },
     {
       who: "a lead on a draft",
@@ -55,7 +55,7 @@ describe("DecisionPanel", () => {
     renderWithApp(
       <DecisionPanel plan={planDetail({ status: "in-review", permissions: noPermissions })} />,
     );
-    expect(screen.getByText(/A reviewer approves it or asks for changes/)).toBeInTheDocument();
+    expect(screen.getByText(/A reviewer signs it off for mobilisation or returns it to the lead with notes/)).toBeInTheDocument();
   });
 
   it("tells the author of a sandbox scenario that it never goes to review, not that a lead submits it", () => {
@@ -79,7 +79,7 @@ describe("DecisionPanel", () => {
     renderWithApp(
       <DecisionPanel plan={planDetail({ permissions: { ...noPermissions, decide: true } })} />,
     );
-    await userEvent.click(screen.getByRole("button", { name: "↺ Request changes" }));
+    await userEvent.click(screen.getByRole("button", { name: "↺ Return to lead with notes" }));
     const note = screen.getByLabelText("Note for the survey lead");
     expect(await screen.findByText("say what needs to change")).toBeInTheDocument();
     expect(note).toHaveAttribute("aria-invalid", "true");
@@ -102,7 +102,7 @@ describe("DecisionPanel", () => {
       screen.getByLabelText("Note for the survey lead"),
       "Halve the spacing near the lens.",
     );
-    await userEvent.click(screen.getByRole("button", { name: "↺ Request changes" }));
+    await userEvent.click(screen.getByRole("button", { name: "↺ Return to lead with notes" }));
     await waitFor(() =>
       expect(calls.find((c) => c.method === "POST")).toMatchObject({
         url: `${base}/request-changes`,
@@ -122,7 +122,7 @@ describe("DecisionPanel", () => {
     renderWithApp(
       <DecisionPanel plan={planDetail({ permissions: { ...noPermissions, decide: true } })} />,
     );
-    await userEvent.click(screen.getByRole("button", { name: "✓ Approve" }));
+    await userEvent.click(screen.getByRole("button", { name: "✓ Sign off for mobilisation" }));
     await waitFor(() => expect(calls.find((c) => c.method === "POST")?.body).toEqual({}));
     expect(calls[0].url).toBe(`${base}/approve`);
   });

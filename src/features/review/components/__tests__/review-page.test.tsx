@@ -149,10 +149,10 @@ describe("ReviewPage", () => {
     expect(
       screen.getByText("From the analysis saved with this revision.", { exact: false }),
     ).toBeInTheDocument();
-    expect(screen.getByRole("button", { name: "✓ Approve" })).toBeInTheDocument();
-    expect(screen.getByRole("button", { name: "↺ Request changes" })).toBeInTheDocument();
+    expect(screen.getByRole("button", { name: "✓ Sign off for mobilisation" })).toBeInTheDocument();
+    expect(screen.getByRole("button", { name: "↺ Return to lead with notes" })).toBeInTheDocument();
     const note = await screen.findByLabelText("Latest note");
-    expect(note).toHaveTextContent("Changes requested by Oskar Bellweather");
+    expect(note).toHaveTextContent("Returned with notes by Oskar Bellweather");
     expect(note).toHaveTextContent("Add a centre shot.");
   });
 
@@ -195,7 +195,7 @@ describe("ReviewPage", () => {
     await userEvent.click(await screen.findByRole("tab", { name: "Activity" }));
     const list = await screen.findByRole("list", { name: "Activity" });
     expect(within(list).getAllByRole("listitem")[0]).toHaveTextContent(
-      "Oskar Bellweatherasked for changes— note: Add a centre shot.",
+      "Oskar Bellweatherreturned the plan to the lead with notes— note: Add a centre shot.",
     );
     expect(screen.getByRole("link", { name: "Download CSV" })).toHaveAttribute(
       "href",

@@ -3,7 +3,7 @@ import { describeAction, describeDetail, latestDecisionNote } from "../activity-
 
 describe("activity words", () => {
   it("reads known actions as phrases and unknown ones as their words", () => {
-    expect(describeAction("plan.request_changes")).toBe("asked for changes");
+    expect(describeAction("plan.request_changes")).toBe("returned the plan to the lead with notes");
     expect(describeAction("plan.frobnicate_all")).toBe("plan: frobnicate all");
     expect(describeAction("odd")).toBe("odd");
   });
@@ -29,7 +29,7 @@ describe("activity words", () => {
         revision: 2,
         note: "more shots",
       }),
-    ).toBe("In review → Changes requested · revision: 2 · note: more shots");
+    ).toBe("In review → Returned with notes · revision: 2 · note: more shots");
     expect(describeDetail({ from: "Old name", to: "New name" })).toBe("Old name → New name");
   });
 
