@@ -18,12 +18,16 @@ import { seedDemo } from "./data/seed-demo";
 import { createApp, type AppLocals } from "./http/app";
 import type { RateLimitConfig } from "./http/rate-limit";
 import { createLogger } from "./logger";
-import { startFakeSmtp, type FakeSmtp } from "./mail/fake-smtp";
-import { createMailer } from "./mail/mailer";
+import { closeWorkerPools } from "./workers/pool";
+import type { FakeSmtp } from "./mail/fake-smtp";
+import { createMailer, disabledMailer } from "./mail/mailer";
 
 export interface StartOptions {
-  /** SQLite file (created with its folder when missing), or ":memory:". */
-  dbPath: string;
+  /** SQLite file (created with its folder when missing), or ":memory:". Ignored when
+   * `databaseUrl` is given. */
+  dbPath?: string;
+  /** A postgres:// URL: use PostgreSQL instead of SQLite (see docs/api.md, "Database"). */
+  databaseUrl?: string;
   /** TCP port; 0 picks a free one. Default 3000. */
   port?: number;
   /** Interface to listen on. Default 127.0.0.1. */
@@ -34,9 +38,13 @@ export interface StartOptions {
   serveClient?: boolean;
   /** Default: dist/ at the project root. */
   clientDir?: string;
-  /** A real SMTP server (nodemailer URL). When absent the built-in fake SMTP server starts and
-   * its messages are readable at /api/mailbox (admins) and through `mailbox` below. */
+  /** A real SMTP server (nodemailer URL). When absent, mail goes to the built-in fake SMTP
+   * server if `mailbox` is on (messages readable at /api/mailbox by admins and through
+   * `mailbox` below); otherwise it is not sent at all (a warning is logged per message). */
   smtpUrl?: string | null;
+  /** Catch mail in the built-in mailbox when no smtpUrl is given. Default: `demo`. Outside demo
+   * mode this lets an admin read every member's reset link: only for a trial on one machine. */
+  mailbox?: boolean;
   /** Sender address of outgoing mail. Default "Spreadsight <no-reply@spreadsight.test>". */
   mailFrom?: string;
   /** Base URL for links in e-mails. Default http://<host>:<actual port>. */
@@ -71,20 +79,24 @@ export const DEFAULT_CLIENT_DIR = fileURLToPath(new URL("../dist", import.meta.u
 export async function startServer(options: StartOptions): Promise<RunningServer> {
   const logger = options.logger ?? createLogger();
   const host = options.host ?? "127.0.0.1";
-  const dataSource = await openDatabase({ path: options.dbPath });
+  if (!options.databaseUrl && !options.dbPath)
+    throw new Error("startServer: give dbPath or databaseUrl");
+  const dataSource = await openDatabase(
+    options.databaseUrl ? { url: options.databaseUrl } : { path: options.dbPath! },
+  );
   let fakeSmtp: FakeSmtp | null = null;
   let httpServer: Server | null = null;
   try {
     const seeded = options.demo ? (await seedDemo(dataSource)).created : false;
+    const from = options.mailFrom ?? "Spreadsight <no-reply@spreadsight.test>";
     let smtpUrl = options.smtpUrl;
-    if (!smtpUrl) {
+    if (!smtpUrl && (options.mailbox ?? options.demo ?? false)) {
+      // smtp-server and mailparser are demo-only packages: loaded only when the mailbox is on.
+      const { startFakeSmtp } = await import("./mail/fake-smtp");
       fakeSmtp = await startFakeSmtp(dataSource, logger);
       smtpUrl = fakeSmtp.url;
     }
-    const mailer = createMailer({
-      smtpUrl,
-      from: options.mailFrom ?? "Spreadsight <no-reply@spreadsight.test>",
-    });
+    const mailer = smtpUrl ? createMailer({ smtpUrl, from }) : disabledMailer(logger);
 
     const server = createServer();
     httpServer = server;
@@ -132,6 +144,8 @@ export async function startServer(options: StartOptions): Promise<RunningServer>
           server.closeIdleConnections();
           setTimeout(() => server.closeAllConnections(), 2000).unref();
         });
+        await locals.drain();
+        await closeWorkerPools();
         mailer.close();
         await fakeSmtp?.close();
         if (dataSource.isInitialized) await dataSource.destroy();

@@ -14,32 +14,26 @@ import {
   ATTACHMENT_EXTENSIONS,
   ATTACHMENT_KIND_LABELS,
   ATTACHMENT_LIMITS,
-  type AttachmentFacts,
   type AttachmentFields,
   type AttachmentKind,
   type AttachmentSummary,
   type AttachmentUploadResponse,
-  type FirstBreakPick,
   type PickSetView,
   type picksSaveSchema,
 } from "@/contracts/field";
-import { MATERIALS } from "@engine";
-import {
-  parseBoreholeCsv,
-  parsePicksCsv,
-  readSeg2,
-  Seg2Error,
-  type CsvIssue,
-} from "../../workers/field/index";
 import { Attachment } from "../data/entities/attachment";
 import { PickSet } from "../data/entities/pick-set";
 import type { Plan } from "../data/entities/plan";
 import { PlanRevision } from "../data/entities/plan-revision";
 import { inTransaction } from "../data/transaction";
 import type { Actor } from "./actor";
+import { cleanFileName, type CheckedContent } from "./attachment-content";
 import { recordAudit } from "./audit";
 import { AppError, forbidden, notFound } from "./errors";
 import { canEditPlan, findVisiblePlan } from "./plans";
+import { runTask } from "../workers/pool";
+
+export { checkContent, cleanFileName, csvText } from "./attachment-content";
 
 export type PicksSaveOutput = z.output<typeof picksSaveSchema>;
 
@@ -86,20 +80,6 @@ const STORED_MEDIA_TYPE: Record<AttachmentKind, string> = {
 
 const megabytes = (bytes: number) => `${Number((bytes / (1024 * 1024)).toFixed(1))} MB`;
 
-/** A file name safe to store and to send back in Content-Disposition. */
-export function cleanFileName(name: string): string {
-  const base = name.split(/[\\/]/).pop() ?? "";
-  const clean = Array.from(base.normalize("NFC"))
-    .filter((ch) => {
-      const code = ch.codePointAt(0) ?? 0;
-      return code >= 0x20 && code !== 0x7f && ch !== '"';
-    })
-    .join("")
-    .trim()
-    .slice(0, 200);
-  return clean || "upload";
-}
-
 function extensionOf(name: string): string {
   const dot = name.lastIndexOf(".");
   return dot < 0 ? "" : name.slice(dot).toLowerCase();
@@ -127,124 +107,23 @@ export function checkFileType(kind: AttachmentKind, file: UploadedFile): void {
   }
 }
 
-function csvError(kind: AttachmentKind, issues: CsvIssue[]): AppError {
-  const messages = issues.map((i) => i.message);
-  const more = messages.length > 1 ? ` (and ${messages.length - 1} more)` : "";
-  return new AppError(
-    422,
-    "invalid_csv",
-    `the ${kind === "picks" ? "picks" : "borehole log"} CSV has problems: ${messages[0]}${more}`,
-    { file: messages },
-  );
-}
-
-/** The text of a CSV upload: UTF-8 (a BOM is allowed), not binary. */
-export function csvText(buffer: Buffer): string {
-  const nul = buffer.indexOf(0);
-  if (nul >= 0) {
-    const message = `byte ${nul}: a text file holds no NUL bytes; this looks like a binary file`;
-    throw new AppError(415, "unsupported_file_type", message, { file: [message] });
-  }
-  try {
-    return new TextDecoder("utf-8", { fatal: true }).decode(buffer);
-  } catch {
-    const message = "the file is not UTF-8 text; save the CSV as UTF-8";
-    throw new AppError(422, "invalid_csv", message, { file: [message] });
-  }
-}
-
-interface Checked {
-  facts: AttachmentFacts;
-  model?: AttachmentUploadResponse["model"];
-  picks?: FirstBreakPick[];
-}
-
-/** Reads the file as its kind; throws 422 naming the line and column, or the byte offset. */
-export function checkContent(
+async function checkContentInPool(
   kind: AttachmentKind,
   file: UploadedFile,
   fields: AttachmentFields,
-): Checked {
-  if (kind === "seg2") {
-    let record;
-    try {
-      record = readSeg2(
-        new Uint8Array(file.buffer.buffer, file.buffer.byteOffset, file.buffer.byteLength),
-      );
-    } catch (error) {
-      if (error instanceof Seg2Error) {
-        const message = `not a readable SEG-2 file: ${error.message}`;
-        throw new AppError(422, "invalid_seg2", message, {
-          file: [message],
-          offset: [String(error.offset)],
-        });
-      }
-      throw error;
-    }
-    if (record.traces.length === 0) {
-      const message = "byte 6: expected at least one trace, found a record with none";
-      throw new AppError(422, "invalid_seg2", `not a usable SEG-2 record: ${message}`, {
-        file: [message],
-        offset: ["6"],
-      });
-    }
-    const sources = new Set<number>();
-    let samples = 0;
-    let withReceiver = 0;
-    const formats = new Set<number>();
-    for (const t of record.traces) {
-      if (t.sourcePosition !== null) sources.add(t.sourcePosition);
-      if (t.receiverPosition !== null) withReceiver++;
-      samples = Math.max(samples, t.samples.length);
-      formats.add(t.format);
-    }
-    return {
-      facts: {
-        kind: "seg2",
-        traces: record.traces.length,
-        samples,
-        sampleInterval: record.traces[0].sampleInterval,
-        formats: [...formats].sort(),
-        byteOrder: record.byteOrder,
-        sourcePositions: [...sources].sort((a, b) => a - b),
-        tracesWithReceiver: withReceiver,
-      },
-    };
+): Promise<CheckedContent> {
+  const result = await runTask({
+    kind: "check-upload",
+    fileKind: kind,
+    fileName: file.originalname,
+    bytes: new Uint8Array(file.buffer.buffer, file.buffer.byteOffset, file.buffer.byteLength),
+    fields,
+  });
+  if ("error" in result) {
+    const { status, code, message, fields: errorFields } = result.error;
+    throw new AppError(status, code, message, errorFields);
   }
-  const text = csvText(file.buffer);
-  if (kind === "picks") {
-    const result = parsePicksCsv(text, { timeUnit: fields.timeUnit });
-    if (!result.ok) throw csvError(kind, result.errors);
-    const picks: FirstBreakPick[] = result.rows.map((r) => ({
-      sourcePosition: r.shotPosition,
-      receiverPosition: r.geophonePosition,
-      time: r.time,
-      origin: "csv",
-    }));
-    return {
-      facts: {
-        kind: "picks",
-        picks: picks.length,
-        shots: [...new Set(picks.map((p) => p.sourcePosition))].sort((a, b) => a - b),
-        timeUnit: result.timeUnit,
-      },
-      picks,
-    };
-  }
-  const name =
-    fields.modelName ??
-    `Borehole log ${cleanFileName(file.originalname).replace(/\.[^.]*$/, "")}`.slice(0, 80);
-  const result = parseBoreholeCsv(text, MATERIALS, { name });
-  if (!result.ok) throw csvError(kind, result.errors);
-  return {
-    facts: {
-      kind: "borehole",
-      intervals: result.rows.length,
-      layers: result.model.layers.length,
-      model: result.model,
-    },
-    model: result.model,
-  };
+  return result;
 }
 
 type AttachmentRow = Omit<Attachment, "content">;
@@ -282,7 +161,8 @@ export async function uploadAttachment(
     });
   }
   checkFileType(fields.kind, file);
-  const checked = checkContent(fields.kind, file, fields);
+  // Parsing runs in the worker-thread pool: a large or hostile file never holds the event loop.
+  const checked = await checkContentInPool(fields.kind, file, fields);
   const id = randomUUID();
   const sha256 = createHash("sha256").update(file.buffer).digest("hex");
   const fileName = cleanFileName(file.originalname);

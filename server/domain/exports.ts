@@ -13,7 +13,7 @@ import { stationLayoutCsv } from "../../workers/field/index";
 import type { Plan } from "../data/entities/plan";
 import { PlanRevision } from "../data/entities/plan-revision";
 import type { Actor } from "./actor";
-import { AppError, fieldsFromZod, forbidden, notFound } from "./errors";
+import { AppError, collectFields, fieldsFromZod, forbidden, notFound } from "./errors";
 import { createPlan, findVisiblePlan, requireCreator } from "./plans";
 
 /** 403 unless the actor may export this plan. */
@@ -96,15 +96,16 @@ export function parsePlanDocument(body: unknown): PlanDocument {
   else {
     const issues = geometryIssues(parsed.data);
     if (issues.length === 0) return parsed.data;
-    fields = {};
-    for (const issue of issues) {
-      const split = issue.indexOf(": ");
-      const path = issue
-        .slice(0, split)
-        .replace(/\[(\d+)\]/g, ".$1")
-        .replace(/^\./, "");
-      (fields[path] ??= []).push(issue.slice(split + 2));
-    }
+    fields = collectFields(
+      issues.map((issue) => {
+        const split = issue.indexOf(": ");
+        const path = issue
+          .slice(0, split)
+          .replace(/\[(\d+)\]/g, ".$1")
+          .replace(/^\./, "");
+        return [path, issue.slice(split + 2)] as const;
+      }),
+    );
   }
   const entries = Object.entries(fields);
   const list = entries.map(([k, v]) => `${k}: ${v[0]}`);

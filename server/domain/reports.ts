@@ -4,18 +4,12 @@
  */
 import { In, type DataSource } from "typeorm";
 import { PLAN_STATUS_LABELS } from "@/contracts/plans";
-import { analyzePlan } from "@engine";
-import {
-  compareModels,
-  misfitWarnings,
-  modelFirstArrival,
-  type ObservedPick,
-} from "../../workers/field/index";
 import { AuditEvent } from "../data/entities/audit-event";
 import { PickSet } from "../data/entities/pick-set";
 import { PlanRevision } from "../data/entities/plan-revision";
-import { renderPlanReport } from "../reports/plan-report";
-import type { PlanReportInput, ReportFieldCheck, ReportReviewEvent } from "../reports/types";
+import { completeReportInput, type ReportSource } from "../reports/assemble";
+import type { PlanReportInput, ReportReviewEvent } from "../reports/types";
+import { runTask } from "../workers/pool";
 import type { Actor } from "./actor";
 import { exportablePlan, fileSlug } from "./exports";
 
@@ -30,45 +24,17 @@ const REVIEW_LABELS: Record<string, string> = {
 const asNumber = (v: unknown): number | null => (typeof v === "number" ? v : null);
 const asText = (v: unknown): string | null => (typeof v === "string" && v ? v : null);
 
-/** Best model, RMS per model and misfit warnings for the saved picks. */
-export function fieldCheckSummary(
-  picks: readonly ObservedPick[],
-  models: PlanReportInput["document"]["models"],
-  pickError: number,
-): ReportFieldCheck | null {
-  if (picks.length === 0) return null;
-  const candidates = models.map((m) => ({ name: m.name, firstArrival: modelFirstArrival(m) }));
-  const { fits, best } = compareModels(picks, candidates);
-  const bestIndex = best;
-  const warnings =
-    bestIndex === null
-      ? []
-      : misfitWarnings(picks, candidates[bestIndex].firstArrival, {
-          pickError: Math.max(pickError, 0.0002),
-        }).map(
-          (w) =>
-            `${candidates[bestIndex].name}, shot at ${Number(w.sourcePosition.toFixed(2))} m (${w.side}): ${w.message}`,
-        );
-  return {
-    picks: picks.length,
-    shots: [...new Set(picks.map((p) => p.sourcePosition))].sort((a, b) => a - b),
-    fits: fits.map((f) => ({
-      name: f.name,
-      rms: f.rms,
-      meanResidual: f.meanResidual,
-      count: f.count,
-    })),
-    best: bestIndex === null ? null : fits[bestIndex].name,
-    warnings,
-  };
-}
+export { fieldCheckSummary } from "../reports/assemble";
 
-/** Everything the report shows, read for the actor (who must be allowed to export). */
-export async function buildReportInput(
+/**
+ * What the report shows that comes from the database, read for the actor (who must be allowed
+ * to export). The analysis and the field check are computed from it by `completeReportInput`.
+ */
+export async function gatherReportSource(
   dataSource: DataSource,
   actor: Actor,
   planId: string,
-): Promise<PlanReportInput> {
+): Promise<ReportSource> {
   const { plan, document, revision } = await exportablePlan(dataSource, actor, planId);
   const revisions = await dataSource.getRepository(PlanRevision).find({
     where: { planId, teamId: actor.teamId },
@@ -102,12 +68,6 @@ export async function buildReportInput(
           note: asText(lastApproval.detail.note),
         }
       : null;
-  let analysis: PlanReportInput["analysis"];
-  try {
-    analysis = { ok: true, value: analyzePlan(document) };
-  } catch (error) {
-    analysis = { ok: false, reason: (error as Error).message };
-  }
   const pickSet = await dataSource
     .getRepository(PickSet)
     .findOneBy({ planId, teamId: actor.teamId });
@@ -125,7 +85,6 @@ export async function buildReportInput(
       sandbox: plan.sandbox,
     },
     document,
-    analysis,
     revisions: revisions.map((r) => ({
       number: r.number,
       author: r.author?.name ?? "",
@@ -135,20 +94,31 @@ export async function buildReportInput(
     })),
     review,
     approval,
-    fieldCheck: pickSet
-      ? fieldCheckSummary(pickSet.picks, document.models, document.criteria.pickError)
-      : null,
+    picks: pickSet ? pickSet.picks : null,
   };
 }
 
-/** The plan report as PDF bytes and a file name. */
+/** Everything the report shows (computed on the calling thread; tests use it). */
+export async function buildReportInput(
+  dataSource: DataSource,
+  actor: Actor,
+  planId: string,
+): Promise<PlanReportInput> {
+  return completeReportInput(await gatherReportSource(dataSource, actor, planId));
+}
+
+/**
+ * The plan report as PDF bytes and a file name. The database is read here; the analysis, the
+ * field check and the drawing run in the worker-thread pool (server/workers), off the event loop.
+ */
 export async function planReportPdf(
   dataSource: DataSource,
   actor: Actor,
   planId: string,
   options: { compress?: boolean } = {},
 ): Promise<{ pdf: Buffer; fileName: string }> {
-  const input = await buildReportInput(dataSource, actor, planId);
-  const pdf = await renderPlanReport(input, options);
-  return { pdf, fileName: `${fileSlug(input.plan.name)}-rev${input.plan.revision}-report.pdf` };
+  const source = await gatherReportSource(dataSource, actor, planId);
+  const bytes = await runTask({ kind: "report", source, compress: options.compress });
+  const pdf = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  return { pdf, fileName: `${fileSlug(source.plan.name)}-rev${source.plan.revision}-report.pdf` };
 }

@@ -13,7 +13,7 @@ import type {
 import { analyzePlan, geometryIssues, type Plan as PlanDocument } from "@engine";
 import { PlanRevision } from "../data/entities/plan-revision";
 import type { Actor } from "./actor";
-import { AppError, notFound } from "./errors";
+import { AppError, collectFields, notFound } from "./errors";
 import { diffRevisions } from "./plan-diff";
 import { findVisiblePlan } from "./plans";
 
@@ -82,15 +82,16 @@ export function summarizeDocument(document: PlanDocument): RevisionAnalysisSumma
 export function assertDocumentGeometry(document: PlanDocument, prefix = "document"): void {
   const issues = geometryIssues(document);
   if (issues.length === 0) return;
-  const fields: Record<string, string[]> = {};
-  for (const issue of issues) {
-    const split = issue.indexOf(": ");
-    const path = issue
-      .slice(0, split)
-      .replace(/\[(\d+)\]/g, ".$1")
-      .replace(/^\./, "");
-    (fields[`${prefix}.${path}`] ??= []).push(issue.slice(split + 2));
-  }
+  const fields = collectFields(
+    issues.map((issue) => {
+      const split = issue.indexOf(": ");
+      const path = issue
+        .slice(0, split)
+        .replace(/\[(\d+)\]/g, ".$1")
+        .replace(/^\./, "");
+      return [`${prefix}.${path}`, issue.slice(split + 2)] as const;
+    }),
+  );
   const [first] = Object.entries(fields);
   throw new AppError(400, "invalid_input", `invalid body: ${first[0]}: ${first[1][0]}`, fields);
 }

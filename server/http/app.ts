@@ -3,6 +3,7 @@
  * it in-process (supertest) against a temporary SQLite file; starting and stopping a real
  * server is server/start.ts.
  */
+import compression from "compression";
 import express, { type Express } from "express";
 import type { Logger } from "pino";
 import type { DataSource } from "typeorm";
@@ -14,7 +15,14 @@ import type { RouteContext } from "./context";
 import { AppError } from "../domain/errors";
 import { apiNotFound, errorHandler } from "./errors";
 import { originCheck } from "./origin";
-import { DEFAULT_RATE_LIMITS, SlidingWindowLimiter, type RateLimitConfig } from "./rate-limit";
+import { backgroundQueue } from "./background";
+import {
+  DEFAULT_RATE_LIMITS,
+  RateLimitStore,
+  SignInGuard,
+  type RateLimitConfig,
+} from "./rate-limit";
+import { securityHeaders } from "./security";
 import { requestLog } from "./request-log";
 import { authRouter } from "./routes/auth";
 import { invitationsRouter } from "./routes/invitations";
@@ -38,7 +46,9 @@ export interface AppDeps {
   publicUrl: string;
   /** Demo mode (reported to the client in MeResponse.demo). Default false. */
   demo?: boolean;
-  /** True when the built-in fake SMTP server catches mail: enables GET /api/mailbox. */
+  /** True when the built-in fake SMTP server catches mail: enables GET /api/mailbox. Only demo
+   * mode (or the explicit SPREADSIGHT_MAILBOX=catch setting) turns it on: whoever reads the
+   * mailbox reads every member's reset links. */
   mailboxEnabled?: boolean;
   /** Override any sign-in / reset limit (tests use small windows). */
   rateLimits?: Partial<RateLimitConfig>;
@@ -58,24 +68,28 @@ export interface AppLocals {
     /** Polls until a message matches (default 5 s), newest first. */
     waitFor(match: (m: MailboxMessage) => boolean, timeoutMs?: number): Promise<MailboxMessage>;
   } | null;
-  limiters: RouteContext["limiters"];
+  limits: RouteContext["limits"];
+  /** Waits for work queued after responses (password-reset e-mails). */
+  drain(): Promise<void>;
 }
 
 const BODY_LIMIT = "1mb";
 
 export function createApp(deps: AppDeps): Express {
   const publicUrl = deps.publicUrl.replace(/\/+$/, "");
-  const rateLimits = { ...DEFAULT_RATE_LIMITS, ...deps.rateLimits };
+  const rateLimits: RateLimitConfig = { ...DEFAULT_RATE_LIMITS, ...deps.rateLimits };
+  const limitStore = new RateLimitStore(deps.dataSource);
   const sessions = sessionTools(deps.dataSource, { publicUrl });
   const ctx: RouteContext = {
     services: { dataSource: deps.dataSource, mailer: deps.mailer, logger: deps.logger, publicUrl },
     sessions,
     flags: { demo: deps.demo ?? false, mailbox: deps.mailboxEnabled ?? false },
-    limiters: {
-      signInPerAccount: new SlidingWindowLimiter(rateLimits.signInPerAccount),
-      signInPerIp: new SlidingWindowLimiter(rateLimits.signInPerIp),
-      passwordResetPerIp: new SlidingWindowLimiter(rateLimits.passwordResetPerIp),
+    limits: {
+      config: rateLimits,
+      store: limitStore,
+      signIn: new SignInGuard(limitStore, rateLimits),
     },
+    background: backgroundQueue(deps.logger),
   };
 
   const app = express();
@@ -84,11 +98,15 @@ export function createApp(deps: AppDeps): Express {
   app.set("query parser", "simple");
   const locals: AppLocals = {
     mailbox: ctx.flags.mailbox ? mailboxHelper(deps.dataSource) : null,
-    limiters: ctx.limiters,
+    limits: ctx.limits,
+    drain: () => ctx.background.drain(),
   };
   app.locals.spreadsight = locals;
 
   app.use(requestLog(deps.logger));
+  app.use(securityHeaders());
+  // gzip or brotli for every compressible answer (JSON, the client's JS and CSS, CSV, PDF).
+  app.use(compression({ threshold: 1024 }));
 
   const api = express.Router();
   api.use((req, res, next) => {

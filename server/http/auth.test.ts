@@ -19,7 +19,7 @@ let team: TestTeam;
 beforeAll(async () => {
   ctx = await createTestContext({
     rateLimits: {
-      signInPerAccount: { limit: 3, windowMs: 60_000 },
+      signInPerPair: { limit: 3, windowMs: 60_000 },
       signInPerIp: { limit: 1000, windowMs: 60_000 },
     },
   });
@@ -169,11 +169,20 @@ describe("Origin check on state-changing requests", () => {
     expect(response.body.error.code).toBe("origin_required");
   });
 
+  it("compares the scheme too: https://host is not the origin of a server reached over http", async () => {
+    const response = await request(ctx.app)
+      .post("/api/auth/sign-in")
+      .set("Origin", "https://spreadsight.test")
+      .send({ email: "lead@alder.test", password: TEST_PASSWORD });
+    expect(response.status).toBe(403);
+    expect(response.body.error.code).toBe("bad_origin");
+  });
+
   it("accepts an Origin equal to the Host header, and cookie-less requests without Origin", async () => {
     const sameHost = await request(ctx.app)
       .post("/api/auth/sign-in")
       .set("Host", "spreadsight.internal:8080")
-      .set("Origin", "https://spreadsight.internal:8080")
+      .set("Origin", "http://spreadsight.internal:8080")
       .send({ email: "trainee@alder.test", password: TEST_PASSWORD });
     expect(sameHost.status).toBe(200);
     const noOrigin = await request(ctx.app)
@@ -190,7 +199,7 @@ describe("Origin check on state-changing requests", () => {
 });
 
 describe("sign-in rate limit", () => {
-  it("blocks an account after 3 failures (test limit) with 429 and Retry-After, even with the right password", async () => {
+  it("blocks an account-and-address pair after 3 failures (test limit) with 429 and Retry-After, even with the right password", async () => {
     const email = "reviewer@alder.test";
     for (let i = 0; i < 3; i++) {
       const r = await client(ctx.app)
@@ -211,7 +220,6 @@ describe("sign-in rate limit", () => {
       .post("/api/auth/sign-in")
       .send({ email: "admin@alder.test", password: TEST_PASSWORD });
     expect(other.status).toBe(200);
-    ctx.locals.limiters.signInPerAccount.reset(email);
   });
 
   it("blocks an IP after too many failures across accounts", async () => {

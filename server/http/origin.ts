@@ -1,8 +1,10 @@
 /**
  * Cross-site request forgery guard for state-changing requests (POST, PUT, PATCH, DELETE):
  *
- * - an Origin header, when present, must name this server: its host must equal the request's
- *   Host header or the host of PUBLIC_URL (or one of `extraOrigins`); otherwise 403 `bad_origin`;
+ * - an Origin header, when present, must name this server, scheme included: it must equal the
+ *   request's own origin (its scheme, which honours `trust proxy`, and its Host header) or the
+ *   origin of PUBLIC_URL (or one of `extraOrigins`); otherwise 403 `bad_origin`. So
+ *   `http://host` is refused by a server whose public URL is `https://host`;
  * - a request without Origin is allowed only when it carries no session cookie (a script or
  *   test client acting for itself); with a session cookie it gets 403 `origin_required`,
  *   since every current browser sends Origin on these methods.
@@ -15,9 +17,12 @@ import { SESSION_COOKIE } from "./session";
 
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 
-function hostOf(url: string): string | null {
+/** "scheme://host[:port]" in lower case with default ports dropped, or null. */
+function originOf(url: string): string | null {
   try {
-    return new URL(url).host.toLowerCase();
+    const parsed = new URL(url);
+    if (parsed.protocol !== "http:" && parsed.protocol !== "https:") return null;
+    return parsed.origin.toLowerCase();
   } catch {
     return null;
   }
@@ -27,8 +32,8 @@ export function originCheck(options: {
   publicUrl: string;
   extraOrigins?: string[];
 }): RequestHandler {
-  const fixedHosts = [options.publicUrl, ...(options.extraOrigins ?? [])]
-    .map(hostOf)
+  const fixedOrigins = [options.publicUrl, ...(options.extraOrigins ?? [])]
+    .map(originOf)
     .filter((h): h is string => h !== null);
   const cookiePattern = new RegExp(`(?:^|;)\\s*${SESSION_COOKIE}=`);
 
@@ -52,9 +57,11 @@ export function originCheck(options: {
       next();
       return;
     }
-    const originHost = hostOf(origin);
-    const requestHost = req.headers.host?.toLowerCase();
-    if (originHost && (originHost === requestHost || fixedHosts.includes(originHost))) {
+    const originValue = originOf(origin);
+    const requestOrigin = req.headers.host
+      ? originOf(`${req.protocol}://${req.headers.host}`)
+      : null;
+    if (originValue && (originValue === requestOrigin || fixedOrigins.includes(originValue))) {
       next();
       return;
     }

@@ -1,5 +1,6 @@
 /** Outgoing e-mail through nodemailer over SMTP (a real server, or the built-in fake one). */
 import nodemailer from "nodemailer";
+import type { Logger } from "pino";
 
 export interface OutgoingMail {
   to: string;
@@ -36,5 +37,22 @@ export function createMailer(options: { smtpUrl: string; from: string }): Mailer
     close() {
       transport.close();
     },
+  };
+}
+
+/**
+ * Used when neither SMTP_URL nor the demo mailbox is set: nothing is sent. Each message is
+ * logged as a warning with its recipient and subject only (never its text, which may hold a
+ * one-time link).
+ */
+export function disabledMailer(logger: Logger): Mailer {
+  return {
+    async send(mail) {
+      logger.warn(
+        { to: mail.to, subject: mail.subject },
+        "e-mail not sent: set SMTP_URL to send mail (see README, E-mail)",
+      );
+    },
+    close() {},
   };
 }

@@ -6,7 +6,6 @@ import {
   signInSchema,
   signOutSchema,
 } from "@/contracts/auth";
-import { AppError } from "../../domain/errors";
 import {
   completePasswordReset,
   recordSignIn,
@@ -15,32 +14,21 @@ import {
 } from "../../domain/auth";
 import { meResponse } from "../../domain/me";
 import type { RouteContext } from "../context";
-import { assertNotLimited } from "../rate-limit";
+import { reserveReset } from "../rate-limit";
 import { parseBody, parseParams, tokenParamSchema } from "../validate";
 
 export function authRouter(ctx: RouteContext): Router {
   const router = Router();
   const { dataSource } = ctx.services;
-  const { signInPerAccount, signInPerIp, passwordResetPerIp } = ctx.limiters;
+  const { signIn: guard, store, config } = ctx.limits;
 
   router.post("/sign-in", async (req, res) => {
     const input = parseBody(signInSchema, req);
     const ip = req.ip ?? "unknown";
-    assertNotLimited([
-      [signInPerIp, ip],
-      [signInPerAccount, input.email],
-    ]);
-    let actor;
-    try {
-      actor = await verifyCredentials(dataSource, input.email, input.password);
-    } catch (error) {
-      if (error instanceof AppError && error.status === 401) {
-        signInPerIp.hit(ip);
-        signInPerAccount.hit(input.email);
-      }
-      throw error;
-    }
-    signInPerAccount.reset(input.email);
+    // The attempt is counted before the password is hashed: parallel guesses cannot outrun it.
+    await guard.reserve(input.email, ip);
+    const actor = await verifyCredentials(dataSource, input.email, input.password);
+    await guard.succeeded(input.email, ip);
     await ctx.sessions.signIn(req, res, actor.userId);
     await recordSignIn(dataSource, actor, req.ip);
     res.status(200).json(await meResponse(dataSource, actor, ctx.flags));
@@ -54,10 +42,14 @@ export function authRouter(ctx: RouteContext): Router {
 
   router.post("/password-reset", async (req, res) => {
     const ip = req.ip ?? "unknown";
-    assertNotLimited([[passwordResetPerIp, ip]]);
     const { email } = parseBody(requestResetSchema, req);
-    passwordResetPerIp.hit(ip);
-    await requestPasswordReset(ctx.services, email);
+    await reserveReset(store, config, ip);
+    // The look-up, the token and the e-mail happen after the answer, which therefore takes
+    // the same time for every address.
+    ctx.background.run("password reset", async () => {
+      const { sent } = await requestPasswordReset(ctx.services, email);
+      await sent;
+    });
     res.status(202).json({ ok: true });
   });
 
