@@ -15,6 +15,7 @@ import { crossoverMethod, interceptTimeMethod, type ObservedLine } from "./inter
 import { recoverDipLayered } from "./dip-recovery";
 import { degrees, finiteOrNull } from "./numbers";
 import type { Criteria, GroundModel, Plan } from "./plan-schema";
+import { analyzeSection } from "./section-analysis";
 import {
   countOnSegments,
   createPieces,
@@ -252,7 +253,7 @@ export interface PlanAnalysis {
 
 /** Options of analyzePlan. */
 export interface AnalyzeOptions {
-  /** Compute minimum thicknesses (bisection per layer). Default true. */
+  /** Compute minimum thicknesses (closed form per layer, see design.ts). Default true. */
   minimumThickness?: boolean;
 }
 
@@ -577,9 +578,8 @@ function analyzeModel(
   const prep = prepareEarth(earth);
   const n = earth.layerCount;
   const min = criteria.minGeophones;
-  const states = judgedBranches(layout).map(({ shot, branch }) =>
-    evaluateBranch(prep, layout, shot, branch, min),
-  );
+  const judged = judgedBranches(layout);
+  const states = judged.map(({ shot, branch }) => evaluateBranch(prep, layout, shot, branch, min));
   const primaryGeom = primaryBranch(layout);
   const primary =
     states.find((s) => s.shot === 0 && s.branch.side === primaryGeom.side) ??
@@ -616,7 +616,7 @@ function analyzeModel(
       geophones: primary.counts[m],
       status: statusFromCode(worstCode(m)),
       blindEverywhere: prep.rule[m] === 1 && states.every((s) => s.codes[m] === STATUS_CODE.blind),
-      minimumThickness: withDesign ? minimumThickness(earth, layout, min, m, extent) : null,
+      minimumThickness: withDesign ? minimumThickness(prep, layout, min, m, extent, judged) : null,
       branches: states.map((s) => branchVerdict(layout, s, m)),
     });
   }
@@ -671,7 +671,11 @@ export function analyzePlan(plan: Plan, options: AnalyzeOptions = {}): PlanAnaly
     throw new RangeError("spread needs spacing > 0, at least 1 channel and at least 1 shot");
   }
   const layout = layoutOf(spread);
-  const models = plan.models.map((m, i) => analyzeModel(m, i, layout, criteria, options));
+  const models = plan.models.map((m, i) =>
+    m.kind === "section"
+      ? analyzeSection(m, i, spread, criteria)
+      : analyzeModel(m, i, layout, criteria, options),
+  );
   let maxSpacing: number | null = null;
   let crossover = 0;
   for (const m of models) {

@@ -20,7 +20,7 @@ describe("minimumThickness", () => {
 
   it("is the thickness from which the layer's refractor is resolved", () => {
     const earth = earthFromModel({ layers });
-    const h = minimumThickness(earth, layout, 2, 1, extent)!;
+    const h = minimumThickness(prepareEarth(earth), layout, 2, 1, extent)!;
     const status = (t: number) => {
       const w = new Uint8Array(3);
       worstCodes(prepareEarth(withThickness(earth, 1, t)), layout, 2, createJudgeScratch(3), w);
@@ -38,7 +38,10 @@ describe("minimumThickness", () => {
     const limit =
       ((x12 * (1 / v2 - 1 / v3) + t2 - (2 * h1 * cosC(v1, v3)) / v1) * v2) / (2 * cosC(v2, v3));
     const fine = { spacing: 0.001, channels: 60000, firstGeophone: 0, shots: [-0.0005] };
-    const h = minimumThickness(earthFromModel({ layers }), fine, 2, 1, { from: -0.0005, to: 60 })!;
+    const h = minimumThickness(prepareEarth(earthFromModel({ layers })), fine, 2, 1, {
+      from: -0.0005,
+      to: 60,
+    })!;
     expect(h).toBeGreaterThan(limit);
     expect(h - limit).toBeLessThan(0.01);
   });
@@ -51,8 +54,8 @@ describe("minimumThickness", () => {
         { velocity: 3000 },
       ],
     });
-    expect(minimumThickness(inv, layout, 2, 1, extent)).toBeNull();
-    expect(minimumThickness(inv, layout, 2, 2, extent)).toBeNull();
+    expect(minimumThickness(prepareEarth(inv), layout, 2, 1, extent)).toBeNull();
+    expect(minimumThickness(prepareEarth(inv), layout, 2, 2, extent)).toBeNull();
   });
 });
 
