@@ -12,9 +12,11 @@ import type { DataSource } from "typeorm";
 import { stationLayoutCsv } from "../../workers/field/index";
 import type { Plan } from "../data/entities/plan";
 import { PlanRevision } from "../data/entities/plan-revision";
+import { describePlanProblem } from "@/contracts/plan-problems";
 import type { Actor } from "./actor";
 import { AppError, collectFields, fieldsFromZod, forbidden, notFound } from "./errors";
-import { createPlan, findVisiblePlan, requireCreator } from "./plans";
+import { findVisiblePlan } from "./plan-visibility";
+import { createPlan, requireCreator } from "./plans";
 
 /** 403 unless the actor may export this plan. */
 export function requireExporter(actor: Actor, plan: Plan): void {
@@ -108,7 +110,11 @@ export function parsePlanDocument(body: unknown): PlanDocument {
     );
   }
   const entries = Object.entries(fields);
-  const list = entries.map(([k, v]) => `${k}: ${v[0]}`);
+  // The sentence counts models and layers from 1 as the screens do; the machine-readable key
+  // follows in brackets for scripts, and `fields` keeps its keys.
+  const list = entries.map(([k, v]) =>
+    k === "root" ? v[0] : `${describePlanProblem(k, v[0])} [${k}]`,
+  );
   throw new AppError(
     400,
     "invalid_input",

@@ -21,6 +21,7 @@ import { SiteRoute } from "./site-route";
 import { RequireAuth, RequireRole } from "./guards";
 import { paths } from "./paths";
 import { NotFoundPage } from "./not-found";
+import { PlanLinkGuard } from "./plan-link";
 import { FieldCheckPage } from "@/features/field";
 
 /** What the designer borrows from the Review feature: the threads beside a layer, refractor or shot. */
@@ -37,13 +38,29 @@ export const appRoutes: RouteObject[] = [
   {
     path: paths.plan(),
     element: (
-      <DesignerSlotsProvider slots={designerSlots}>
-        <PlanDesignerPage />
-      </DesignerSlotsProvider>
+      <PlanLinkGuard>
+        <DesignerSlotsProvider slots={designerSlots}>
+          <PlanDesignerPage />
+        </DesignerSlotsProvider>
+      </PlanLinkGuard>
     ),
   },
-  { path: paths.planReview(), element: <ReviewPage /> },
-  { path: paths.planField(), element: <FieldCheckPage /> },
+  {
+    path: paths.planReview(),
+    element: (
+      <PlanLinkGuard>
+        <ReviewPage />
+      </PlanLinkGuard>
+    ),
+  },
+  {
+    path: paths.planField(),
+    element: (
+      <PlanLinkGuard>
+        <FieldCheckPage />
+      </PlanLinkGuard>
+    ),
+  },
   { path: paths.inbox, element: <InboxPage /> },
   {
     path: paths.activity,

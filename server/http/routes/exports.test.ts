@@ -92,6 +92,8 @@ describe("plan JSON export and import", () => {
       "spread.spacing": ["spacing must be > 0"],
     });
     expect(response.body.error.message).toContain("models.0.layers.1.velocity");
+    // The sentence counts as the screen does (model 1, layer 2), the key stays for scripts.
+    expect(response.body.error.message).toContain("Model 1, layer 2: velocity must be > 0");
     expect(await planCount()).toBe(before);
   });
 

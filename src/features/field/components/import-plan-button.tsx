@@ -1,19 +1,33 @@
 import { useId, useRef, useState } from "react";
 import type { PlanDetail } from "@/contracts/plans";
 import { ApiError, errorMessage } from "@/lib/api-client";
+import { describePlanProblem } from "@/contracts/plan-problems";
 import { useImportPlan } from "../api/import-plan";
 
 /** Largest plan file read in the browser, bytes (the API takes JSON bodies up to 1 MB). */
 const MAX_BYTES = 1024 * 1024;
 
-/** The problems of a refused import, one per field ("models.0.layers.1.velocity: …"). */
+/** The problems of a refused import, one per field, counted from 1 ("Model 1, layer 2: …"). */
 export function importProblems(error: unknown): string[] {
   if (error instanceof ApiError && error.fields) {
     return Object.entries(error.fields).flatMap(([field, messages]) =>
-      messages.map((m) => (field === "root" ? m : `${field}: ${m}`)),
+      messages.map((m) => describePlanProblem(field, m)),
     );
   }
   return [errorMessage(error)];
+}
+
+/**
+ * Why a chosen file is not a plan, in plain words (never the parser's "Unexpected token"): a
+ * CSV table (e.g. a station or borehole file) is named as such.
+ */
+export function notPlanJson(fileName: string, text: string): string {
+  const firstLine = text.trimStart().split(/\r?\n/, 1)[0] ?? "";
+  const csv =
+    /\.(csv|txt)$/i.test(fileName) || (!/^[[{]/.test(firstLine) && firstLine.includes(","));
+  return csv
+    ? `${fileName} is not a plan JSON file: it looks like a CSV table. Choose a plan document (.json), such as one exported from a plan's designer.`
+    : `${fileName} is not a plan JSON file: its text is not JSON. Choose a plan document (.json), such as one exported from a plan's designer.`;
 }
 
 /**
@@ -43,10 +57,11 @@ export function ImportPlanButton({
       return;
     }
     let document: unknown;
+    const text = await file.text();
     try {
-      document = JSON.parse(await file.text());
-    } catch (error) {
-      setLocalError(`${file.name} is not valid JSON: ${(error as Error).message}`);
+      document = JSON.parse(text);
+    } catch {
+      setLocalError(notPlanJson(file.name, text));
       return;
     }
     importPlan.mutate(document, { onSuccess: (plan) => onImported?.(plan) });

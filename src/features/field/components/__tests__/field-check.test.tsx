@@ -226,7 +226,7 @@ describe("ImportPlanButton", () => {
       }),
     );
     const alert = await screen.findByRole("alert");
-    expect(alert).toHaveTextContent("spread.spacing: spacing must be > 0");
+    expect(alert).toHaveTextContent("Spread: spacing must be > 0");
     expect(alert).toHaveTextContent("colour: unknown field");
     expect(onImported).not.toHaveBeenCalled();
   });
@@ -257,7 +257,7 @@ describe("ImportPlanButton", () => {
       screen.getByLabelText("Import plan (JSON)"),
       new File(["{ not json"], "plan.json", { type: "application/json" }),
     );
-    expect(await screen.findByRole("alert")).toHaveTextContent("plan.json is not valid JSON");
+    expect(await screen.findByRole("alert")).toHaveTextContent("plan.json is not a plan JSON file: its text is not JSON");
     expect(calls).toHaveLength(0);
   });
 });
