@@ -10,9 +10,18 @@ export type { PickResult, PickTiming } from "./pick-window";
 export { pickStaLta, characteristicFunction, type StaLtaOptions } from "./sta-lta-picker";
 export { pickAic, type AicOptions } from "./aic-picker";
 export { pickEnergyRatio, type EnergyRatioOptions } from "./energy-ratio-picker";
+export { pickOnset, traceNoise, type OnsetOptions, type OnsetResult } from "./onset-picker";
+export {
+  neighbourPrediction,
+  neighbourTolerance,
+  pickQuality,
+  type PickQuality,
+} from "./pick-quality";
 export {
   pickRecord,
   pickTrace,
+  predictedWindow,
+  type OnsetRecordOptions,
   type PickerChoice,
   type PickableTrace,
   type RecordPick,

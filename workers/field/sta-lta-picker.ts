@@ -16,9 +16,9 @@ import {
 
 /** Parameters of the STA/LTA picker. */
 export interface StaLtaOptions extends PickTiming {
-  /** Short-term window, s (default 0.004). */
+  /** Short-term window, s (default 0.004; never fewer than 8 samples). */
   staWindow?: number;
-  /** Long-term window, s (default 0.04). */
+  /** Long-term window, s (default 0.04; never fewer than 5 short-term windows). */
   ltaWindow?: number;
   /** Ratio that declares the first break (default 4). */
   threshold?: number;
@@ -34,6 +34,11 @@ export interface StaLtaOptions extends PickTiming {
    */
   refine?: "none" | "aic";
 }
+
+/** Fewest samples in the short-term window, whatever its length in seconds. */
+const MIN_STA = 8;
+/** Fewest short-term windows in the long-term window. */
+const LTA_PER_STA = 5;
 
 /** Shortest long-term window, in short-term windows, accepted at the start of a record. */
 const MIN_LTA = 3;
@@ -81,8 +86,10 @@ export function pickStaLta(samples: Float32Array, options: StaLtaOptions): PickR
   if (bad) return { time: null, reason: bad };
 
   const dt = options.sampleInterval;
-  const ns = Math.max(1, Math.round(staWindow / dt));
-  const nl = Math.max(ns, Math.round(ltaWindow / dt));
+  // Windows are scaled to the sample interval: a short-term window of fewer than MIN_STA
+  // samples (4 ms at 1 ms sampling holds 4) makes the ratio jump on single noisy samples.
+  const ns = Math.max(MIN_STA, Math.round(staWindow / dt));
+  const nl = Math.max(LTA_PER_STA * ns, Math.round(ltaWindow / dt));
   // Near the start of a record the long-term window is shortened to the samples available,
   // but never below MIN_LTA short-term windows, so early first breaks can still be picked.
   const first = Math.max(range.from, ns + Math.min(nl, MIN_LTA * ns) - 1);

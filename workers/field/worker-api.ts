@@ -4,6 +4,7 @@
  */
 import { pickAic } from "./aic-picker";
 import { pickEnergyRatio } from "./energy-ratio-picker";
+import { pickOnset } from "./onset-picker";
 import { pickRecord, pickTrace } from "./pick-record";
 import { readSeg2 } from "./seg2-reader";
 import { pickStaLta } from "./sta-lta-picker";
@@ -16,6 +17,7 @@ export const fieldApi = {
   pickStaLta,
   pickAic,
   pickEnergyRatio,
+  pickOnset,
 };
 
 /** Type of the field worker's API (wrap it with comlink's Remote<>). */
