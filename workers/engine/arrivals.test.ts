@@ -89,8 +89,10 @@ describe("computeArrivals", () => {
           m,
           { spacing: 3, channels: 40, firstGeophone: 0, shots: [{ position: -2 }] },
           0,
+          { reflections: true },
         );
         for (const g of shot.geophones) {
+          expect(g.reflections).toHaveLength(layers.length - 1);
           for (const r of g.reflections) {
             if (r.time !== null) expect(r.time).toBeGreaterThanOrEqual(g.first.time * (1 - 1e-12));
           }
@@ -98,6 +100,20 @@ describe("computeArrivals", () => {
       }),
       { numRuns: 100 },
     );
+  });
+
+  // Two flat layers: the reflection from the base of layer 1 arrives at
+  // t = √(x² + 4h²) / v1 (Telford, Geldart & Sheriff 1990, §4.2).
+  it("solves reflections only when asked, and nothing else changes", () => {
+    const two = { layers: [{ velocity: 600, thickness: 4 }, { velocity: 2400 }] };
+    const plain = computeArrivals(two, spread, 0);
+    const asked = computeArrivals(two, spread, 0, { reflections: true });
+    expect(plain.geophones.every((g) => g.reflections.length === 0)).toBe(true);
+    for (const [k, g] of asked.geophones.entries()) {
+      const t = g.reflections[0].time as number;
+      expect(t).toBeCloseTo(Math.hypot(g.offset, 8) / 600, 12);
+      expect({ ...g, reflections: [] }).toEqual(plain.geophones[k]);
+    }
   });
 
   it("throws a RangeError for a shot that does not exist", () => {

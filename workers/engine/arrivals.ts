@@ -29,7 +29,10 @@ export interface GeophoneArrivals {
   direct: number;
   /** Head-wave time per refractor (layers 2..n); null where it does not exist or offset < critical distance. */
   head: { layer: number; time: number | null }[];
-  /** Reflection time from the top of each layer 2..n; null where no reflected ray emerges. */
+  /**
+   * Reflection time from the top of each layer 2..n, s; null where no reflected ray emerges.
+   * Empty unless computeArrivals was asked for reflections.
+   */
   reflections: { layer: number; time: number | null }[];
   /** The first arrival: its time (s) and which arrival it is. */
   first: ArrivalKind & { time: number };
@@ -58,16 +61,25 @@ function kindOf(arrival: number): ArrivalKind {
   return arrival === 0 ? { kind: "direct" } : { kind: "head", layer: arrival + 1 };
 }
 
+/** Options of computeArrivals. */
+export interface ArrivalOptions {
+  /** Also solve the reflection from every interface at every geophone. Default false. */
+  reflections?: boolean;
+}
+
 /**
  * Arrivals of shot `shotIndex` (0-based into spread.shots) at every geophone: direct wave,
- * every head wave (null where absent or before its critical distance), reflections from
- * every interface, and the first arrival with its kind. Throws RangeError for a bad shot
- * index or a model whose interfaces cross within the spread.
+ * every head wave (null where absent or before its critical distance), the first arrival
+ * with its kind, and, only when `options.reflections` is true, reflections from every
+ * interface (otherwise `reflections` is empty at every geophone and none is solved). Times
+ * in s, positions and offsets in m. Throws RangeError for a bad shot index or a model whose
+ * interfaces cross within the spread.
  */
 export function computeArrivals(
   model: Pick<GroundModel, "layers">,
   spread: Spread,
   shotIndex: number,
+  options: ArrivalOptions = {},
 ): ShotArrivals {
   const shot = spread.shots[shotIndex];
   if (!Number.isInteger(shotIndex) || !shot) throw new RangeError(`no shot ${shotIndex}`);
@@ -79,7 +91,10 @@ export function computeArrivals(
   const xs = shot.position;
   const forward = sideState(prep, xs, 1);
   const reverse = sideState(prep, xs, -1);
-  const solvers = Array.from({ length: n - 1 }, (_, i) => reflectionSolver(earth, i + 1, xs));
+  const solvers =
+    options.reflections === true
+      ? Array.from({ length: n - 1 }, (_, i) => reflectionSolver(earth, i + 1, xs))
+      : [];
   const geophones: GeophoneArrivals[] = [];
   for (let channel = 0; channel < spread.channels; channel++) {
     const position = geophonePosition(layout, channel);
