@@ -49,7 +49,7 @@ function thicknesses(v: number[], t: number[]): number[] | string {
     const cos = Math.sqrt(1 - (v[n - 1] / v[n]) ** 2);
     const hn = ((t[n] - above) * v[n - 1]) / (2 * cos);
     if (!(hn > 0)) {
-      return `the intercept times give a thickness of ${hn.toFixed(2)} m for layer ${n}: segment ${n + 1} is inconsistent with those above it (a hidden layer, a segment assigned to the wrong refractor, or a dipping refractor)`;
+      return `the intercept times give a thickness of ${hn.toFixed(2)} m for layer ${n}: segment ${n + 1} is inconsistent with those above it (a blind layer, a segment assigned to the wrong refractor, or a dipping refractor)`;
     }
     h.push(hn);
   }

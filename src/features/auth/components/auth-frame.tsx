@@ -9,7 +9,7 @@ export function AuthFrame({ title, children }: { title: string; children: ReactN
         <div className="mb-6 flex flex-col items-start gap-2">
           <Wordmark />
           <p className="text-sm text-ink-soft">
-            Plan refraction spreads that see every layer: hidden-layer checks before the crew
+            Plan refraction spreads that see every layer: blind-layer checks before the crew
             mobilises.
           </p>
         </div>

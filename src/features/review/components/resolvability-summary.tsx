@@ -139,6 +139,11 @@ export function ResolvabilitySummaryView({
         interpreted too shallow; ⚠ beyond the plan's depth tolerance). A design check is a model,
         not ground truth: boreholes and a qualified geophysicist’s review decide.
       </p>
+      <p className="text-xs text-ink-faint" data-testid="blind-usage">
+        <span className="font-medium">Blind</span> means a thin layer whose head wave is never the
+        first arrival (a layer in the blind zone, after Soske 1959); some texts call it a hidden
+        layer. A slower layer under a faster one is a velocity inversion.
+      </p>
     </div>
   );
 }

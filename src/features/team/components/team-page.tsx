@@ -33,6 +33,22 @@ export function TeamPage() {
   const removeMember = useRemoveMember();
   const revoke = useRevokeInvitation();
   const [confirmRemove, setConfirmRemove] = useState<string | null>(null);
+  // A role change waits for confirmation, then says what happened (issue 14, item 9).
+  const [pendingRole, setPendingRole] = useState<{ userId: string; role: Role } | null>(null);
+  const [roleChanged, setRoleChanged] = useState<string | null>(null);
+  const pendingMember = members.data?.find((m) => m.userId === pendingRole?.userId);
+  const confirmRole = () => {
+    if (!pendingRole || !pendingMember) return;
+    const { role } = pendingRole;
+    const name = pendingMember.name;
+    changeRole.mutate(pendingRole, {
+      onSuccess: () =>
+        setRoleChanged(
+          `${name} is now ${ROLE_LABELS[role].toLowerCase()}: ${ROLE_DUTIES[role]}. The change applies from their next page load.`,
+        ),
+      onSettled: () => setPendingRole(null),
+    });
+  };
 
   return (
     <div>
@@ -50,6 +66,28 @@ export function TeamPage() {
           {changeRole.isError ? (
             <ErrorNotice error={changeRole.error} title="Could not change the role" />
           ) : null}
+          {roleChanged && !pendingRole ? <Notice tone="success">{roleChanged}</Notice> : null}
+          {pendingRole && pendingMember ? (
+            <div
+              role="group"
+              aria-label="Confirm the role change"
+              className="mb-3 flex flex-col gap-2 rounded-md border border-ochre/60 bg-ochre-soft/60 px-3 py-2 text-sm text-ink-deep"
+            >
+              <p>
+                Change {pendingMember.name}’s role from {ROLE_LABELS[pendingMember.role]} to{" "}
+                {ROLE_LABELS[pendingRole.role]}? As {ROLE_LABELS[pendingRole.role].toLowerCase()}{" "}
+                they {ROLE_DUTIES[pendingRole.role]}.
+              </p>
+              <span className="flex flex-wrap gap-2">
+                <Button disabled={changeRole.isPending} onClick={confirmRole}>
+                  Change role
+                </Button>
+                <Button variant="quiet" onClick={() => setPendingRole(null)}>
+                  Keep {ROLE_LABELS[pendingMember.role]}
+                </Button>
+              </span>
+            </div>
+          ) : null}
           {removeMember.isError ? (
             <ErrorNotice error={removeMember.error} title="Could not remove the member" />
           ) : null}
@@ -58,9 +96,9 @@ export function TeamPage() {
               <thead className="border-b border-rule text-xs tracking-wide text-ink-soft uppercase">
                 <tr>
                   <th className="py-2 font-medium">Name</th>
-                  <th className="py-2 font-medium">E-mail</th>
+                  <th className="hidden py-2 font-medium sm:table-cell">E-mail</th>
                   <th className="py-2 font-medium">Role</th>
-                  <th className="py-2 font-medium">Joined</th>
+                  <th className="hidden py-2 font-medium sm:table-cell">Joined</th>
                   <th className="py-2 font-medium">
                     <span className="sr-only">Actions</span>
                   </th>
@@ -74,20 +112,29 @@ export function TeamPage() {
                       <td className="py-2 font-medium text-ink-deep">
                         {member.name}
                         {isSelf ? <span className="ml-1 text-xs text-ink-soft">(you)</span> : null}
+                        <span className="block font-mono text-xs font-normal break-all text-ink-soft sm:hidden">
+                          {member.email}
+                        </span>
                       </td>
-                      <td className="py-2 font-mono text-xs">{member.email}</td>
+                      <td className="hidden py-2 font-mono text-xs sm:table-cell">
+                        {member.email}
+                      </td>
                       <td className="py-2">
                         <select
                           aria-label={`Role of ${member.name}`}
                           className="field-input py-1"
-                          value={member.role}
-                          disabled={changeRole.isPending}
-                          onChange={(e) =>
-                            changeRole.mutate({
-                              userId: member.userId,
-                              role: e.target.value as Role,
-                            })
+                          value={
+                            pendingRole?.userId === member.userId ? pendingRole.role : member.role
                           }
+                          disabled={changeRole.isPending}
+                          onChange={(e) => {
+                            const role = e.target.value as Role;
+                            setRoleChanged(null);
+                            changeRole.reset();
+                            setPendingRole(
+                              role === member.role ? null : { userId: member.userId, role },
+                            );
+                          }}
                         >
                           {ROLES.map((role) => (
                             <option key={role} value={role}>
@@ -96,12 +143,12 @@ export function TeamPage() {
                           ))}
                         </select>
                       </td>
-                      <td className="py-2 text-ink-soft">
+                      <td className="hidden py-2 text-ink-soft sm:table-cell">
                         {dateFormat.format(new Date(member.joinedAt))}
                       </td>
                       <td className="py-2 text-right">
                         {isSelf ? null : confirmRemove === member.userId ? (
-                          <span className="flex justify-end gap-1">
+                          <span className="flex flex-wrap justify-end gap-1">
                             <Button
                               variant="danger"
                               onClick={() =>

@@ -77,4 +77,37 @@ describe("TeamPage", () => {
       role: "reviewer",
     });
   });
+  it("asks before changing a role, says what happened, and keeps the role on Keep", async () => {
+    const rhys = {
+      userId: "00000000-0000-4000-8000-000000000002",
+      name: "Rhys Reviewer",
+      email: "r@example.test",
+      role: "reviewer",
+      joinedAt: "2026-10-02T00:00:00Z",
+    };
+    let role = "reviewer";
+    const calls = stubFetch({
+      "GET /api/team/members": () => ({ status: 200, body: [{ ...rhys, role }] }),
+      "GET /api/invitations": () => ({ status: 200, body: [] }),
+      [`PATCH /api/team/members/${rhys.userId}`]: (body) => {
+        role = (body as { role: string }).role;
+        return { status: 200, body: { ...rhys, role } };
+      },
+    });
+    renderWithApp(<TeamPage />, { me: admin });
+    const select = await screen.findByLabelText("Role of Rhys Reviewer");
+    await userEvent.selectOptions(select, "lead");
+    const confirm = screen.getByRole("group", { name: "Confirm the role change" });
+    expect(confirm).toHaveTextContent("Change Rhys Reviewer’s role from Reviewer to Survey lead?");
+    expect(calls.some((c) => c.method === "PATCH")).toBe(false);
+    await userEvent.click(within(confirm).getByRole("button", { name: "Keep Reviewer" }));
+    expect(screen.queryByRole("group", { name: "Confirm the role change" })).toBeNull();
+    expect(select).toHaveValue("reviewer");
+    expect(calls.some((c) => c.method === "PATCH")).toBe(false);
+
+    await userEvent.selectOptions(select, "lead");
+    await userEvent.click(screen.getByRole("button", { name: "Change role" }));
+    expect(await screen.findByText(/Rhys Reviewer is now survey lead/)).toBeInTheDocument();
+    expect(calls.find((c) => c.method === "PATCH")?.body).toEqual({ role: "lead" });
+  });
 });
