@@ -30,6 +30,20 @@ export default defineConfig({
           hookTimeout: 30000,
         },
       },
+      {
+        // The server suite again on a real PostgreSQL (a throwaway cluster, or the server at
+        // TEST_DATABASE_URL): see server/testing/database.ts. Pure code (workers/**) runs once.
+        resolve: { alias },
+        test: {
+          name: "server-pg",
+          environment: "node",
+          include: ["server/**/*.test.ts"],
+          env: { SPREADSIGHT_TEST_DB: "postgres" },
+          globalSetup: ["server/testing/pg-global-setup.ts"],
+          testTimeout: 20000,
+          hookTimeout: 30000,
+        },
+      },
     ],
   },
 });

@@ -5,13 +5,30 @@ import { join } from "node:path";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_SITES, DEMO_TEAM_NAME } from "./data/seed-demo";
 import { openDatabase } from "./data/data-source";
 import { migrations } from "./data/migrations";
+import {
+  createTestDatabase,
+  serverDatabase,
+  testDatabaseKind,
+  type TestDatabase,
+} from "./testing/database";
 import { startServer } from "./start";
 
 let dir: string;
+const databases: TestDatabase[] = [];
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), "spreadsight-start-"));
 });
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
+afterAll(async () => {
+  rmSync(dir, { recursive: true, force: true });
+  for (const database of databases) await database.drop();
+});
+
+/** A fresh database of this project's kind (SQLite or PostgreSQL), dropped after the file. */
+async function freshDatabase() {
+  const database = await createTestDatabase();
+  databases.push(database);
+  return serverDatabase(database);
+}
 
 async function signInOver(url: string, email: string, password = DEMO_PASSWORD) {
   const response = await fetch(`${url}/api/auth/sign-in`, {
@@ -27,7 +44,8 @@ async function signInOver(url: string, email: string, password = DEMO_PASSWORD) 
   };
 }
 
-describe("database", () => {
+describe.runIf(testDatabaseKind() === "sqlite")("database (SQLite)", () => {
+  // PostgreSQL's counterpart is server/data/data-source.test.ts.
   it("runs every migration on an empty file, with WAL and foreign keys on", async () => {
     const path = join(dir, "nested", "folder", "empty.sqlite");
     const dataSource = await openDatabase({ path });
@@ -59,8 +77,8 @@ describe("database", () => {
 
 describe("startServer", () => {
   it("seeds the demo team once, and everything survives a restart on the same file", async () => {
-    const dbPath = join(dir, "restart.sqlite");
-    const first = await startServer({ port: 0, dbPath, demo: true, serveClient: false });
+    const db = await freshDatabase();
+    const first = await startServer({ port: 0, ...db, demo: true, serveClient: false });
     let siteId: string;
     try {
       expect(first.seeded).toBe(true);
@@ -92,7 +110,7 @@ describe("startServer", () => {
       await first.close();
     }
 
-    const second = await startServer({ port: 0, dbPath, demo: true, serveClient: false });
+    const second = await startServer({ port: 0, ...db, demo: true, serveClient: false });
     try {
       expect(second.seeded).toBe(false);
       const lead = await signInOver(second.url, "lead@spreadsight.test");
@@ -124,7 +142,7 @@ describe("startServer", () => {
     writeFileSync(join(clientDir, "assets", "app-1234.js"), "console.log('hi')");
     const server = await startServer({
       port: 0,
-      dbPath: join(dir, "client.sqlite"),
+      ...(await freshDatabase()),
       clientDir,
       smtpUrl: "smtp://127.0.0.1:9",
     });
@@ -145,14 +163,10 @@ describe("startServer", () => {
   });
 
   it("refuses to start on a port that is taken, and releases the database", async () => {
-    const dbPath = join(dir, "busy.sqlite");
-    const first = await startServer({
-      port: 0,
-      dbPath: join(dir, "busy-first.sqlite"),
-      serveClient: false,
-    });
+    const db = await freshDatabase();
+    const first = await startServer({ port: 0, ...(await freshDatabase()), serveClient: false });
     try {
-      await expect(startServer({ port: first.port, dbPath, serveClient: false })).rejects.toThrow(
+      await expect(startServer({ port: first.port, ...db, serveClient: false })).rejects.toThrow(
         /EADDRINUSE/,
       );
     } finally {

@@ -1,9 +1,7 @@
-import { mkdtempSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { DataSource } from "typeorm";
 import { analyzePlan, parsePlan } from "@engine";
+import { createTestDatabase, type TestDatabase } from "../testing/database";
 import { openDatabase } from "./data-source";
 import { PlanComment } from "./entities/comment";
 import { PlanNotification } from "./entities/notification";
@@ -11,17 +9,17 @@ import { Plan } from "./entities/plan";
 import { PlanRevision } from "./entities/plan-revision";
 import { seedDemo } from "./seed-demo";
 
-let dir: string;
+let database: TestDatabase;
 let dataSource: DataSource;
 
 beforeAll(async () => {
-  dir = mkdtempSync(join(tmpdir(), "spreadsight-seed-"));
-  dataSource = await openDatabase({ path: join(dir, "demo.sqlite") });
+  database = await createTestDatabase();
+  dataSource = await openDatabase(database.options);
   await seedDemo(dataSource);
 });
 afterAll(async () => {
   await dataSource.destroy();
-  rmSync(dir, { recursive: true, force: true });
+  await database.drop();
 });
 
 const plans = () => dataSource.getRepository(Plan).find({ order: { name: "ASC" } });

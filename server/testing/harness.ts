@@ -1,16 +1,14 @@
 /**
- * Test harness for the API: a fresh SQLite file per test file, the fake SMTP server, the
- * Express app for supertest, and two invented teams with one member per role each.
+ * Test harness for the API: a fresh database per test context (SQLite, or PostgreSQL in the
+ * `server-pg` project: see ./database.ts), the fake SMTP server, the Express app for supertest,
+ * and two invented teams with one member per role each.
  */
-import { mkdtempSync, rmSync } from "node:fs";
 import { randomUUID } from "node:crypto";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import type { Express } from "express";
 import request from "supertest";
 import type { DataSource } from "typeorm";
 import { ROLES, type Role } from "@/contracts/common";
-import { openDatabase } from "../data/data-source";
+import { openDatabase, type DatabaseOptions } from "../data/data-source";
 import { Membership } from "../data/entities/membership";
 import { Site } from "../data/entities/site";
 import { Team } from "../data/entities/team";
@@ -21,6 +19,7 @@ import type { RateLimitConfig } from "../http/rate-limit";
 import { createLogger } from "../logger";
 import { startFakeSmtp } from "../mail/fake-smtp";
 import { createMailer } from "../mail/mailer";
+import { createTestDatabase, type TestDatabase } from "./database";
 
 /** The public URL the test app believes it has; also the Origin tests send. */
 export const PUBLIC_URL = "http://spreadsight.test";
@@ -37,18 +36,18 @@ export interface TestTeam {
 export interface TestContext {
   app: Express;
   dataSource: DataSource;
-  dbPath: string;
+  /** The database this context uses (SQLite file or PostgreSQL URL). */
+  database: DatabaseOptions;
   mailbox: NonNullable<AppLocals["mailbox"]>;
   locals: AppLocals;
   close(): Promise<void>;
 }
 
 export async function createTestContext(
-  options: { rateLimits?: Partial<RateLimitConfig>; dbPath?: string } = {},
+  options: { rateLimits?: Partial<RateLimitConfig>; database?: TestDatabase } = {},
 ): Promise<TestContext> {
-  const dir = mkdtempSync(join(tmpdir(), "spreadsight-api-"));
-  const dbPath = options.dbPath ?? join(dir, "test.sqlite");
-  const dataSource = await openDatabase({ path: dbPath });
+  const database = options.database ?? (await createTestDatabase());
+  const dataSource = await openDatabase(database.options);
   const logger = createLogger("silent");
   const smtp = await startFakeSmtp(dataSource, logger);
   const mailer = createMailer({
@@ -67,14 +66,14 @@ export async function createTestContext(
   return {
     app,
     dataSource,
-    dbPath,
+    database: database.options,
     mailbox: locals.mailbox!,
     locals,
     async close() {
       mailer.close();
       await smtp.close();
       await dataSource.destroy();
-      rmSync(dir, { recursive: true, force: true });
+      await database.drop();
     },
   };
 }

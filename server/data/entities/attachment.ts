@@ -1,13 +1,7 @@
 import { Column, Entity, JoinColumn, ManyToOne, PrimaryColumn } from "typeorm";
 import type { AttachmentFacts, AttachmentKind } from "@/contracts/field";
-import { TIMESTAMP, UUID } from "../columns";
+import { BLOB, TIMESTAMP, UUID } from "../columns";
 import { User } from "./user";
-
-/**
- * Binary column type. SQLite stores a Buffer as a BLOB; on PostgreSQL this would be "bytea"
- * (see docs/api.md, "PostgreSQL").
- */
-export const BLOB = "blob" as const;
 
 /**
  * A file uploaded to a plan (borehole log, picks CSV or SEG-2 record), stored against the

@@ -1,5 +1,6 @@
-import { Table, type MigrationInterface, type QueryRunner, type TableColumnOptions } from "typeorm";
-import { TIMESTAMP, UUID_COLUMN } from "../columns";
+import {
+  type MigrationInterface, type QueryRunner, type TableColumnOptions } from "typeorm";
+import { createPortableTable, TIMESTAMP, UUID_COLUMN } from "../columns";
 
 const id = (name = "id"): TableColumnOptions => ({ name, ...UUID_COLUMN, isPrimary: true });
 const uuid = (name: string, nullable = false): TableColumnOptions => ({
@@ -28,11 +29,13 @@ export class Foundation1733097600000 implements MigrationInterface {
   name = "Foundation1733097600000";
 
   async up(q: QueryRunner): Promise<void> {
-    await q.createTable(
-      new Table({ name: "teams", columns: [id(), text("name", 120), time("createdAt")] }),
+    await createPortableTable(
+      q,
+      ({ name: "teams", columns: [id(), text("name", 120), time("createdAt")] }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "users",
         columns: [
           id(),
@@ -44,8 +47,9 @@ export class Foundation1733097600000 implements MigrationInterface {
         ],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "memberships",
         columns: [
           id(),
@@ -59,8 +63,9 @@ export class Foundation1733097600000 implements MigrationInterface {
         checks: [{ name: "CHK_memberships_role", expression: `"role" IN ('admin','lead','reviewer','trainee')` }],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "sessions",
         columns: [
           { name: "id", type: "varchar", length: "64", isPrimary: true },
@@ -71,8 +76,9 @@ export class Foundation1733097600000 implements MigrationInterface {
         indices: [{ name: "IDX_sessions_user", columnNames: ["userId"] }],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "sites",
         columns: [
           id(),
@@ -88,8 +94,9 @@ export class Foundation1733097600000 implements MigrationInterface {
         indices: [{ name: "IDX_sites_team", columnNames: ["teamId", "archivedAt"] }],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "audit_events",
         columns: [
           id(),
@@ -105,8 +112,9 @@ export class Foundation1733097600000 implements MigrationInterface {
         indices: [{ name: "IDX_audit_team_time", columnNames: ["teamId", "createdAt"] }],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "invitations",
         columns: [
           id(),
@@ -125,8 +133,9 @@ export class Foundation1733097600000 implements MigrationInterface {
         checks: [{ name: "CHK_invitations_role", expression: `"role" IN ('admin','lead','reviewer','trainee')` }],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "password_resets",
         columns: [
           id(),
@@ -140,8 +149,9 @@ export class Foundation1733097600000 implements MigrationInterface {
         indices: [{ name: "IDX_password_resets_user", columnNames: ["userId"] }],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "mail_messages",
         columns: [
           id(),
@@ -157,8 +167,9 @@ export class Foundation1733097600000 implements MigrationInterface {
         indices: [{ name: "IDX_mail_team_time", columnNames: ["teamId", "receivedAt"] }],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "user_preferences",
         columns: [
           { name: "userId", ...UUID_COLUMN, isPrimary: true },

@@ -1,5 +1,6 @@
-import { Table, type MigrationInterface, type QueryRunner, type TableColumnOptions } from "typeorm";
-import { TIMESTAMP, UUID_COLUMN } from "../columns";
+import {
+  type MigrationInterface, type QueryRunner, type TableColumnOptions } from "typeorm";
+import { createPortableTable, TIMESTAMP, UUID_COLUMN } from "../columns";
 
 const id = (name = "id"): TableColumnOptions => ({ name, ...UUID_COLUMN, isPrimary: true });
 const uuid = (name: string, nullable = false): TableColumnOptions => ({
@@ -33,8 +34,9 @@ export class PlansReview1733184000000 implements MigrationInterface {
   name = "PlansReview1733184000000";
 
   async up(q: QueryRunner): Promise<void> {
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "plans",
         columns: [
           id(),
@@ -71,8 +73,9 @@ export class PlansReview1733184000000 implements MigrationInterface {
         ],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "plan_revisions",
         columns: [
           id(),
@@ -94,8 +97,9 @@ export class PlansReview1733184000000 implements MigrationInterface {
         uniques: [{ name: "UQ_plan_revisions_plan_number", columnNames: ["planId", "number"] }],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "comments",
         columns: [
           id(),
@@ -122,8 +126,9 @@ export class PlansReview1733184000000 implements MigrationInterface {
         indices: [{ name: "IDX_comments_plan", columnNames: ["planId", "createdAt"] }],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "notifications",
         columns: [
           id(),
@@ -151,8 +156,9 @@ export class PlansReview1733184000000 implements MigrationInterface {
         ],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "notification_settings",
         columns: [
           { name: "userId", ...UUID_COLUMN, isPrimary: true },

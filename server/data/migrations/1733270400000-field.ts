@@ -1,6 +1,6 @@
-import { Table, type MigrationInterface, type QueryRunner, type TableColumnOptions } from "typeorm";
-import { TIMESTAMP, UUID_COLUMN } from "../columns";
-import { BLOB } from "../entities/attachment";
+import {
+  type MigrationInterface, type QueryRunner, type TableColumnOptions } from "typeorm";
+import { BLOB, createPortableTable, TIMESTAMP, UUID_COLUMN } from "../columns";
 
 const id = (): TableColumnOptions => ({ name: "id", ...UUID_COLUMN, isPrimary: true });
 const uuid = (name: string, nullable = false): TableColumnOptions => ({
@@ -26,8 +26,9 @@ export class Field1733270400000 implements MigrationInterface {
   name = "Field1733270400000";
 
   async up(q: QueryRunner): Promise<void> {
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "attachments",
         columns: [
           id(),
@@ -57,8 +58,9 @@ export class Field1733270400000 implements MigrationInterface {
         ],
       }),
     );
-    await q.createTable(
-      new Table({
+    await createPortableTable(
+      q,
+      ({
         name: "pick_sets",
         columns: [
           id(),
