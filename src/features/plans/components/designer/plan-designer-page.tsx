@@ -1,6 +1,6 @@
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { memo, useCallback, useEffect, useRef, useState } from "react";
 import { useQueryClient } from "@tanstack/react-query";
-import { FormProvider, useForm, useWatch } from "react-hook-form";
+import { FormProvider, useForm, useFormState, type Control } from "react-hook-form";
 import { Link, useBlocker, useNavigate, useParams, useSearchParams } from "react-router-dom";
 import type { Plan } from "@engine";
 import { PLAN_STATUS_LABELS, type PlanDetail } from "@/contracts/plans";
@@ -14,16 +14,11 @@ import { planQueryOptions, usePlan } from "../../api/get-plan";
 import { isRevisionConflict, useSavePlan } from "../../api/save-plan";
 import { useCreatePlan } from "../../api/create-plan";
 import { useDuplicatePlan } from "../../api/duplicate-plan";
-import {
-  exactValues,
-  parsePlanForm,
-  planFormResolver,
-  planToForm,
-  type PlanForm,
-} from "../../lib/plan-form";
-import { useDebouncedValue } from "../../hooks/use-debounced-value";
+import { exactValues, planFormResolver, planToForm, type PlanForm } from "../../lib/plan-form";
+import type { AppliedSpread } from "../../lib/apply-recommendation";
+import { useLivePlan } from "../../hooks/use-live-plan";
 import { useSaveShortcut } from "../../hooks/use-save-shortcut";
-import { usePlanAnalysis } from "../../hooks/use-plan-analysis";
+import { usePlanAnalysis, type PlanAnalysisState } from "../../hooks/use-plan-analysis";
 import { GroundModelsPanel } from "./ground-models-panel";
 import { MaterialSourceNote } from "./material-picker";
 import { SpreadPanel } from "./spread-panel";
@@ -90,22 +85,21 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
   });
   const [selectedModel, setSelectedModel] = useState(0);
 
-  // Live analysis: the plan as typed, settled for a moment, parsed by the engine's schema.
-  const values = useWatch({ control: form.control }) as PlanForm;
-  const valuesKey = JSON.stringify(values);
-  const settledKey = useDebouncedValue(valuesKey, 250);
-  const livePlan = useMemo(
-    () => parsePlanForm(JSON.parse(settledKey) as PlanForm, units, baseline.name, exact),
-    [settledKey, units, baseline.name, exact],
-  );
-  const typing = settledKey !== valuesKey;
-  const analysis = usePlanAnalysis(livePlan);
-  // When the settled plan is invalid, mark every offending field (also ones not yet touched,
-  // such as a freshly added layer), so "fix the marked fields" always has marks to point at.
+  // Live analysis (see "Designer rendering" in DEVELOPERS.md): this component never watches
+  // the form's values itself, so a keystroke re-renders only the boxes' own panels; the plan
+  // as typed is parsed on every change and, when it differs, analysed at once by the worker.
+  // When the plan is invalid, mark every offending field (also ones not yet touched, such as
+  // a freshly added layer), so "fix the marked fields" always has marks to point at. This
+  // full validation waits for a pause in typing; it is not on the way to the analysis.
+  const markTimer = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   const { trigger } = form;
-  useEffect(() => {
-    if (livePlan === null) void trigger();
-  }, [settledKey, livePlan, trigger]);
+  const markAll = useCallback(() => {
+    clearTimeout(markTimer.current);
+    markTimer.current = setTimeout(() => void trigger(), 200);
+  }, [trigger]);
+  useEffect(() => () => clearTimeout(markTimer.current), []);
+  const livePlan = useLivePlan(form, units, baseline.name, exact, markAll);
+  const analysis = usePlanAnalysis(livePlan);
 
   // Saving.
   const savePlan = useSavePlan(baseline.id);
@@ -116,7 +110,6 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
   const [reloadError, setReloadError] = useState<unknown>(null);
   const queryClient = useQueryClient();
   const leaving = useRef(false);
-  const dirty = form.formState.isDirty;
   const save = useCallback(() => {
     if (readOnly || savePlan.isPending) return;
     void form.handleSubmit((document) => {
@@ -138,18 +131,17 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
   }, [readOnly, savePlan, form, baseline.revision, exact, units]);
   useSaveShortcut(save, !readOnly);
 
-  const blocker = useBlocker(
-    ({ currentLocation, nextLocation }) =>
-      dirty && !readOnly && !leaving.current && currentLocation.pathname !== nextLocation.pathname,
+  const applyRecommendation = useCallback(
+    (spread: AppliedSpread) => {
+      const opts = { shouldDirty: true, shouldValidate: true };
+      form.setValue("spread.spacing", formatInput("length", spread.spacing, units), opts);
+      form.setValue("spread.channels", String(spread.channels), opts);
+      spread.shots.forEach((position, i) =>
+        form.setValue(`spread.shots.${i}.position`, formatInput("length", position, units), opts),
+      );
+    },
+    [form, units],
   );
-  useEffect(() => {
-    if (!dirty || readOnly) return;
-    const onUnload = (event: BeforeUnloadEvent) => event.preventDefault();
-    window.addEventListener("beforeunload", onUnload);
-    return () => window.removeEventListener("beforeunload", onUnload);
-  }, [dirty, readOnly]);
-
-  const errorCount = countErrors(form.formState.errors);
 
   return (
     <FormProvider {...form}>
@@ -188,12 +180,11 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
           </div>
           <div className="flex flex-wrap items-center gap-3">
             <AnalysisState
-              typing={typing}
+              control={form.control}
               valid={livePlan !== null}
               pending={analysis.pending}
               current={analysis.current}
               error={analysis.error}
-              errorCount={errorCount}
             />
             {baseline.permissions.duplicate ? (
               <Button
@@ -215,21 +206,12 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
               </Button>
             ) : null}
             {!readOnly ? (
-              <>
-                <span
-                  className={`text-sm ${dirty ? "font-medium text-ochre" : "text-ink-soft"}`}
-                  aria-live="polite"
-                >
-                  {dirty ? "● Unsaved changes" : savePlan.isSuccess ? "Saved" : "No changes"}
-                </span>
-                <Button
-                  onClick={save}
-                  disabled={savePlan.isPending || !dirty}
-                  title="Save (Ctrl+S)"
-                >
-                  {savePlan.isPending ? "Saving…" : "Save"}
-                </Button>
-              </>
+              <SaveControls
+                control={form.control}
+                onSave={save}
+                saving={savePlan.isPending}
+                saved={savePlan.isSuccess}
+              />
             ) : null}
           </div>
         </header>
@@ -280,21 +262,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
             }
           />
         ) : null}
-        {blocker.state === "blocked" ? (
-          <div className="mb-4">
-            <Notice tone="caution">
-              <p className="font-medium">This plan has unsaved changes.</p>
-              <div className="mt-2 flex gap-2">
-                <Button variant="secondary" onClick={() => blocker.reset()}>
-                  Stay and keep editing
-                </Button>
-                <Button variant="danger" onClick={() => blocker.proceed()}>
-                  Leave without saving
-                </Button>
-              </div>
-            </Notice>
-          </div>
-        ) : null}
+        <UnsavedChangesGuard control={form.control} readOnly={readOnly} leaving={leaving} />
 
         <nav aria-label="Designer views" className="mb-4 flex gap-1">
           {VIEWS.map((v) => (
@@ -353,7 +321,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
                 <fieldset disabled={readOnly} className="min-w-0">
                   <div hidden={editor !== "models"}>
                     <ErrorBoundary title="The ground models panel failed to draw">
-                      <GroundModelsPanel
+                      <MemoGroundModelsPanel
                         units={units}
                         selected={selectedModel}
                         onSelect={setSelectedModel}
@@ -364,35 +332,20 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
                   </div>
                   <div hidden={editor !== "spread"}>
                     <ErrorBoundary title="The spread panel failed to draw">
-                      <SpreadPanel units={units} readOnly={readOnly} />
+                      <MemoSpreadPanel units={units} readOnly={readOnly} />
                     </ErrorBoundary>
                   </div>
                 </fieldset>
               </form>
             </Card>
             <ErrorBoundary title="The analysis failed to draw">
-              <ResultsPanel
+              <MemoResultsPanel
                 analysis={analysis}
                 units={units}
                 selectedModel={selectedModel}
                 onSelectModel={setSelectedModel}
                 readOnly={readOnly}
-                onApplyRecommendation={(spread) => {
-                  const opts = { shouldDirty: true, shouldValidate: true };
-                  form.setValue(
-                    "spread.spacing",
-                    formatInput("length", spread.spacing, units),
-                    opts,
-                  );
-                  form.setValue("spread.channels", String(spread.channels), opts);
-                  spread.shots.forEach((position, i) =>
-                    form.setValue(
-                      `spread.shots.${i}.position`,
-                      formatInput("length", position, units),
-                      opts,
-                    ),
-                  );
-                }}
+                onApplyRecommendation={applyRecommendation}
               />
             </ErrorBoundary>
           </div>
@@ -423,30 +376,119 @@ function countErrors(errors: unknown): number {
   return count;
 }
 
+// The panels subscribe to the parts of the form they show (useWatch / useFormState by name),
+// so the designer re-renders them only when their own props change.
+const MemoGroundModelsPanel = memo(GroundModelsPanel);
+const MemoSpreadPanel = memo(SpreadPanel);
+const MemoResultsPanel = memo(ResultsPanel, (a, b) => {
+  const keys = Object.keys(a) as Array<keyof typeof a>;
+  return keys.every((k) =>
+    k === "analysis" ? sameAnalysisState(a.analysis, b.analysis) : a[k] === b[k],
+  );
+});
+
+/** The analysis state as the results show it (a fresh object each render, same content). */
+function sameAnalysisState(a: PlanAnalysisState, b: PlanAnalysisState): boolean {
+  return (
+    a.result === b.result &&
+    a.resultInput === b.resultInput &&
+    a.current === b.current &&
+    a.pending === b.pending &&
+    a.error === b.error
+  );
+}
+
+/** "● Unsaved changes" and Save: only these re-render when the form becomes dirty. */
+function SaveControls({
+  control,
+  onSave,
+  saving,
+  saved,
+}: {
+  control: Control<PlanForm, unknown, Plan>;
+  onSave: () => void;
+  saving: boolean;
+  saved: boolean;
+}) {
+  const { isDirty: dirty } = useFormState({ control });
+  return (
+    <>
+      <span
+        className={`text-sm ${dirty ? "font-medium text-ochre" : "text-ink-soft"}`}
+        aria-live="polite"
+      >
+        {dirty ? "● Unsaved changes" : saved ? "Saved" : "No changes"}
+      </span>
+      <Button onClick={onSave} disabled={saving || !dirty} title="Save (Ctrl+S)">
+        {saving ? "Saving…" : "Save"}
+      </Button>
+    </>
+  );
+}
+
+/** Asks before leaving a plan with unsaved changes (in the app and when closing the tab). */
+function UnsavedChangesGuard({
+  control,
+  readOnly,
+  leaving,
+}: {
+  control: Control<PlanForm, unknown, Plan>;
+  readOnly: boolean;
+  leaving: { current: boolean };
+}) {
+  const { isDirty: dirty } = useFormState({ control });
+  const blocker = useBlocker(
+    ({ currentLocation, nextLocation }) =>
+      dirty && !readOnly && !leaving.current && currentLocation.pathname !== nextLocation.pathname,
+  );
+  useEffect(() => {
+    if (!dirty || readOnly) return;
+    const onUnload = (event: BeforeUnloadEvent) => event.preventDefault();
+    window.addEventListener("beforeunload", onUnload);
+    return () => window.removeEventListener("beforeunload", onUnload);
+  }, [dirty, readOnly]);
+  if (blocker.state !== "blocked") return null;
+  return (
+    <div className="mb-4">
+      <Notice tone="caution">
+        <p className="font-medium">This plan has unsaved changes.</p>
+        <div className="mt-2 flex gap-2">
+          <Button variant="secondary" onClick={() => blocker.reset()}>
+            Stay and keep editing
+          </Button>
+          <Button variant="danger" onClick={() => blocker.proceed()}>
+            Leave without saving
+          </Button>
+        </div>
+      </Notice>
+    </div>
+  );
+}
+
 function AnalysisState({
-  typing,
+  control,
   valid,
   pending,
   current,
   error,
-  errorCount,
 }: {
-  typing: boolean;
+  control: Control<PlanForm, unknown, Plan>;
   valid: boolean;
   pending: boolean;
   current: boolean;
   error: unknown;
-  errorCount: number;
 }) {
+  const { errors } = useFormState({ control });
+  const errorCount = valid ? 0 : countErrors(errors);
   let text: string;
   let tone = "text-ink-soft";
-  if (!valid && !typing) {
+  if (!valid) {
     text =
       errorCount > 0
         ? `Fix ${errorCount} marked field${errorCount === 1 ? "" : "s"} to update the analysis`
         : "Fix the marked fields to update the analysis";
     tone = "text-brick";
-  } else if (typing || pending) {
+  } else if (pending) {
     text = "Updating…";
     tone = "text-ochre";
   } else if (error) {
