@@ -2,10 +2,12 @@
  * Command-line entry: `node --import tsx server/main.ts [--demo]` (npm start / npm run demo).
  *
  * Environment: PORT (3000), HOST (127.0.0.1), SPREADSIGHT_DB (./data/spreadsight.sqlite),
+ * DATABASE_URL (postgres://…: PostgreSQL instead of the SQLite file; DB_POOL_SIZE, default 10),
  * SMTP_URL (unset: built-in fake mailbox), MAIL_FROM, PUBLIC_URL (http://HOST:PORT),
  * SPREADSIGHT_DEMO=1 (same as --demo), TRUST_PROXY, LOG_LEVEL (info).
  */
 import { resolve } from "node:path";
+import { isPostgresUrl, redactUrl } from "./data/data-source";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "./data/seed-demo";
 import { createLogger } from "./logger";
 import { startServer } from "./start";
@@ -29,9 +31,14 @@ async function main(): Promise<void> {
   const env = process.env;
   const demo = process.argv.includes("--demo") || env.SPREADSIGHT_DEMO === "1";
   const logger = createLogger();
+  const databaseUrl = env.DATABASE_URL || undefined;
+  if (databaseUrl && !isPostgresUrl(databaseUrl)) {
+    throw new Error(`DATABASE_URL must start with postgres:// or postgresql://`);
+  }
   const dbPath = resolve(env.SPREADSIGHT_DB || "data/spreadsight.sqlite");
   const server = await startServer({
     dbPath,
+    databaseUrl,
     port: parsePort(env.PORT),
     host: env.HOST || "127.0.0.1",
     demo,
@@ -46,7 +53,7 @@ async function main(): Promise<void> {
   const lines = [
     "",
     `Spreadsight is running at ${server.url}`,
-    `  database: ${dbPath}`,
+    `  database: ${databaseUrl ? redactUrl(databaseUrl) : dbPath}`,
     `  e-mail:   ${server.mailbox ? "built-in fake mailbox (admins: Mailbox page)" : "SMTP_URL"}`,
   ];
   if (server.publicUrl !== server.url) lines.push(`  links in e-mails use ${server.publicUrl}`);
