@@ -110,6 +110,24 @@ export function parseInput(
   return Number(fromDisplay(quantity, Number(trimmed), system).toPrecision(12));
 }
 
+const numberFormats = new Map<number, Intl.NumberFormat>();
+
+/**
+ * The en-GB number format with `digits` decimals, made once: `toLocaleString` with options
+ * builds a new formatter on every call, which made redrawing a chart's readouts slow.
+ */
+function numberFormat(digits: number): Intl.NumberFormat {
+  let format = numberFormats.get(digits);
+  if (!format) {
+    format = new Intl.NumberFormat("en-GB", {
+      minimumFractionDigits: digits,
+      maximumFractionDigits: digits,
+    });
+    numberFormats.set(digits, format);
+  }
+  return format;
+}
+
 /**
  * A value with its unit for reading ("12.50 m", "1,500 m/s", "3.20 ms"). Null, undefined or
  * non-finite values show as an em dash, never as "NaN".
@@ -122,10 +140,7 @@ export function formatQuantity(
 ): string {
   if (si === null || si === undefined || !Number.isFinite(si)) return "—";
   const shown = toDisplay(quantity, si, system);
-  const text = shown.toLocaleString("en-GB", {
-    minimumFractionDigits: digits,
-    maximumFractionDigits: digits,
-  });
+  const text = numberFormat(digits).format(shown);
   const unit = unitLabel(quantity, system);
   if (!unit) return text;
   return quantity === "angle" || quantity === "percent" ? `${text}${unit}` : `${text} ${unit}`;
