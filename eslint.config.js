@@ -4,7 +4,7 @@ import reactHooks from "eslint-plugin-react-hooks";
 import globals from "globals";
 
 export default tseslint.config(
-  { ignores: ["dist", "node_modules", "data", "public", "tests/e2e/screenshots"] },
+  { ignores: ["dist", "build", "node_modules", "data", "public", "tests/e2e/screenshots"] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

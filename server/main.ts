@@ -1,10 +1,15 @@
 /**
- * Command-line entry: `node --import tsx server/main.ts [--demo]` (npm start / npm run demo).
+ * Command-line entry: `node build/server/main.js [--demo]` (npm start / npm run demo; built by
+ * `npm run build`), or `node --import tsx server/main.ts` from the sources.
  *
  * Environment: PORT (3000), HOST (127.0.0.1), SPREADSIGHT_DB (./data/spreadsight.sqlite),
  * DATABASE_URL (postgres://…: PostgreSQL instead of the SQLite file; DB_POOL_SIZE, default 10),
- * SMTP_URL (unset: built-in fake mailbox), MAIL_FROM, PUBLIC_URL (http://HOST:PORT),
- * SPREADSIGHT_DEMO=1 (same as --demo), TRUST_PROXY, LOG_LEVEL (info).
+ * SMTP_URL (unset: in demo mode the built-in fake mailbox, otherwise no mail is sent),
+ * SPREADSIGHT_MAILBOX=catch (the fake mailbox outside demo mode: admins can then read every
+ * member's reset link, so only for a trial on one machine), MAIL_FROM, PUBLIC_URL
+ * (http://HOST:PORT), SPREADSIGHT_DEMO=1 (same as --demo), TRUST_PROXY, LOG_LEVEL (info),
+ * SPREADSIGHT_WORKERS (threads for reports and upload checks, default 2), SPREADSIGHT_CLIENT_DIR
+ * (the built client, default dist/).
  */
 import { resolve } from "node:path";
 import { isPostgresUrl, redactUrl } from "./data/data-source";
@@ -43,7 +48,9 @@ async function main(): Promise<void> {
     host: env.HOST || "127.0.0.1",
     demo,
     serveClient: true,
+    clientDir: env.SPREADSIGHT_CLIENT_DIR || undefined,
     smtpUrl: env.SMTP_URL || null,
+    mailbox: demo || env.SPREADSIGHT_MAILBOX === "catch",
     mailFrom: env.MAIL_FROM || undefined,
     publicUrl: env.PUBLIC_URL || undefined,
     trustProxy: parseTrustProxy(env.TRUST_PROXY),
@@ -54,7 +61,7 @@ async function main(): Promise<void> {
     "",
     `Spreadsight is running at ${server.url}`,
     `  database: ${databaseUrl ? redactUrl(databaseUrl) : dbPath}`,
-    `  e-mail:   ${server.mailbox ? "built-in fake mailbox (admins: Mailbox page)" : "SMTP_URL"}`,
+    `  e-mail:   ${server.mailbox ? "built-in fake mailbox (admins: Mailbox page)" : env.SMTP_URL ? "SMTP_URL" : "not sent (set SMTP_URL)"}`,
   ];
   if (server.publicUrl !== server.url) lines.push(`  links in e-mails use ${server.publicUrl}`);
   if (demo) {
@@ -66,7 +73,12 @@ async function main(): Promise<void> {
   }
   if (!server.mailbox && demo) lines.push("  (SMTP_URL is set: mail goes to the real server)");
   if (server.mailbox && !demo) {
-    logger.warn("SMTP_URL is not set: e-mail is caught by the built-in fake mailbox");
+    logger.warn(
+      "SPREADSIGHT_MAILBOX=catch: e-mail is caught by the built-in mailbox, where admins can read every member's reset link; set SMTP_URL for real use",
+    );
+  }
+  if (!server.mailbox && !env.SMTP_URL) {
+    logger.warn("SMTP_URL is not set: invitations and password-reset e-mails are not sent");
   }
   lines.push("Press Ctrl+C to stop.", "");
   console.log(lines.join("\n"));

@@ -18,6 +18,7 @@ import { seedDemo } from "./data/seed-demo";
 import { createApp, type AppLocals } from "./http/app";
 import type { RateLimitConfig } from "./http/rate-limit";
 import { createLogger } from "./logger";
+import { reportFontsMissing } from "./reports/fonts";
 import { closeWorkerPools } from "./workers/pool";
 import type { FakeSmtp } from "./mail/fake-smtp";
 import { createMailer, disabledMailer } from "./mail/mailer";
@@ -74,7 +75,10 @@ export interface RunningServer {
   close(): Promise<void>;
 }
 
-export const DEFAULT_CLIENT_DIR = fileURLToPath(new URL("../dist", import.meta.url));
+/** dist/ at the project root, from server/start.ts or from the compiled build/server/main.js. */
+export const DEFAULT_CLIENT_DIR = fileURLToPath(
+  new URL(import.meta.url.endsWith(".js") ? "../../dist" : "../dist", import.meta.url),
+);
 
 export async function startServer(options: StartOptions): Promise<RunningServer> {
   const logger = options.logger ?? createLogger();
@@ -88,6 +92,13 @@ export async function startServer(options: StartOptions): Promise<RunningServer>
   let httpServer: Server | null = null;
   try {
     const seeded = options.demo ? (await seedDemo(dataSource)).created : false;
+    const missingFonts = reportFontsMissing();
+    if (missingFonts.length) {
+      logger.warn(
+        { missing: missingFonts },
+        "report fonts not found in public/fonts or dist/fonts: PDF reports will use Helvetica",
+      );
+    }
     const from = options.mailFrom ?? "Spreadsight <no-reply@spreadsight.test>";
     let smtpUrl = options.smtpUrl;
     if (!smtpUrl && (options.mailbox ?? options.demo ?? false)) {

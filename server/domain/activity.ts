@@ -8,7 +8,7 @@ import { AuditEvent } from "../data/entities/audit-event";
 import { requireRole, type Actor } from "./actor";
 import { withoutHiddenPlans } from "./audit";
 import { fileSlug } from "./exports";
-import { findVisiblePlan } from "./plans";
+import { findVisiblePlan } from "./plan-visibility";
 
 function toView(row: AuditEvent): ActivityView {
   return {

@@ -30,7 +30,7 @@ import type { Actor } from "./actor";
 import { cleanFileName, type CheckedContent } from "./attachment-content";
 import { recordAudit } from "./audit";
 import { AppError, forbidden, notFound } from "./errors";
-import { canEditPlan, findVisiblePlan } from "./plans";
+import { canEditPlan, findVisiblePlan } from "./plan-visibility";
 import { runTask } from "../workers/pool";
 
 export { checkContent, cleanFileName, csvText } from "./attachment-content";

@@ -5,7 +5,7 @@ import type { AuditEventSummary } from "@/contracts/audit";
 import { AuditEvent, type AuditDetail } from "../data/entities/audit-event";
 import { Plan } from "../data/entities/plan";
 import type { Actor } from "./actor";
-import { canSeePlan } from "./plans";
+import { canSeePlan } from "./plan-visibility";
 
 export interface AuditEntry {
   teamId: string;

@@ -15,7 +15,7 @@ import { requirePermission, type Actor } from "./actor";
 import { recordAudit } from "./audit";
 import { AppError, forbidden, notFound } from "./errors";
 import { deliverMail, notify, type PendingMail } from "./notifications";
-import { findVisiblePlan } from "./plans";
+import { findVisiblePlan } from "./plan-visibility";
 import type { Services } from "./services";
 
 export interface MentionCandidate {

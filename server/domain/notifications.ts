@@ -20,7 +20,7 @@ import type { Plan } from "../data/entities/plan";
 import type { OutgoingMail } from "../mail/mailer";
 import type { Actor } from "./actor";
 import { notFound } from "./errors";
-import { canSeePlan } from "./plans";
+import { canSeePlan } from "./plan-visibility";
 import type { Services } from "./services";
 
 /** In-app path of a plan's Review screen (the client's paths.planReview). */

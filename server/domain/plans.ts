@@ -10,14 +10,9 @@
  *   and other trainees. Only the author edits, renames or archives them; nobody submits them.
  */
 import { randomUUID } from "node:crypto";
-import { In, type DataSource, type EntityManager } from "typeorm";
+import type { DataSource, EntityManager } from "typeorm";
 import { can } from "@/contracts/common";
-import type {
-  PlanDetail,
-  PlanStatus,
-  PlanSummary,
-  RevisionAnalysisSummary,
-} from "@/contracts/plans";
+import type { PlanDetail, PlanSummary, RevisionAnalysisSummary } from "@/contracts/plans";
 import type { Plan as PlanDocument } from "@engine";
 import { Plan } from "../data/entities/plan";
 import { PlanRevision } from "../data/entities/plan-revision";
@@ -28,87 +23,20 @@ import { recordAudit } from "./audit";
 import { AppError, forbidden, notFound } from "./errors";
 import { assertDocumentGeometry, summarizeDocument } from "./revisions";
 import { archiveTransition } from "./workflow";
+import { getPlan, latestRevisionRow, toSummary } from "./plan-view";
+import { canEditPlan, EDITABLE_STATUSES, findVisiblePlan, visibleClause } from "./plan-visibility";
+
+// The visibility rules and the plan view live in their own modules (which import no other use
+// case); re-exported here for callers that think of them as "plans".
+export { canEditPlan, canSeePlan, EDITABLE_STATUSES, findVisiblePlan } from "./plan-visibility";
+export { countVisiblePlans, getPlan, planPermissions } from "./plan-view";
 
 export type ArchivedFilter = "true" | "false" | "all";
-
-/** Roles that see every sandbox plan of the team (read-only). */
-const SANDBOX_READERS = new Set(["admin", "reviewer"]);
-
-/** True when the actor may see the plan at all (same team, and sandbox rule). */
-export function canSeePlan(
-  actor: Pick<Actor, "teamId" | "userId" | "role">,
-  plan: Pick<Plan, "teamId" | "sandbox" | "authorId">,
-): boolean {
-  if (plan.teamId !== actor.teamId) return false;
-  if (!plan.sandbox) return true;
-  return plan.authorId === actor.userId || SANDBOX_READERS.has(actor.role);
-}
-
-/** True when the actor may change the plan's content, name or archive state (status aside). */
-export function canEditPlan(actor: Actor, plan: Pick<Plan, "sandbox" | "authorId">): boolean {
-  if (plan.sandbox) return plan.authorId === actor.userId && actor.role !== "reviewer";
-  return can.editPlans(actor.role);
-}
-
-/** The statuses in which a plan's document may be saved. */
-export const EDITABLE_STATUSES: readonly PlanStatus[] = ["draft", "changes-requested"];
-
-export function planPermissions(actor: Actor, plan: Plan): PlanDetail["permissions"] {
-  const editor = canEditPlan(actor, plan);
-  const team = !plan.sandbox;
-  return {
-    edit: editor && EDITABLE_STATUSES.includes(plan.status),
-    submit: team && can.submitPlans(actor.role) && EDITABLE_STATUSES.includes(plan.status),
-    decide: team && can.decidePlans(actor.role) && plan.status === "in-review",
-    comment: can.comment(actor.role) && plan.status !== "archived",
-    reopen: team && can.submitPlans(actor.role) && plan.status === "approved",
-    archive: editor,
-    duplicate: can.editPlans(actor.role) || can.useSandbox(actor.role),
-  };
-}
-
-function toSummary(plan: Plan): PlanSummary {
-  return {
-    id: plan.id,
-    siteId: plan.siteId,
-    name: plan.name,
-    status: plan.status,
-    sandbox: plan.sandbox,
-    author: { id: plan.authorId, name: plan.author?.name ?? "" },
-    revision: plan.latestRevision,
-    worstVerdict: plan.worstVerdict,
-    updatedAt: plan.updatedAt.toISOString(),
-    createdAt: plan.createdAt.toISOString(),
-  };
-}
-
-/** The plan if the actor may see it, else 404 (another team's and a hidden sandbox plan alike). */
-export async function findVisiblePlan(
-  manager: EntityManager,
-  actor: Actor,
-  id: string,
-): Promise<Plan> {
-  const plan = await manager.getRepository(Plan).findOne({
-    where: { id, teamId: actor.teamId },
-    relations: { author: true, site: true },
-  });
-  if (!plan || !canSeePlan(actor, plan)) throw notFound("plan");
-  return plan;
-}
 
 async function findTeamSite(manager: EntityManager, actor: Actor, siteId: string): Promise<Site> {
   const site = await manager.getRepository(Site).findOneBy({ id: siteId, teamId: actor.teamId });
   if (!site) throw notFound("site");
   return site;
-}
-
-/** The query part that hides sandbox plans the actor may not see (alias `p`). */
-function visibleClause(actor: Actor): { sql: string; params: Record<string, unknown> } {
-  if (SANDBOX_READERS.has(actor.role)) return { sql: "1 = 1", params: {} };
-  return {
-    sql: "(p.sandbox = :no OR p.authorId = :viewer)",
-    params: { no: false, viewer: actor.userId },
-  };
 }
 
 /** Plans of a site the actor can see, most recently changed first. */
@@ -130,55 +58,6 @@ export async function listPlans(
   if (archived === "false") query.andWhere("p.status <> 'archived'");
   const rows = await query.orderBy("p.updatedAt", "DESC").addOrderBy("p.id", "ASC").getMany();
   return rows.map(toSummary);
-}
-
-/** Non-archived plans the actor can see, per site (for SiteSummary.planCount). */
-export async function countVisiblePlans(
-  dataSource: DataSource,
-  actor: Actor,
-  siteIds: string[],
-): Promise<Map<string, number>> {
-  const counts = new Map<string, number>();
-  if (siteIds.length === 0) return counts;
-  const visible = visibleClause(actor);
-  const rows = await dataSource
-    .getRepository(Plan)
-    .createQueryBuilder("p")
-    .select("p.siteId", "siteId")
-    .addSelect("COUNT(*)", "n")
-    .where("p.teamId = :teamId", { teamId: actor.teamId })
-    .andWhere({ siteId: In(siteIds) })
-    .andWhere("p.status <> 'archived'")
-    .andWhere(visible.sql, visible.params)
-    .groupBy("p.siteId")
-    .getRawMany<{ siteId: string; n: number | string }>();
-  for (const row of rows) counts.set(row.siteId, Number(row.n));
-  return counts;
-}
-
-async function latestRevisionRow(manager: EntityManager, plan: Plan): Promise<PlanRevision> {
-  const row = await manager
-    .getRepository(PlanRevision)
-    .findOneBy({ planId: plan.id, number: plan.latestRevision });
-  // Every plan is created with revision 1 in the same transaction.
-  if (!row) throw new Error(`plan ${plan.id} has no revision ${plan.latestRevision}`);
-  return row;
-}
-
-export async function getPlan(
-  dataSource: DataSource,
-  actor: Actor,
-  id: string,
-): Promise<PlanDetail> {
-  const plan = await findVisiblePlan(dataSource.manager, actor, id);
-  const revision = await latestRevisionRow(dataSource.manager, plan);
-  return {
-    ...toSummary(plan),
-    siteName: plan.site?.name ?? "",
-    document: revision.document,
-    permissions: planPermissions(actor, plan),
-    statusBeforeArchive: plan.statusBeforeArchive,
-  };
 }
 
 /**

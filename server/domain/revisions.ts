@@ -15,7 +15,7 @@ import { PlanRevision } from "../data/entities/plan-revision";
 import type { Actor } from "./actor";
 import { AppError, collectFields, notFound } from "./errors";
 import { diffRevisions } from "./plan-diff";
-import { findVisiblePlan } from "./plans";
+import { findVisiblePlan } from "./plan-visibility";
 
 /** Depths and errors to the millimetre: enough for a design check, and no float noise. */
 const mm = (x: number) => {

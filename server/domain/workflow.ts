@@ -17,7 +17,8 @@ import { requireRole, type Actor } from "./actor";
 import { recordAudit } from "./audit";
 import { AppError, forbidden } from "./errors";
 import { deliverMail, notify, teamMembersWithRole, type PendingMail } from "./notifications";
-import { findVisiblePlan, getPlan } from "./plans";
+import { getPlan } from "./plan-view";
+import { findVisiblePlan } from "./plan-visibility";
 import type { Services } from "./services";
 
 export type WorkflowStep = "submit" | "approve" | "request-changes" | "reopen";

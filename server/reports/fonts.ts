@@ -2,9 +2,11 @@
  * Fonts of the PDF report. pdfkit embeds TrueType, OpenType and WOFF fonts but draws WOFF2
  * subsets as empty glyphs, so public/fonts ships the WOFF files of the faces the report uses
  * (IBM Plex Sans 400/500/600 and Mono 400, copied from the @fontsource packages) beside the
- * WOFF2 files the browser loads; the @fontsource packages themselves are the fallback. WOFF
- * files are unpacked to plain sfnt once per process (`unpackWoff`). When none is found the
- * report falls back to pdfkit's built-in Helvetica and Courier.
+ * WOFF2 files the browser loads. They are read from public/fonts, or from dist/fonts (the
+ * built client's copy); never from a dev dependency, so an install without dev dependencies
+ * prints the same report. WOFF files are unpacked to plain sfnt once per process
+ * (`unpackWoff`). When none is found the report falls back to pdfkit's built-in Helvetica and
+ * Courier, and the server warns at start (`reportFontsMissing`).
  *
  * The Latin subsets hold U+0000–00FF, general punctuation and a few more; `pdfText` replaces the
  * handful of symbols the report would otherwise use (≤, σ, →, …) with plain equivalents so that
@@ -41,7 +43,7 @@ function face(family: "sans" | "mono", weight: number): string | null {
     `public/fonts/${base}.ttf`,
     `public/fonts/${base}.otf`,
     `public/fonts/${base}.woff`,
-    `node_modules/@fontsource/ibm-plex-${family}/files/${base}.woff`,
+    `dist/fonts/${base}.woff`,
   ]);
 }
 
@@ -94,6 +96,17 @@ export function unpackWoff(data: Buffer): Buffer {
     offset += padded.length;
   });
   return Buffer.concat(parts);
+}
+
+/** The report faces that cannot be found (empty when the report will use IBM Plex). */
+export function reportFontsMissing(): string[] {
+  const faces: [string, "sans" | "mono", number][] = [
+    ["IBM Plex Sans 400", "sans", 400],
+    ["IBM Plex Sans 500", "sans", 500],
+    ["IBM Plex Sans 600", "sans", 600],
+    ["IBM Plex Mono 400", "mono", 400],
+  ];
+  return faces.filter(([, family, weight]) => face(family, weight) === null).map(([n]) => n);
 }
 
 let cached: ReportFonts | null = null;
