@@ -4,6 +4,7 @@ import type { DataSource, EntityManager } from "typeorm";
 import type { AuditEventSummary } from "@/contracts/audit";
 import { AuditEvent, type AuditDetail } from "../data/entities/audit-event";
 import { Plan } from "../data/entities/plan";
+import { Site } from "../data/entities/site";
 import type { Actor } from "./actor";
 import { canSeePlan } from "./plan-visibility";
 
@@ -45,13 +46,23 @@ export async function listAudit(
     order: { createdAt: "DESC", id: "ASC" },
     take: limit,
   });
-  const { visible } = await withoutHiddenPlans(dataSource, actor, rows);
+  const { visible, plans } = await withoutHiddenPlans(dataSource, actor, rows);
+  const sites = await dataSource.getRepository(Site).find({ where: { teamId: actor.teamId } });
+  const siteNames = new Map(sites.map((site) => [site.id, site.name]));
+  // The plan's or site's name today, so the activity list can name what was acted on.
+  const targetName = (row: AuditEvent): string | null => {
+    if (!row.targetId) return null;
+    if (row.targetType === "plan") return plans.get(row.targetId)?.name ?? null;
+    if (row.targetType === "site") return siteNames.get(row.targetId) ?? null;
+    return null;
+  };
   return visible.map((row) => ({
     id: row.id,
     action: row.action,
     actor: row.actor ? { id: row.actor.id, name: row.actor.name } : null,
     targetType: row.targetType,
     targetId: row.targetId,
+    targetName: targetName(row),
     detail: row.detail,
     createdAt: row.createdAt.toISOString(),
   }));

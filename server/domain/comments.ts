@@ -1,17 +1,19 @@
 /**
  * Comments: threads on a plan revision (a first comment and its replies), optionally
  * anchored to a layer, a refractor or a shot of that revision; resolve and reopen a thread;
- * @mentions of team members. Admin, lead and reviewer comment (design.md: trainees read).
+ * @mentions of team members. Admin, lead and reviewer comment on any plan they see; a trainee
+ * comments only on their own sandbox scenario (to ask a reviewer a question).
  */
 import { randomUUID } from "node:crypto";
 import type { DataSource, EntityManager } from "typeorm";
+import { can, mayCommentOn } from "@/contracts/common";
 import type { CommentAnchor, CommentView } from "@/contracts/plans";
 import { PlanComment } from "../data/entities/comment";
 import { Membership } from "../data/entities/membership";
 import type { Plan } from "../data/entities/plan";
 import { PlanRevision } from "../data/entities/plan-revision";
 import { inTransaction } from "../data/transaction";
-import { requirePermission, type Actor } from "./actor";
+import type { Actor } from "./actor";
 import { recordAudit } from "./audit";
 import { AppError, forbidden, notFound } from "./errors";
 import { deliverMail, notify, type PendingMail } from "./notifications";
@@ -138,6 +140,24 @@ async function teamCandidates(manager: EntityManager, teamId: string) {
     .map((m) => ({ userId: m.userId, name: m.user!.name, email: m.user!.email }));
 }
 
+const TRAINEE_COMMENTS =
+  "a trainee comments only on their own sandbox scenario; team plans are read-only to trainees";
+
+/**
+ * 403 unless the actor may comment on the plan (before the body is read): a no-op for admins,
+ * leads and reviewers; a trainee must be the author of this sandbox scenario (404 for a plan
+ * they cannot see).
+ */
+export async function requireMayComment(
+  dataSource: DataSource,
+  actor: Actor,
+  planId: string,
+): Promise<void> {
+  if (can.comment(actor.role)) return;
+  const plan = await findVisiblePlan(dataSource.manager, actor, planId);
+  if (!mayCommentOn(actor, plan)) throw forbidden(TRAINEE_COMMENTS);
+}
+
 /**
  * Adds a comment (a new thread, or a reply when `parentId` names any comment of a thread:
  * replies join that thread). Notifies the mentioned and, for a reply, the thread's earlier
@@ -149,10 +169,10 @@ export async function createComment(
   planId: string,
   input: { body: string; revision?: number; parentId?: string; anchor?: CommentAnchor },
 ): Promise<CommentView> {
-  requirePermission(actor, "comment");
   const { dataSource } = services;
   const { id, mail } = await inTransaction(dataSource, async (manager) => {
     const plan = await findVisiblePlan(manager, actor, planId);
+    if (!mayCommentOn(actor, plan)) throw forbidden(TRAINEE_COMMENTS);
     if (plan.status === "archived") {
       throw new AppError(409, "plan_locked", "this plan is archived: restore it to comment");
     }

@@ -14,11 +14,14 @@ export interface AuditEventSummary {
   id: string;
   /** Dotted verb: auth.sign_in, auth.password_reset, invitation.create, invitation.revoke,
    * invitation.accept, member.role_change, member.remove, site.create, site.rename,
-   * site.describe, site.archive, site.unarchive. */
+   * site.describe, site.archive, site.unarchive, and every plan action (plan.*, comment.*,
+   * attachment.upload, attachment.delete, picks.save). */
   action: string;
   actor: { id: string; name: string } | null;
   targetType: string;
   targetId: string | null;
+  /** The plan's or site's current name when the target is one (null otherwise or when gone). */
+  targetName?: string | null;
   detail: Record<string, string | number | boolean | null>;
   createdAt: string;
 }

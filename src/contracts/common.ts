@@ -27,8 +27,22 @@ export const can = {
   editPlans: (role: Role) => role === "admin" || role === "lead",
   submitPlans: (role: Role) => role === "admin" || role === "lead",
   decidePlans: (role: Role) => role === "admin" || role === "reviewer",
+  /** On any plan the role can see; a trainee only on their own sandbox scenario (`mayCommentOn`). */
   comment: (role: Role) => role !== "trainee",
   useSandbox: (role: Role) => role === "trainee",
   exportReports: (role: Role) => role === "admin" || role === "lead" || role === "reviewer",
   readMailbox: (role: Role) => role === "admin",
 } as const;
+
+/**
+ * Whether `actor` may comment on `plan` (which they can already see): every role but trainee
+ * on any such plan; a trainee on their own sandbox scenario only, so they can ask a reviewer a
+ * question there; team plans stay read-only to trainees.
+ */
+export function mayCommentOn(
+  actor: { role: Role; userId: string },
+  plan: { sandbox: boolean; authorId: string },
+): boolean {
+  if (can.comment(actor.role)) return true;
+  return actor.role === "trainee" && plan.sandbox && plan.authorId === actor.userId;
+}

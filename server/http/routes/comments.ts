@@ -6,8 +6,12 @@ import {
   commentListQuerySchema,
   commentUpdateSchema,
 } from "@/contracts/plans";
-import { requirePermission } from "../../domain/actor";
-import { createComment, listComments, setThreadResolved } from "../../domain/comments";
+import {
+  createComment,
+  listComments,
+  requireMayComment,
+  setThreadResolved,
+} from "../../domain/comments";
 import type { RouteContext } from "../context";
 import { requireActor } from "../session";
 import { parseBody, parseParams, parseQuery } from "../validate";
@@ -25,8 +29,8 @@ export function commentsRouter(ctx: RouteContext): Router {
 
   router.post("/plans/:id/comments", async (req, res) => {
     const actor = requireActor(res);
-    requirePermission(actor, "comment");
     const { id } = parseParams(idParamSchema, req);
+    await requireMayComment(dataSource, actor, id);
     const input = parseBody(commentCreateSchema, req);
     res.status(201).json(await createComment(ctx.services, actor, id, input));
   });
