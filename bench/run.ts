@@ -4,9 +4,11 @@
  *     branch, interpretation, uncertainty, minimum thicknesses and recommendation);
  *  2. a 200 × 200 design sweep (spacing × a layer's thickness), run on one thread, as the
  *     modeller's sweep worker runs it.
- * Also, for information: the analysis without the minimum-thickness bisection, the arrivals
- * of 5 shots at 96 geophones, and the 200 × 200 sweep on a dipping model.
- * Aims (issue 3): under 0.5 ms and under 2 s.
+ * Also, for information: the analysis without the minimum thicknesses, the arrivals of 5
+ * shots at 96 geophones (with and without reflections), and the 200 × 200 sweep on a
+ * dipping model. Aims (issue 3): under 0.5 ms and under 2 s.
+ * Then bench/engine.ts (issue 11): the analysis against the engine's first-arrival core on
+ * the same case (aim ≤ 10×) and its growth with the layer count (aim: exponent ≤ 2).
  */
 import { Bench } from "tinybench";
 import {
@@ -17,6 +19,7 @@ import {
   type Plan,
   type SweepSpec,
 } from "../workers/engine";
+import { runEngineBench } from "./engine";
 
 function plan(input: unknown): Plan {
   const r = parsePlan(input);
@@ -70,6 +73,10 @@ fast
     analyzePlan(dipping);
   })
   .add("computeArrivals: 5 shots × 96 geophones (with reflections)", () => {
+    for (let s = 0; s < 5; s++)
+      computeArrivals(flat.models[0], flat.spread, s, { reflections: true });
+  })
+  .add("computeArrivals: 5 shots × 96 geophones (no reflections, the default)", () => {
     for (let s = 0; s < 5; s++) computeArrivals(flat.models[0], flat.spread, s);
   });
 
@@ -102,3 +109,4 @@ console.log(
   `aims: analysis ${analysis.toFixed(3)} ms (< 0.5 ms: ${analysis < 0.5 ? "met" : "NOT met"}), ` +
     `200 × 200 sweep ${grid.toFixed(0)} ms (< 2000 ms: ${grid < 2000 ? "met" : "NOT met"})`,
 );
+await runEngineBench((p) => analyzePlan(p));
