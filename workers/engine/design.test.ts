@@ -1,9 +1,15 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { earthFromModel, withThickness } from "./geometry";
+import { earthFromModel, findInterfaceProblem, withThickness } from "./geometry";
 import { prepareEarth } from "./head-waves";
 import { createPieces, firstArrivalPieces, countOnSegments } from "./segments";
-import { lastCrossover, maxSpacingFor, minimumThickness, spreadLengthFor } from "./design";
+import {
+  lastCrossover,
+  MAX_DESIGN_THICKNESS,
+  maxSpacingFor,
+  minimumThickness,
+  spreadLengthFor,
+} from "./design";
 import { createJudgeScratch, worstCodes } from "./verdicts";
 import { branchOf } from "./branches";
 
@@ -56,6 +62,251 @@ describe("minimumThickness", () => {
     });
     expect(minimumThickness(prepareEarth(inv), layout, 2, 1, extent)).toBeNull();
     expect(minimumThickness(prepareEarth(inv), layout, 2, 2, extent)).toBeNull();
+  });
+});
+
+// ---------------------------------------------------------------------------------------
+// Independent brute force for the closed-form minimum thickness, written here from the
+// textbook (Telford, Geldart & Sheriff 1990 §4.3: t_m(x) = x/v_m + Σ 2 h_i cos θ_im / v_i
+// from x_crit,m = Σ 2 h_i tan θ_im, sin θ_im = v_i / v_m) and the verdict rules of
+// design.md / verdicts.ts, sharing no code with the engine: the first arrival is found by
+// testing every interval between all critical distances and pairwise crossings, and the
+// thickness by plain bisection on those verdicts.
+// ---------------------------------------------------------------------------------------
+
+interface BruteLine {
+  tau: number;
+  p: number;
+  start: number;
+}
+
+/** Direct wave and head-wave lines (null where no head wave), textbook formulas. */
+function bruteLines(v: number[], h: number[]): (BruteLine | null)[] {
+  const out: (BruteLine | null)[] = [{ tau: 0, p: 1 / v[0], start: 0 }];
+  for (let m = 1; m < v.length; m++) {
+    if (!v.slice(0, m).every((u) => u < v[m])) {
+      out.push(null);
+      continue;
+    }
+    let tau = 0;
+    let xc = 0;
+    for (let i = 0; i < m; i++) {
+      const theta = Math.asin(v[i] / v[m]);
+      tau += (2 * h[i] * Math.cos(theta)) / v[i];
+      xc += 2 * h[i] * Math.tan(theta);
+    }
+    out.push({ tau, p: 1 / v[m], start: xc });
+  }
+  return out;
+}
+
+/** Offset intervals [from, to) on which arrival `m` is the first arrival. */
+function bruteSegment(lines: (BruteLine | null)[], m: number): [number, number][] {
+  const cuts = [0];
+  lines.forEach((a, i) => {
+    if (!a) return;
+    cuts.push(a.start);
+    lines.forEach((b, j) => {
+      if (b && j > i && a.p !== b.p) cuts.push((b.tau - a.tau) / (a.p - b.p));
+    });
+  });
+  const xs = [...new Set(cuts.filter((x) => x >= 0 && Number.isFinite(x)))].sort((a, b) => a - b);
+  const out: [number, number][] = [];
+  xs.forEach((from, k) => {
+    const to = k + 1 < xs.length ? xs[k + 1] : Infinity;
+    const mid = to === Infinity ? from + 1 : 0.5 * (from + to);
+    let best = -1;
+    let bestT = Infinity;
+    lines.forEach((l, i) => {
+      if (!l || l.start > mid) return;
+      const t = l.tau + l.p * mid;
+      if (t < bestT) [best, bestT] = [i, t];
+    });
+    if (best !== m) return;
+    if (out.length > 0 && out[out.length - 1][1] === from) out[out.length - 1][1] = to;
+    else out.push([from, to]);
+  });
+  return out;
+}
+
+/** Verdict rules: resolved (0), judged bad (1), or not judged (2) on one branch's offsets. */
+function bruteBranch(seg: [number, number][], offsets: number[], min: number, dx: number) {
+  if (seg.length === 0) return 1; // blind: judged
+  const count = offsets.filter((o) => seg.some(([a, b]) => o >= a && o < b)).length;
+  if (count >= min) return 0;
+  const [from, to] = [seg[0][0], seg[seg.length - 1][1]];
+  const spans = offsets[0] <= from + dx && offsets[offsets.length - 1] >= to - dx;
+  return spans ? 1 : 2;
+}
+
+function bruteMinimumThickness(
+  v: number[],
+  h: number[],
+  m: number,
+  layout: { spacing: number; channels: number; firstGeophone: number; shots: number[] },
+  min: number,
+): number | null {
+  const branches: number[][] = [];
+  for (const shot of layout.shots) {
+    const pos = Array.from(
+      { length: layout.channels },
+      (_, i) => layout.firstGeophone + i * layout.spacing,
+    );
+    const fwd = pos.filter((x) => x > shot).map((x) => x - shot);
+    const rev = pos
+      .filter((x) => x < shot)
+      .map((x) => shot - x)
+      .reverse();
+    for (const b of [fwd, rev]) if (b.length > 0) branches.push(b);
+  }
+  const resolvedAt = (t: number) => {
+    const seg = bruteSegment(
+      bruteLines(
+        v,
+        h.map((x, i) => (i === m ? t : x)),
+      ),
+      m,
+    );
+    const verdicts = branches.map((b) => bruteBranch(seg, b, min, layout.spacing));
+    return verdicts.every((x) => x !== 1) && verdicts.some((x) => x === 0);
+  };
+  if (!resolvedAt(MAX_DESIGN_THICKNESS)) return null;
+  let [lo, hi] = [0, MAX_DESIGN_THICKNESS];
+  while (hi - lo > 1e-10 * hi && hi > 1e-9) {
+    const mid = 0.5 * (lo + hi);
+    if (resolvedAt(mid)) hi = mid;
+    else lo = mid;
+  }
+  return hi > 1e-9 ? hi : 0;
+}
+
+describe("minimumThickness against independent checks", () => {
+  it("agrees with a brute force written in this test: textbook head-wave lines, every crossing scanned, bisected over thickness (flat, property)", () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 200, max: 1500, noNaN: true }),
+        fc.array(
+          fc.record({
+            ratio: fc.double({ min: 0.7, max: 3, noNaN: true }),
+            thickness: fc.double({ min: 0.2, max: 20, noNaN: true }),
+          }),
+          { minLength: 2, maxLength: 6 },
+        ),
+        fc.record({
+          spacing: fc.double({ min: 0.5, max: 6, noNaN: true }),
+          channels: fc.integer({ min: 2, max: 96 }),
+          shots: fc.array(fc.double({ min: -30, max: 300, noNaN: true }), {
+            minLength: 1,
+            maxLength: 4,
+          }),
+          min: fc.integer({ min: 2, max: 4 }),
+        }),
+        (v0, steps, s) => {
+          const v = [v0];
+          steps.forEach((st) => v.push(v[v.length - 1] * st.ratio));
+          const h = steps.map((st) => st.thickness);
+          const layers = v.map((velocity, i) =>
+            i < h.length ? { velocity, thickness: h[i] } : { velocity },
+          );
+          const layout = {
+            spacing: s.spacing,
+            channels: s.channels,
+            firstGeophone: 0,
+            shots: s.shots,
+          };
+          const prep = prepareEarth(earthFromModel({ layers }));
+          const extent = {
+            from: Math.min(0, ...s.shots),
+            to: Math.max((s.channels - 1) * s.spacing, ...s.shots),
+          };
+          for (let m = 1; m < v.length - 1; m++) {
+            const closed = minimumThickness(prep, layout, s.min, m, extent);
+            const brute = bruteMinimumThickness(v, h, m, layout, s.min);
+            if (brute === null) expect(closed).toBeNull();
+            else {
+              expect(closed).not.toBeNull();
+              expect(Math.abs((closed as number) - brute)).toBeLessThan(1e-6 * Math.max(1, brute));
+            }
+          }
+        },
+      ),
+      { numRuns: 100, seed: 20261202 },
+    );
+  });
+
+  it("matches the brute force on a thin layer that needs more than 1 m to show on 3 geophones", () => {
+    const v = [400, 900, 2000, 3500];
+    const h = [3, 1, 6];
+    const layout = { spacing: 2, channels: 48, firstGeophone: 0, shots: [-1, 95] };
+    const brute = bruteMinimumThickness(v, h, 1, layout, 3) as number;
+    const layers = v.map((velocity, i) => (i < 3 ? { velocity, thickness: h[i] } : { velocity }));
+    const closed = minimumThickness(prepareEarth(earthFromModel({ layers })), layout, 3, 1, {
+      from: -1,
+      to: 95,
+    }) as number;
+    expect(brute).toBeGreaterThan(1);
+    expect(Math.abs(closed - brute)).toBeLessThan(1e-6 * brute);
+  });
+
+  it("agrees with a bisection over the full verdicts, rebuilding the dipping model at every step (property)", () => {
+    fc.assert(
+      fc.property(
+        fc.array(
+          fc.record({
+            ratio: fc.double({ min: 1.1, max: 2.5, noNaN: true }),
+            thickness: fc.double({ min: 1, max: 15, noNaN: true }),
+            dip: fc.double({ min: -3, max: 3, noNaN: true }),
+          }),
+          { minLength: 2, maxLength: 5 },
+        ),
+        fc.integer({ min: 12, max: 96 }),
+        (steps, channels) => {
+          const v = [400];
+          steps.forEach((st) => v.push(v[v.length - 1] * st.ratio));
+          const layers = v.map((velocity, i) =>
+            i < steps.length
+              ? { velocity, thickness: steps[i].thickness, dip: i === 0 ? 0 : steps[i].dip }
+              : { velocity },
+          );
+          const layout = {
+            spacing: 2,
+            channels,
+            firstGeophone: 0,
+            shots: [-1, channels - 0.5, 2 * channels],
+          };
+          const extent = { from: -1, to: 2 * channels };
+          const earth = earthFromModel({ layers });
+          if (findInterfaceProblem(earth, extent.from, extent.to)) return;
+          const prep = prepareEarth(earth);
+          for (let m = 1; m < v.length - 1; m++) {
+            const resolvedAt = (t: number) => {
+              const e = withThickness(earth, m, t);
+              if (findInterfaceProblem(e, extent.from, extent.to)) return false;
+              const w = new Uint8Array(v.length);
+              worstCodes(prepareEarth(e), layout, 2, createJudgeScratch(v.length), w);
+              return w[m] === 0;
+            };
+            const closed = minimumThickness(prep, layout, 2, m, extent);
+            if (!resolvedAt(MAX_DESIGN_THICKNESS)) {
+              expect(closed).toBeNull();
+              continue;
+            }
+            let [lo, hi] = [0, MAX_DESIGN_THICKNESS];
+            while (hi - lo > 1e-10 * hi && hi > 1e-9) {
+              const mid = 0.5 * (lo + hi);
+              if (resolvedAt(mid)) hi = mid;
+              else lo = mid;
+            }
+            const bisected = hi > 1e-9 ? hi : 0;
+            expect(closed).not.toBeNull();
+            expect(Math.abs((closed as number) - bisected)).toBeLessThan(
+              1e-6 * Math.max(1, bisected),
+            );
+          }
+        },
+      ),
+      { numRuns: 40, seed: 7 },
+    );
   });
 });
 
