@@ -175,7 +175,11 @@ export function CommentThreads({ planId, anchorFilter, compact = false }: Commen
           />
         </div>
       ) : (
-        <p className="text-sm text-ink-soft">Your role can read the notes but not add to them.</p>
+        <p className="text-sm text-ink-soft">
+          {me?.role === "trainee"
+            ? "Trainees write notes on their own sandbox scenarios (to ask a reviewer a question); on team plans you read them."
+            : "Your role can read the notes but not add to them."}
+        </p>
       )}
     </div>
   );

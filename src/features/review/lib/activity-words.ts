@@ -30,6 +30,9 @@ const ACTIONS: Record<string, string> = {
   "site.describe": "edited a site's description",
   "site.archive": "archived a site",
   "site.unarchive": "restored a site",
+  "attachment.upload": "uploaded a file",
+  "attachment.delete": "deleted a file",
+  "picks.save": "saved first-break picks",
 };
 
 /** A verb phrase for an audit action; unknown actions read as their words ("x.do_it" → "x: do it"). */
@@ -116,4 +119,107 @@ export function latestDecisionNote(
     note: typeof note === "string" && note.trim() !== "" ? note : null,
     createdAt: best.event.createdAt,
   };
+}
+
+/** Kinds of team activity a reader can filter by. */
+export type ActivityKind = "plans" | "review" | "files" | "sign-ins" | "team" | "sites";
+
+export const ACTIVITY_KINDS: Array<{ value: ActivityKind; label: string }> = [
+  { value: "plans", label: "Plans and revisions" },
+  { value: "review", label: "Review and notes" },
+  { value: "files", label: "Field files and picks" },
+  { value: "sign-ins", label: "Sign-ins" },
+  { value: "team", label: "Team and invitations" },
+  { value: "sites", label: "Sites" },
+];
+
+/** Which kind an audit action belongs to ("attachment.upload" → files). */
+export function activityKind(action: string): ActivityKind {
+  if (/^plan\.(submit|approve|request_changes|reopen)$/.test(action)) return "review";
+  if (action.startsWith("comment.")) return "review";
+  if (action.startsWith("plan.")) return "plans";
+  if (action.startsWith("attachment.") || action.startsWith("picks.")) return "files";
+  if (action.startsWith("auth.")) return "sign-ins";
+  if (action.startsWith("site.")) return "sites";
+  return "team";
+}
+
+/** An event as the team activity list needs it (a subset of `AuditEventSummary`). */
+export interface TrailEvent {
+  id: string;
+  action: string;
+  actor: { id: string; name: string } | null;
+  targetType: string;
+  targetId: string | null;
+  targetName?: string | null;
+  detail: Record<string, unknown> | null;
+  createdAt: string;
+}
+
+/** One row of the list: an event, or a run of sign-ins by one person folded into one row. */
+export interface TrailRow<E extends TrailEvent = TrailEvent> {
+  event: E;
+  /** How many events the row stands for (1 unless sign-ins were folded). */
+  count: number;
+  /** The oldest folded event's time (equals `event.createdAt` when count is 1). */
+  since: string;
+}
+
+/**
+ * Folds each run of consecutive sign-ins by the same person into one row (newest first, as the
+ * trail comes); everything else stays one row per event.
+ */
+export function foldSignIns<E extends TrailEvent>(events: readonly E[]): TrailRow<E>[] {
+  const rows: TrailRow<E>[] = [];
+  for (const event of events) {
+    const last = rows.at(-1);
+    if (
+      last &&
+      event.action === "auth.sign_in" &&
+      last.event.action === "auth.sign_in" &&
+      (last.event.actor?.id ?? null) === (event.actor?.id ?? null)
+    ) {
+      last.count += 1;
+      last.since = event.createdAt;
+      continue;
+    }
+    rows.push({ event, count: 1, since: event.createdAt });
+  }
+  return rows;
+}
+
+/** Events of one kind and/or one person (`null` for any). */
+export function filterTrail<E extends TrailEvent>(
+  events: readonly E[],
+  kind: ActivityKind | null,
+  personId: string | null,
+): E[] {
+  return events.filter(
+    (e) =>
+      (kind === null || activityKind(e.action) === kind) &&
+      (personId === null || e.actor?.id === personId),
+  );
+}
+
+/**
+ * What an event was about, for the list: the plan or site by name, the file by name
+ * ("shot-12.sg2"), the member by name. Empty when there is nothing to name.
+ */
+export function describeObject(event: TrailEvent): string {
+  const detail = event.detail ?? {};
+  const text = (key: string) => {
+    const value = detail[key];
+    return typeof value === "string" && value !== "" ? value : null;
+  };
+  const parts: string[] = [];
+  const fileName = text("fileName");
+  if (fileName) parts.push(fileName);
+  const name =
+    event.targetName ??
+    (event.targetType === "plan" || event.targetType === "site" ? text("name") : null);
+  if (event.targetType === "plan" && name) parts.push(`${fileName ? "on " : ""}plan “${name}”`);
+  else if (event.targetType === "site" && name) parts.push(`site “${name}”`);
+  else if (event.targetType === "user" && text("name")) parts.push(text("name")!);
+  else if (event.targetType === "invitation" && text("email")) parts.push(text("email")!);
+  return parts.join(" ");
 }

@@ -159,13 +159,25 @@ describe("CommentThreads", () => {
     expect(within(thread).queryByRole("button", { name: "Close note" })).toBeNull();
   });
 
+  it("lets a trainee ask a question on their own sandbox scenario (the server grants comment)", async () => {
+    const { calls } = serve([]);
+    const trainee = testMe({ role: "trainee" });
+    renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: trainee });
+    await userEvent.type(await screen.findByLabelText("New note"), "Is 3 m fine enough here?");
+    await userEvent.click(screen.getByRole("button", { name: "Post note" }));
+    expect(await screen.findByText("Is 3 m fine enough here?")).toBeInTheDocument();
+    expect(calls.find((c) => c.method === "POST")?.body).toMatchObject({
+      body: "Is 3 m fine enough here?",
+    });
+  });
+
   it("lets a role without the comment permission read but not write", async () => {
     serve([comment({ body: "Looks good to me." })], false);
     renderWithApp(<CommentThreads planId={PLAN_ID} />, { me: testMe({ role: "trainee" }) });
     expect(await screen.findByText("Looks good to me.")).toBeInTheDocument();
     expect(screen.queryByRole("button", { name: "Reply" })).toBeNull();
     expect(screen.queryByRole("button", { name: "Post note" })).toBeNull();
-    expect(screen.getByText(/can read the notes but not add to them/)).toBeInTheDocument();
+    expect(screen.getByText(/on team plans you read them/)).toBeInTheDocument();
   });
 
   it("shows beside a refractor only the threads anchored there, and anchors new ones there", async () => {

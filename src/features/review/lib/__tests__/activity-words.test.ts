@@ -1,5 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { describeAction, describeDetail, latestDecisionNote } from "../activity-words";
+import {
+  activityKind,
+  describeAction,
+  describeDetail,
+  foldSignIns,
+  latestDecisionNote,
+} from "../activity-words";
 
 describe("activity words", () => {
   it("reads known actions as phrases and unknown ones as their words", () => {
@@ -79,5 +85,46 @@ describe("activity words", () => {
       ]),
     ).toBeNull();
     expect(latestDecisionNote([])).toBeNull();
+  });
+});
+
+describe("team trail helpers", () => {
+  const at = (minute: number) => `2026-11-20T10:${String(minute).padStart(2, "0")}:00Z`;
+  const ev = (id: string, action: string, actorId: string, minute: number) => ({
+    id,
+    action,
+    actor: { id: actorId, name: actorId },
+    targetType: "user",
+    targetId: null,
+    detail: {},
+    createdAt: at(minute),
+  });
+
+  it("folds only consecutive sign-ins by the same person, keeping the oldest time", () => {
+    const rows = foldSignIns([
+      ev("1", "auth.sign_in", "a", 50),
+      ev("2", "auth.sign_in", "a", 40),
+      ev("3", "plan.save", "a", 30),
+      ev("4", "auth.sign_in", "a", 20),
+      ev("5", "auth.sign_in", "b", 10),
+    ]);
+    expect(rows.map((r) => [r.event.id, r.count, r.since])).toEqual([
+      ["1", 2, at(40)],
+      ["3", 1, at(30)],
+      ["4", 1, at(20)],
+      ["5", 1, at(10)],
+    ]);
+  });
+
+  it("sorts actions into kinds a reader filters by", () => {
+    expect(activityKind("attachment.upload")).toBe("files");
+    expect(activityKind("picks.save")).toBe("files");
+    expect(activityKind("plan.approve")).toBe("review");
+    expect(activityKind("comment.resolve")).toBe("review");
+    expect(activityKind("plan.save")).toBe("plans");
+    expect(activityKind("auth.sign_in")).toBe("sign-ins");
+    expect(activityKind("member.role_change")).toBe("team");
+    expect(activityKind("site.rename")).toBe("sites");
+    expect(describeAction("attachment.upload")).toBe("uploaded a file");
   });
 });
