@@ -162,7 +162,7 @@ export function primaryBranch(layout: Layout): Branch {
 /**
  * Worst status code per arrival over the branches that judge it, written into `worst`
  * (length = layer count). Allocation-free apart from the branch list; used by sweeps and
- * by the design-figure bisection.
+ * by the minimum-thickness bisection for dipping cases outside the closed form (design.ts).
  */
 export function worstCodes(
   prep: PreparedEarth,
