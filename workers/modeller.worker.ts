@@ -3,7 +3,7 @@
  * results (sweep grids, chart curves) are transferred, not copied.
  */
 import { expose, transfer } from "comlink";
-import { modellerApi, type Plan, type SweepSpec } from "./engine";
+import { modellerApi, type Plan, type SectionSweepSpec, type SweepSpec } from "./engine";
 
 function buffersOf(value: unknown, out: ArrayBuffer[] = []): ArrayBuffer[] {
   if (ArrayBuffer.isView(value)) {
@@ -22,6 +22,14 @@ const api = {
   },
   runSweep(plan: Plan, spec: SweepSpec, onProgress?: (fraction: number) => void) {
     const result = modellerApi.runSweep(plan, spec, onProgress);
+    return transfer(result, buffersOf(result));
+  },
+  sectionShotField(...args: Parameters<typeof modellerApi.sectionShotField>) {
+    const field = modellerApi.sectionShotField(...args);
+    return transfer(field, buffersOf(field));
+  },
+  runSectionSweep(plan: Plan, spec: SectionSweepSpec, onProgress?: (fraction: number) => void) {
+    const result = modellerApi.runSectionSweep(plan, spec, onProgress);
     return transfer(result, buffersOf(result));
   },
 };

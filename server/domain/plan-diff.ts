@@ -14,7 +14,7 @@ import type {
   Verdict,
   VerdictChange,
 } from "@/contracts/plans";
-import type { GroundModel, Layer, Plan as PlanDocument, Shot } from "@engine";
+import type { CandidateModel, Layer, Plan as PlanDocument, Shot } from "@engine";
 
 export interface DiffSide {
   document: PlanDocument;
@@ -89,8 +89,8 @@ export function alignLayers(from: Layer[], to: Layer[]): [number | null, number 
 
 /** Models matched by identical name first, the rest by order; surplus added or removed. */
 export function matchModels(
-  from: GroundModel[],
-  to: GroundModel[],
+  from: CandidateModel[],
+  to: CandidateModel[],
 ): [number | null, number | null][] {
   const pairs: [number | null, number | null][] = [];
   const usedTo = new Set<number>();
@@ -111,8 +111,8 @@ export function matchModels(
 }
 
 function modelDiff(
-  from: GroundModel | null,
-  to: GroundModel | null,
+  from: CandidateModel | null,
+  to: CandidateModel | null,
   fromIndex: number | null,
   toIndex: number | null,
 ): ModelDiff | null {

@@ -6,7 +6,7 @@
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { PlanDetail, PlanSummary, RevisionDetail } from "@/contracts/plans";
-import { analyzePlan, parsePlan, planSchema } from "@engine";
+import { analyzePlan, layeredModel, parsePlan, planSchema } from "@engine";
 import { Membership } from "../data/entities/membership";
 import { User } from "../data/entities/user";
 import { notificationMailSettled } from "../domain/notifications";
@@ -359,7 +359,7 @@ describe("bad input: clear errors naming the field, nothing written", () => {
       name: "interfaces crossing within the spread",
       send: () => {
         const doc = thinLayerDocument();
-        doc.models[0].layers[0].dip = 20;
+        layeredModel(doc.models[0]).layers[0].dip = 20;
         return api.lead.put(`/api/plans/${plan.id}`).send({ baseRevision: 1, document: doc });
       },
       field: "document.models.0.layers.1.dip",

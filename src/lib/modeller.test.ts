@@ -1,6 +1,13 @@
 import * as Comlink from "comlink";
 import { afterEach, describe, expect, it } from "vitest";
-import { analyzePlan, modellerApi, parsePlan, type Plan, type SweepSpec } from "@engine";
+import {
+  analyzePlan,
+  layeredModel,
+  modellerApi,
+  parsePlan,
+  type Plan,
+  type SweepSpec,
+} from "@engine";
 import { createModeller, isModellerCancelled, type Modeller, type WorkerLike } from "./modeller";
 import simple from "../../docs/examples/two-layer-simple.json";
 import blind from "../../docs/examples/thin-blind-layer.json";
@@ -122,7 +129,7 @@ describe("modeller facade with a worker", () => {
     const m = track(createModeller({ createWorker: factory }));
     const p = plan(blind);
     expect(await m.analyze(p)).toEqual(analyzePlan(p));
-    const curves = await m.curves(p.models[0], -1, 0, 60, 31);
+    const curves = await m.curves(layeredModel(p.models[0]), -1, 0, 60, 31);
     expect(Object.prototype.toString.call(curves.first.times)).toBe("[object Float64Array]");
     expect(curves.first.times).toHaveLength(31);
   });

@@ -15,6 +15,7 @@ import { crossoverMethod, interceptTimeMethod, type ObservedLine } from "./inter
 import { recoverDipLayered } from "./dip-recovery";
 import { degrees, finiteOrNull } from "./numbers";
 import type { Criteria, GroundModel, Plan } from "./plan-schema";
+import { analyzeSection } from "./section-analysis";
 import {
   countOnSegments,
   createPieces,
@@ -670,7 +671,11 @@ export function analyzePlan(plan: Plan, options: AnalyzeOptions = {}): PlanAnaly
     throw new RangeError("spread needs spacing > 0, at least 1 channel and at least 1 shot");
   }
   const layout = layoutOf(spread);
-  const models = plan.models.map((m, i) => analyzeModel(m, i, layout, criteria, options));
+  const models = plan.models.map((m, i) =>
+    m.kind === "section"
+      ? analyzeSection(m, i, spread, criteria)
+      : analyzeModel(m, i, layout, criteria, options),
+  );
   let maxSpacing: number | null = null;
   let crossover = 0;
   for (const m of models) {

@@ -66,4 +66,13 @@ export {
   matchMaterial,
   type Material,
 } from "./materials";
+export { polylineAt } from "./section-schema";
+export { sectionFromLayered } from "./section-convert";
+export {
+  analyzeSection,
+  isSectionAnalysis,
+  runSectionSweep,
+  sectionShotField,
+} from "./section-analysis";
+export type * from "./section-types";
 export { modellerApi, type ModellerApi } from "./worker-api";

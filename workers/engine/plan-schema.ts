@@ -7,8 +7,14 @@
  * below the (flat) ground surface. A layer's `thickness` is its vertical thickness at the
  * line's reference position 0 m. `dip` is the dip of the layer's *base* interface in
  * degrees, positive when the interface deepens towards increasing position.
+ *
+ * A plan may also hold *section* models (`kind: "section"`, section-schema.ts): surface and
+ * interface polylines in elevation, analysed by the 2-D first-arrival modeller. Format
+ * `spreadsight-plan/2` introduced them; `spreadsight-plan/1` documents (layered models only,
+ * no `kind`) stay valid.
  */
 import { z } from "zod";
+import { sectionIssues, sectionModelShape } from "./section-schema";
 
 export const MAX_LAYERS = 12;
 export const MAX_MODELS = 8;
@@ -50,6 +56,8 @@ export const layerSchema = z.strictObject({
 
 export const groundModelSchema = z
   .strictObject({
+    /** Optional: a model without `kind` is layered. */
+    kind: z.literal("layered").optional(),
     name: z.string().trim().min(1, "model name is required").max(80),
     layers: z
       .array(layerSchema)
@@ -76,9 +84,35 @@ export const groundModelSchema = z
     });
   });
 
+/**
+ * A section model: surface and interface polylines (position m, elevation m) and a velocity
+ * per layer, analysed in 2-D (see section-schema.ts and docs/plan-format.md).
+ */
+export const sectionModelSchema = z.strictObject(sectionModelShape).superRefine((model, ctx) => {
+  for (const issue of sectionIssues(model)) {
+    ctx.addIssue({ code: "custom", path: issue.path, message: issue.message });
+  }
+});
+
+/** Any candidate ground model of a plan: layered (no `kind`, or `"layered"`) or a section. */
+export const candidateModelSchema = z.discriminatedUnion(
+  "kind",
+  [groundModelSchema, sectionModelSchema],
+  {
+    error: 'kind must be "layered" or "section"',
+  },
+);
+
 export const shotSchema = z.strictObject({
   /** Shot position along the line, m. */
   position: finite("shot position"),
+  /**
+   * Depth of a buried charge below the surface, m (default 0). Used by section models;
+   * layered models place every shot at the surface.
+   */
+  depth: finite("shot depth")
+    .refine((v) => v >= 0 && v <= 100, "shot depth must be between 0 and 100 m")
+    .optional(),
   label: z.string().trim().max(40).optional(),
 });
 
@@ -115,26 +149,86 @@ export const criteriaSchema = z.strictObject({
   depthTolerance: positive("depth tolerance").default(1),
 });
 
-export const planSchema = z.strictObject({
-  /** Format version of this document. */
-  format: z.literal("spreadsight-plan/1").default("spreadsight-plan/1"),
-  name: z.string().trim().min(1, "plan name is required").max(120).default("Untitled plan"),
-  models: z
-    .array(groundModelSchema)
-    .min(1, "a plan needs at least one ground model")
-    .max(MAX_MODELS, `a plan has at most ${MAX_MODELS} ground models`),
-  spread: spreadSchema,
-  criteria: criteriaSchema.default({ minGeophones: 2, pickError: 0.0005, depthTolerance: 1 }),
-});
+/** The current plan format; `spreadsight-plan/1` (layered models only) is still read. */
+export const PLAN_FORMAT = "spreadsight-plan/2";
+
+export const planSchema = z
+  .strictObject({
+    /** Format version of this document: "spreadsight-plan/2" (default) or "…/1". */
+    format: z
+      .enum(["spreadsight-plan/1", "spreadsight-plan/2"], {
+        error: 'format must be "spreadsight-plan/2" (or "spreadsight-plan/1")',
+      })
+      .default(PLAN_FORMAT),
+    name: z.string().trim().min(1, "plan name is required").max(120).default("Untitled plan"),
+    models: z
+      .array(candidateModelSchema)
+      .min(1, "a plan needs at least one ground model")
+      .max(MAX_MODELS, `a plan has at most ${MAX_MODELS} ground models`),
+    spread: spreadSchema,
+    criteria: criteriaSchema.default({ minGeophones: 2, pickError: 0.0005, depthTolerance: 1 }),
+  })
+  .superRefine((plan, ctx) => {
+    if (plan.format !== "spreadsight-plan/1") return;
+    plan.models.forEach((model, i) => {
+      if (model.kind === "section") {
+        ctx.addIssue({
+          code: "custom",
+          path: ["models", i, "kind"],
+          message: 'section models need format "spreadsight-plan/2"',
+        });
+      }
+    });
+  });
 
 export type Layer = z.infer<typeof layerSchema>;
+/** A layered ground model (flat surface, planar interfaces). */
 export type GroundModel = z.infer<typeof groundModelSchema>;
+/**
+ * One layer of a section model. The layered-only fields are typed `never` so that code
+ * reading `layer.thickness` or `layer.dip` on any model's layer still compiles (and gets
+ * undefined for a section).
+ */
+export type SectionLayer = z.infer<typeof sectionModelSchema>["layers"][number] & {
+  thickness?: never;
+  dip?: never;
+  velocityRange?: never;
+  thicknessRange?: never;
+};
+/** A section ground model (polylines in elevation, analysed in 2-D). */
+export type SectionModel = Omit<z.infer<typeof sectionModelSchema>, "layers"> & {
+  layers: SectionLayer[];
+};
+/** Any candidate ground model of a plan. */
+export type CandidateModel = GroundModel | SectionModel;
 export type Shot = z.infer<typeof shotSchema>;
 export type Spread = z.infer<typeof spreadSchema>;
 export type Criteria = z.infer<typeof criteriaSchema>;
-export type Plan = z.infer<typeof planSchema>;
+/** A validated plan: layered and section models. */
+export type Plan = Omit<z.infer<typeof planSchema>, "models"> & { models: CandidateModel[] };
 /** A plan as written by hand or sent by a form, before defaults are applied. */
 export type PlanInput = z.input<typeof planSchema>;
+
+/** True for a section model (`kind: "section"`); layered models have no kind or "layered". */
+export function isSectionModel(model: CandidateModel): model is SectionModel {
+  return model.kind === "section";
+}
+
+/** True for a layered model (the original kind, with or without `kind: "layered"`). */
+export function isLayeredModel(model: CandidateModel): model is GroundModel {
+  return model.kind !== "section";
+}
+
+/**
+ * The model as a layered model, for code that only handles layered models. Throws
+ * TypeError for a section model (it has no layered form; use the section analysis).
+ */
+export function layeredModel(model: CandidateModel): GroundModel {
+  if (model.kind === "section") {
+    throw new TypeError(`"${model.name}" is a section model: it has no layered form`);
+  }
+  return model;
+}
 
 /**
  * One line per problem, each naming the field path, e.g. `models[0].layers[2].velocity: …`.

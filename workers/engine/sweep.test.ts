@@ -3,7 +3,7 @@ import { analyzePlan } from "./analysis";
 import { CELL_INVALID, CELL_NOT_COMPUTED, STATUS_CODE } from "./statuses";
 import { createSweepRunner, followShots, runSweep } from "./sweep";
 import { parsePlan } from "./validate";
-import type { Plan } from "./plan-schema";
+import { layeredModel, type Plan } from "./plan-schema";
 
 function plan(input: unknown): Plan {
   const r = parsePlan(input);
@@ -82,7 +82,9 @@ describe("runSweep", () => {
           const end = (channels - 1) * spacing;
           const cellPlan: Plan = {
             ...base,
-            models: base.models.map((m, k) => (k === modelIndex ? { ...m, layers } : m)),
+            models: base.models.map((m, k) =>
+              k === modelIndex ? { ...layeredModel(m), layers } : m,
+            ),
             // end shots follow the spread: half a metre... one metre beyond each end
             spread: {
               spacing,

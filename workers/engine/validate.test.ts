@@ -27,7 +27,7 @@ describe("parsePlan", () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.plan.criteria).toEqual({ minGeophones: 2, pickError: 0.0005, depthTolerance: 1 });
-    expect(r.plan.format).toBe("spreadsight-plan/1");
+    expect(r.plan.format).toBe("spreadsight-plan/2");
   });
 
   it.each([

@@ -6,6 +6,7 @@
 import { layoutExtent, type Layout } from "./branches";
 import { describeInterfaceProblem, earthFromModel, findInterfaceProblem } from "./geometry";
 import { describePlanIssues, planSchema, type Plan, type Spread } from "./plan-schema";
+import { sectionSpreadIssues } from "./section-geometry";
 
 /** Result of parsing a plan: the plan with defaults applied, or one message per problem. */
 export type ParsePlanResult = { ok: true; plan: Plan } | { ok: false; issues: string[] };
@@ -25,6 +26,10 @@ export function geometryIssues(plan: Plan): string[] {
   const extent = layoutExtent(layoutOf(plan.spread));
   const issues: string[] = [];
   plan.models.forEach((model, i) => {
+    if (model.kind === "section") {
+      issues.push(...sectionSpreadIssues(model, plan.spread, i));
+      return;
+    }
     const problem = findInterfaceProblem(earthFromModel(model), extent.from, extent.to);
     if (problem) {
       issues.push(

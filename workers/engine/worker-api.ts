@@ -6,6 +6,9 @@ import { analyzePlan } from "./analysis";
 import { computeArrivals, sampleCurves } from "./arrivals";
 import type { Plan } from "./plan-schema";
 import { firstArrivalRayPath } from "./ray-paths";
+import { runSectionSweep, sectionShotField } from "./section-analysis";
+import { sectionFromLayered } from "./section-convert";
+import type { SectionSweepResult, SectionSweepSpec } from "./section-types";
 import { runSweep, type SweepResult, type SweepSpec } from "./sweep";
 import { parsePlan } from "./validate";
 
@@ -19,6 +22,18 @@ export const modellerApi = {
   /** Run a sweep; `onProgress` receives fractions 0..1 after each row. */
   runSweep(plan: Plan, spec: SweepSpec, onProgress?: (fraction: number) => void): SweepResult {
     return runSweep(plan, spec, { onProgress });
+  },
+  /** Time field and first-arrival rays of one shot over a section model. */
+  sectionShotField,
+  /** A layered model as a section over [from, to] m. */
+  sectionFromLayered,
+  /** Section design sweep; `onProgress` receives fractions 0..1 after each row. */
+  runSectionSweep(
+    plan: Plan,
+    spec: SectionSweepSpec,
+    onProgress?: (fraction: number) => void,
+  ): SectionSweepResult {
+    return runSectionSweep(plan, spec, { onProgress });
   },
 };
 

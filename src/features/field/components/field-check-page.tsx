@@ -19,6 +19,7 @@ import {
   type PickerChoice,
   type Seg2Record,
 } from "../../../../workers/field/index";
+import { isLayeredModel } from "@engine";
 import { useAddCandidateModel } from "../api/add-model";
 import { fetchAttachmentBytes, attachmentContentUrl } from "../api/attachment-content";
 import { useDeleteAttachment } from "../api/delete-attachment";
@@ -141,7 +142,10 @@ function FieldCheck({
   const addModel = useAddCandidateModel(plan);
 
   const candidates = useMemo<Candidate[]>(() => {
-    const fromPlan = doc.models.map((m) => ({ name: m.name, model: m, source: "plan" as const }));
+    // section models are not compared with field picks (yet): only layered ones
+    const fromPlan = doc.models
+      .filter(isLayeredModel)
+      .map((m) => ({ name: m.name, model: m, source: "plan" as const }));
     const names = new Set(doc.models.map((m) => m.name));
     const fromLogs = attachments.flatMap((a) =>
       a.facts.kind === "borehole" && !names.has(a.facts.model.name)

@@ -28,4 +28,7 @@ export {
   STATUSES,
   followShots,
   statusFromCode,
+  isLayeredModel,
+  isSectionModel,
+  layeredModel,
 } from "@engine";

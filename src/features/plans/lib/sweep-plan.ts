@@ -90,7 +90,7 @@ export function planAtCell(
   return {
     ...plan,
     models: plan.models.map((m, i) =>
-      i !== modelIndex
+      i !== modelIndex || m.kind === "section"
         ? m
         : {
             ...m,

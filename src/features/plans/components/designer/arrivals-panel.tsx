@@ -2,7 +2,7 @@ import { useMemo, useState } from "react";
 import { type UnitSystem } from "@/lib/units";
 import { useElementWidth } from "@/hooks/use-element-width";
 import { useLatestResult } from "../../hooks/use-latest-result";
-import type { Plan, PlanAnalysis } from "../../lib/engine";
+import { layeredModel, type Plan, type PlanAnalysis } from "../../lib/engine";
 import { modeller } from "../../lib/modeller-client";
 import { objectId } from "../../lib/object-id";
 import { ArrivalsChart, ChartState, type ArrivalsData } from "../charts/arrivals-chart";
@@ -51,7 +51,7 @@ export function nearDomain(
 
 async function computeChart(request: ChartRequest) {
   const { plan, modelIndex, shotIndex, domain, reflections } = request;
-  const model = plan.models[modelIndex];
+  const model = layeredModel(plan.models[modelIndex]);
   const shot = plan.spread.shots[shotIndex].position;
   const [curves, arrivals] = await Promise.all([
     modeller().curves(model, shot, domain[0], domain[1], 800, { reflections }),

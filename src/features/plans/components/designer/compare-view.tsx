@@ -9,7 +9,7 @@ import { useSitePlans } from "../../api/get-site-plans";
 import { planQueryOptions } from "../../api/get-plan";
 import { useElementWidth } from "@/hooks/use-element-width";
 import { useModellerQuery } from "../../hooks/use-modeller-query";
-import type { Plan } from "../../lib/engine";
+import { layeredModel, type Plan } from "../../lib/engine";
 import { privateModeller, type ModellerClient } from "../../lib/modeller-client";
 import {
   buildOverlay,
@@ -36,7 +36,7 @@ async function runScenarios(
   const results: ScenarioResult[] = [];
   for (const s of scenarios) {
     const [from, to] = wholeDomain(s.plan, 0);
-    const model = s.plan.models[0];
+    const model = layeredModel(s.plan.models[0]);
     const analysis = await client.analyze(s.plan);
     const curves = await client.curves(model, s.plan.spread.shots[0].position, from, to, 600, {
       reflections: false,

@@ -3,7 +3,7 @@ import { formatQuantity, type UnitSystem } from "@/lib/units";
 import { ErrorNotice } from "@/components/feedback";
 import { useElementWidth } from "@/hooks/use-element-width";
 import { useLatestResult } from "../../hooks/use-latest-result";
-import type { Plan } from "../../lib/engine";
+import { layeredModel, type Plan } from "../../lib/engine";
 import { modeller } from "../../lib/modeller-client";
 import { objectId } from "../../lib/object-id";
 import { SectionChart } from "../charts/section-chart";
@@ -36,7 +36,7 @@ export function SectionPanel({
   const geophoneId = useId();
   const exaggerationId = useId();
   const geophone = Math.min(chosen ?? farthestGeophone(plan, shotIndex), plan.spread.channels);
-  const model = plan.models[modelIndex];
+  const model = layeredModel(plan.models[modelIndex]);
   const shot = plan.spread.shots[shotIndex];
   const position = plan.spread.firstGeophone + (geophone - 1) * plan.spread.spacing;
   const ray = useLatestResult(

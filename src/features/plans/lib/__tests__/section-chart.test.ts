@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { layeredModel } from "../engine";
 import { buildSection } from "../section-chart";
 import { threeLayerPlan } from "../../__tests__/fixtures";
 
@@ -9,7 +10,7 @@ describe("the Section", () => {
   it("draws a flat model with level interfaces and one polygon per layer", () => {
     const plan = threeLayerPlan();
     const s = buildSection({
-      model: plan.models[0],
+      model: layeredModel(plan.models[0]),
       spread: plan.spread,
       shotIndex: 0,
       ray: null,
@@ -35,7 +36,7 @@ describe("the Section", () => {
     const plan = threeLayerPlan();
     plan.models[0].layers[1].dip = 5;
     const s = buildSection({
-      model: plan.models[0],
+      model: layeredModel(plan.models[0]),
       spread: plan.spread,
       shotIndex: 0,
       ray: null,
@@ -55,7 +56,7 @@ describe("the Section", () => {
   it("shades faster layers darker", () => {
     const plan = threeLayerPlan();
     const s = buildSection({
-      model: plan.models[0],
+      model: layeredModel(plan.models[0]),
       spread: plan.spread,
       shotIndex: 0,
       ray: null,
