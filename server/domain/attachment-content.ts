@@ -12,6 +12,7 @@ import type {
 } from "@/contracts/field";
 import { MATERIALS } from "@engine";
 import {
+  boreholeModelName,
   parseBoreholeCsv,
   parsePicksCsv,
   readSeg2,
@@ -145,9 +146,7 @@ export function checkContent(
       picks,
     };
   }
-  const name =
-    fields.modelName ??
-    `Borehole log ${cleanFileName(file.originalname).replace(/\.[^.]*$/, "")}`.slice(0, 80);
+  const name = fields.modelName ?? boreholeModelName(cleanFileName(file.originalname));
   const result = parseBoreholeCsv(text, MATERIALS, { name });
   if (!result.ok) throw csvError(kind, result.errors);
   return {

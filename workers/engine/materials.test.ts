@@ -31,12 +31,33 @@ describe("materials table", () => {
     ["Medium dense SAND, wet (saturated sand)", "saturated-sand"],
     ["Loose dry sand with roots", "dry-sand"],
     ["Stiff grey boulder clay (till)", "saturated-till"],
-    ["Weathered GRANITE", "granite"],
+    // Weathered rock is far slower than fresh granite (common practice), so "weathered" wins.
+    ["Weathered GRANITE", "weathered-rock"],
+    ["Fresh GRANITE", "granite"],
+    ["Soft grey CLAY", "clay"],
+    ["Dense sandy GRAVEL", "gravel"],
+    ["MADE GROUND: brick rubble", "fill"],
+    ["Dark brown TOPSOIL", "topsoil"],
+    ["Dry glacial till", "dry-till"],
   ])("matches the borehole-log description %j to %s", (text, key) => {
     expect(matchMaterial(text)?.key).toBe(key);
   });
 
   it("matches nothing for an unknown description", () => {
-    expect(matchMaterial("made ground: brick rubble")).toBeUndefined();
+    expect(matchMaterial("fibrous peat")).toBeUndefined();
+  });
+
+  it("gives every material a real range (Ice no longer 3,400–3,400) and a named source", () => {
+    for (const m of MATERIALS) expect(m.max).toBeGreaterThan(m.min);
+    // Ice: about 3.4–3.8 km/s (common practice, from memory).
+    expect(findMaterial("ice")).toMatchObject({ min: 3400, max: 3800 });
+    // Burger, Sheehan & Jones (2006) Table 3.1, from memory: weathered surface material
+    // 240–610 m/s, gravel or dry sand 460–915 m/s.
+    expect(findMaterial("topsoil")).toMatchObject({ min: 240, max: 610 });
+    expect(findMaterial("gravel")).toMatchObject({ min: 460, max: 915 });
+    for (const key of ["fill", "weathered-rock", "dry-till"]) {
+      expect(findMaterial(key)?.source).toMatch(/common practice, from memory/);
+    }
+    expect(MATERIALS_SOURCE).toMatch(/Burger, Sheehan & Jones \(2006\)/);
   });
 });

@@ -78,6 +78,34 @@ function velocityColumn(header: string[]): { index: number; scale: number } {
   return { index: -1, scale: 1 };
 }
 
+/** File-name words that say "this is a log" (and BH, BH3, …). */
+const LOG_WORDS = new Set(["borehole", "boreholes", "bore", "hole", "log", "logs", "probe"]);
+/** File-name words that name nothing. */
+const FILLER_WORDS = new Set(["data", "export", "csv", "file", "new", "copy"]);
+const saysLog = (word: string) => LOG_WORDS.has(word) || /^bh\d*$/.test(word);
+
+/**
+ * A ground model's name for a borehole log uploaded as `fileName`: "Harwick lane 3.csv" →
+ * "Borehole log Harwick lane 3"; a name that already says it is a log ("BH-3 Harwick
+ * lane.csv", "borehole_7.csv") is kept as written ("BH-3 Harwick lane", "borehole 7"); a name
+ * with nothing but such words ("borehole.csv", "log data.csv") gives "Borehole log" — never
+ * "Borehole log borehole". At most 80 characters.
+ */
+export function boreholeModelName(fileName: string): string {
+  const stem = fileName
+    .replace(/^.*[\\/]/, "")
+    .replace(/\.[^.]*$/, "")
+    .replace(/_+/g, " ")
+    .replace(/\s+/g, " ")
+    .trim();
+  const words = stem
+    .toLowerCase()
+    .split(/[^a-z0-9]+/)
+    .filter(Boolean);
+  if (words.every((w) => saysLog(w) || FILLER_WORDS.has(w))) return "Borehole log";
+  return (words.some(saysLog) ? stem : `Borehole log ${stem}`).slice(0, 80);
+}
+
 /** Depth difference below which two interval ends count as the same depth, m. */
 const DEPTH_TOLERANCE = 0.005;
 const MAX_VELOCITY = 10000;

@@ -35,7 +35,12 @@ export {
   type CsvTable,
 } from "./csv-table";
 export { parsePicksCsv, type PickRow, type PicksCsvResult } from "./picks-csv";
-export { parseBoreholeCsv, type LogRow, type BoreholeCsvResult } from "./borehole-csv";
+export {
+  boreholeModelName,
+  parseBoreholeCsv,
+  type LogRow,
+  type BoreholeCsvResult,
+} from "./borehole-csv";
 export {
   materialLookup,
   materialName,

@@ -68,7 +68,10 @@ function velocityOf(entry: MaterialEntry): number | null {
 
 /**
  * Makes a look-up function over a table. A material matches an entry when its normalised
- * text equals the entry's normalised key, name or one of its aliases.
+ * text equals the entry's normalised key, name or one of its aliases; failing that, when one of
+ * those occurs in it as whole words, so a log's qualifiers ("soft clay", "dense sandy gravel",
+ * "brown silty CLAY, wet") still find the material. The longest such name wins ("dry till"
+ * before "till"); a text naming nothing in the table gives null.
  */
 export function materialLookup(table: MaterialTable): (material: string) => MaterialMatch | null {
   const index = new Map<string, MaterialMatch>();
@@ -81,5 +84,15 @@ export function materialLookup(table: MaterialTable): (material: string) => Mate
       if (k && !index.has(k)) index.set(k, { key: entry.key, velocity });
     }
   }
-  return (material) => index.get(materialName(material)) ?? null;
+  // Longest names first, so the first whole-word hit is the most specific.
+  const byLength = [...index.keys()].sort((a, b) => b.length - a.length);
+  return (material) => {
+    const name = materialName(material);
+    const exact = index.get(name);
+    if (exact) return exact;
+    if (!name) return null;
+    const padded = ` ${name} `;
+    const hit = byLength.find((k) => padded.includes(` ${k} `));
+    return hit ? index.get(hit)! : null;
+  };
 }
