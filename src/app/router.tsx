@@ -1,34 +1,82 @@
+import { lazy, Suspense, type ComponentType } from "react";
 import { createBrowserRouter, Navigate, type RouteObject } from "react-router-dom";
 import { can } from "@/contracts/common";
+import { Loading } from "@/components/feedback";
 import { SignInPage } from "@/features/auth/components/sign-in-page";
-import { ForgotPasswordPage, ResetPasswordPage } from "@/features/auth/components/password-pages";
-import { AcceptInvitationPage } from "@/features/auth/components/accept-invitation-page";
-import { SitesPage } from "@/features/sites/components/sites-page";
-import { PlanDesignerPage } from "@/features/plans/components/designer/plan-designer-page";
-import { DesignerSlotsProvider, type DesignerSlots } from "@/features/plans/designer-slots";
-import { TeamPage } from "@/features/team/components/team-page";
-import { MailboxPage } from "@/features/mailbox/components/mailbox-page";
-import { SettingsPage } from "@/features/settings/components/settings-page";
-import {
-  AnchorComments,
-  ReviewPage,
-  TeamActivityPage,
-  useAnchorThreadCounts,
-} from "@/features/review";
-import { InboxPage } from "@/features/inbox";
 import { AppLayout } from "./layout";
-import { SiteRoute } from "./site-route";
 import { RequireAuth, RequireRole } from "./guards";
 import { paths } from "./paths";
 import { NotFoundPage } from "./not-found";
 import { PlanLinkGuard } from "./plan-link";
-import { FieldCheckPage } from "@/features/field";
 
-/** What the designer borrows from the Review feature: the threads beside a layer, refractor or shot. */
-export const designerSlots: DesignerSlots = {
-  renderAnchorComments: (planId, anchor) => <AnchorComments planId={planId} anchor={anchor} />,
-  useAnchorCounts: useAnchorThreadCounts,
-};
+/**
+ * A screen loaded with its own chunk the first time it is shown (the first load carries only
+ * the sign-in page and the frame). `load` is a dynamic import; `pick` names the component.
+ */
+function lazyScreen<M>(load: () => Promise<M>, pick: (module: M) => ComponentType) {
+  const Screen = lazy(() => load().then((module) => ({ default: pick(module) })));
+  return function LazyScreen() {
+    return (
+      <Suspense fallback={<Loading label="Loading…" />}>
+        <Screen />
+      </Suspense>
+    );
+  };
+}
+
+const ForgotPasswordPage = lazyScreen(
+  () => import("@/features/auth/components/password-pages"),
+  (m) => m.ForgotPasswordPage,
+);
+const ResetPasswordPage = lazyScreen(
+  () => import("@/features/auth/components/password-pages"),
+  (m) => m.ResetPasswordPage,
+);
+const AcceptInvitationPage = lazyScreen(
+  () => import("@/features/auth/components/accept-invitation-page"),
+  (m) => m.AcceptInvitationPage,
+);
+const SitesPage = lazyScreen(
+  () => import("@/features/sites/components/sites-page"),
+  (m) => m.SitesPage,
+);
+const SiteRoute = lazyScreen(
+  () => import("./site-route"),
+  (m) => m.SiteRoute,
+);
+/** The designer with the comment threads it borrows from Review (designer-route.tsx). */
+const DesignerRoute = lazyScreen(
+  () => import("./designer-route"),
+  (m) => m.DesignerRoute,
+);
+const ReviewPage = lazyScreen(
+  () => import("@/features/review"),
+  (m) => m.ReviewPage,
+);
+const TeamActivityPage = lazyScreen(
+  () => import("@/features/review"),
+  (m) => m.TeamActivityPage,
+);
+const FieldCheckPage = lazyScreen(
+  () => import("@/features/field"),
+  (m) => m.FieldCheckPage,
+);
+const InboxPage = lazyScreen(
+  () => import("@/features/inbox"),
+  (m) => m.InboxPage,
+);
+const TeamPage = lazyScreen(
+  () => import("@/features/team/components/team-page"),
+  (m) => m.TeamPage,
+);
+const MailboxPage = lazyScreen(
+  () => import("@/features/mailbox/components/mailbox-page"),
+  (m) => m.MailboxPage,
+);
+const SettingsPage = lazyScreen(
+  () => import("@/features/settings/components/settings-page"),
+  (m) => m.SettingsPage,
+);
 
 /** Routes shown inside the signed-in frame. Features add theirs here. */
 export const appRoutes: RouteObject[] = [
@@ -39,9 +87,7 @@ export const appRoutes: RouteObject[] = [
     path: paths.plan(),
     element: (
       <PlanLinkGuard>
-        <DesignerSlotsProvider slots={designerSlots}>
-          <PlanDesignerPage />
-        </DesignerSlotsProvider>
+        <DesignerRoute />
       </PlanLinkGuard>
     ),
   },

@@ -10,21 +10,16 @@
  * cancelSweep(); its promise then rejects with reason "cancelled".
  */
 import * as Comlink from "comlink";
-import {
-  analyzePlan,
-  computeArrivals,
-  createSweepRunner,
-  firstArrivalRayPath,
-  sampleCurves,
-  type ArrivalCurves,
-  type GroundModel,
-  type Plan,
-  type PlanAnalysis,
-  type RayPath,
-  type ShotArrivals,
-  type Spread,
-  type SweepResult,
-  type SweepSpec,
+import type {
+  ArrivalCurves,
+  GroundModel,
+  Plan,
+  PlanAnalysis,
+  RayPath,
+  ShotArrivals,
+  Spread,
+  SweepResult,
+  SweepSpec,
 } from "@engine";
 import type { ModellerWorkerApi } from "../../workers/modeller.worker";
 
@@ -56,6 +51,11 @@ export interface SweepControl {
 export interface Modeller {
   /** Full analysis of a validated plan (see parsePlan in the engine). */
   analyze(plan: Plan): Promise<PlanAnalysis>;
+  /**
+   * Full analysis that no later request supersedes (several plans at once, e.g. the revisions
+   * on the Review screen); it still rejects as cancelled when the modeller is disposed.
+   */
+  analyzeOne(plan: Plan): Promise<PlanAnalysis>;
   /** Arrivals of one shot (0-based index) at every geophone. */
   arrivals(model: GroundModel, spread: Spread, shotIndex: number): Promise<ShotArrivals>;
   /** Dense curves of one shot between signed offsets, for the Arrivals chart. */
@@ -101,6 +101,14 @@ function defaultWorkerFactory(): (() => WorkerLike) | null {
 
 const nextTask = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
+/**
+ * The engine itself, for running on this thread where no Worker exists (tests, old browsers):
+ * loaded on first use, so the engine is in the application's chunks only as a fallback.
+ */
+type Engine = typeof import("@engine");
+let engine: Promise<Engine> | null = null;
+const loadEngine = (): Promise<Engine> => (engine ??= import("@engine"));
+
 /** Create a modeller facade. */
 export function createModeller(options: ModellerOptions = {}): Modeller {
   const factory =
@@ -111,6 +119,7 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
   const latest = new Map<string, number>();
   const pending = new Set<(reason: CancelReason) => void>();
   let sweepSeq = 0;
+  let oneSeq = 0;
   let stopSweep: ((reason: CancelReason) => void) | null = null;
 
   const spawn = () => {
@@ -142,9 +151,9 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
   }
 
   // On this thread: yield first so that a burst of requests resolves only the last one.
-  const local = async <T>(fn: () => T): Promise<T> => {
-    await Promise.resolve();
-    return fn();
+  const local = async <T>(fn: (engine: Engine) => T): Promise<T> => {
+    const loaded = await loadEngine();
+    return fn(loaded);
   };
 
   async function sweepHere(
@@ -153,7 +162,7 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
     control: SweepControl,
     stopped: () => CancelReason | null,
   ): Promise<SweepResult> {
-    await Promise.resolve();
+    const { createSweepRunner } = await loadEngine();
     const runner = createSweepRunner(plan, spec);
     for (;;) {
       const reason = stopped();
@@ -221,13 +230,19 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
       latestOnly("analyze", () =>
         factory
           ? (quickApi().analyzePlan(plan) as Promise<PlanAnalysis>)
-          : local(() => analyzePlan(plan)),
+          : local((e) => e.analyzePlan(plan)),
+      ),
+    analyzeOne: (plan) =>
+      latestOnly(`analyze-one:${++oneSeq}`, () =>
+        factory
+          ? (quickApi().analyzePlan(plan) as Promise<PlanAnalysis>)
+          : local((e) => e.analyzePlan(plan)),
       ),
     arrivals: (model, spread, shotIndex) =>
       latestOnly("arrivals", () =>
         factory
           ? (quickApi().computeArrivals(model, spread, shotIndex) as Promise<ShotArrivals>)
-          : local(() => computeArrivals(model, spread, shotIndex)),
+          : local((e) => e.computeArrivals(model, spread, shotIndex)),
       ),
     curves: (model, shotPosition, fromOffset, toOffset, samples, opts) =>
       latestOnly("curves", () =>
@@ -240,7 +255,7 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
               samples,
               opts,
             ) as Promise<ArrivalCurves>)
-          : local(() => sampleCurves(model, shotPosition, fromOffset, toOffset, samples, opts)),
+          : local((e) => e.sampleCurves(model, shotPosition, fromOffset, toOffset, samples, opts)),
       ),
     rayPath: (model, shotPosition, geophonePosition) =>
       latestOnly("rayPath", () =>
@@ -250,7 +265,7 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
               shotPosition,
               geophonePosition,
             ) as Promise<RayPath>)
-          : local(() => firstArrivalRayPath(model, shotPosition, geophonePosition)),
+          : local((e) => e.firstArrivalRayPath(model, shotPosition, geophonePosition)),
       ),
     sweep,
     cancelSweep: () => stopSweep?.("cancelled"),

@@ -11,7 +11,7 @@ import { PlanDesignerPage } from "@/features/plans/components/designer/plan-desi
 import { DesignerSlotsProvider } from "@/features/plans/designer-slots";
 import { PLAN_ID, planDetail } from "@/features/plans/__tests__/fixtures";
 import { comment, members, reviewerId } from "@/features/review/testing/fixtures";
-import { designerSlots } from "../router";
+import { designerSlots } from "../designer-route";
 
 const base = `/api/plans/${PLAN_ID}`;
 const reviewer = testMe({

@@ -1,7 +1,7 @@
-import { useMemo } from "react";
+import { useEffect, useState } from "react";
 import type { Plan } from "@engine";
 import { formatQuantity, type UnitSystem } from "@/lib/units";
-import { ErrorNotice } from "@/components/feedback";
+import { ErrorNotice, Loading } from "@/components/feedback";
 import { resolvabilityOf, type ResolvabilitySummary } from "../lib/resolvability";
 import { VerdictTag } from "./badges";
 import { sentenceInUnits } from "../lib/sentence-units";
@@ -19,13 +19,25 @@ export function ResolvabilitySummaryView({
   stored?: unknown;
   units: UnitSystem;
 }) {
-  const result = useMemo((): { summary: ResolvabilitySummary } | { error: unknown } => {
-    try {
-      return { summary: resolvabilityOf(document, stored) };
-    } catch (error) {
-      return { error };
-    }
+  // The analysis runs in the modeller's worker; the answer is kept with what it answers.
+  const [answer, setAnswer] = useState<{
+    document: Plan;
+    stored: unknown;
+    result: { summary: ResolvabilitySummary } | { error: unknown };
+  } | null>(null);
+  useEffect(() => {
+    let live = true;
+    resolvabilityOf(document, stored).then(
+      (summary) => live && setAnswer({ document, stored, result: { summary } }),
+      (error: unknown) => live && setAnswer({ document, stored, result: { error } }),
+    );
+    return () => {
+      live = false;
+    };
   }, [document, stored]);
+  const result =
+    answer && answer.document === document && answer.stored === stored ? answer.result : null;
+  if (!result) return <Loading label="Analysing this revision…" />;
   if ("error" in result)
     return <ErrorNotice error={result.error} title="The engine could not analyse this revision" />;
   const { summary } = result;

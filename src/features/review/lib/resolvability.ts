@@ -1,11 +1,13 @@
 /**
  * The resolvability summary of a revision: per ground model, the verdict of every refractor and
  * the depth error a standard interpretation would make. Taken from the summary the server
- * stores with the revision (`RevisionAnalysisSummary`); when a revision has none, computed here
- * from its document with the engine's `analyzePlan`.
+ * stores with the revision (`RevisionAnalysisSummary`); when a revision has none, computed
+ * from its document by the engine's `analyzePlan` in the modeller's Web Worker (never on the
+ * main thread).
  */
-import { analyzePlan, type Plan, type PlanAnalysis } from "@engine";
+import type { Plan, PlanAnalysis } from "@engine";
 import type { RevisionAnalysisSummary } from "@/contracts/plans";
+import { getModeller } from "@/lib/modeller";
 
 /** The summary as the Review screen shows it, whichever way it was obtained. */
 export type ResolvabilitySummary = RevisionAnalysisSummary & {
@@ -52,11 +54,19 @@ const isStoredSummary = (value: unknown): value is RevisionAnalysisSummary =>
   (value as { format?: unknown }).format === "spreadsight-revision-summary/1" &&
   Array.isArray((value as { models?: unknown }).models);
 
+/** The engine's full analysis, run by the shared modeller (its worker). */
+const analyseOffThread = (plan: Plan): Promise<PlanAnalysis> => getModeller().analyzeOne(plan);
+
 /**
  * The summary of a revision: `stored` when the server saved one, otherwise the engine's
- * analysis of `document`. Throws only if the engine refuses the document.
+ * analysis of `document` (by `analyse`, the modeller's worker unless a test passes another).
+ * Rejects only if the engine refuses the document.
  */
-export function resolvabilityOf(document: Plan, stored?: unknown): ResolvabilitySummary {
+export async function resolvabilityOf(
+  document: Plan,
+  stored?: unknown,
+  analyse: (plan: Plan) => Promise<PlanAnalysis> = analyseOffThread,
+): Promise<ResolvabilitySummary> {
   if (isStoredSummary(stored)) return { ...stored, source: "stored" };
-  return { ...summarise(analyzePlan(document)), source: "computed" };
+  return { ...summarise(await analyse(document)), source: "computed" };
 }
