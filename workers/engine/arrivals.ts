@@ -57,10 +57,6 @@ function sideState(prep: PreparedEarth, shot: number, sign: 1 | -1): SideState {
   return { lines, pieces };
 }
 
-function kindOf(arrival: number): ArrivalKind {
-  return arrival === 0 ? { kind: "direct" } : { kind: "head", layer: arrival + 1 };
-}
-
 /** Options of computeArrivals. */
 export interface ArrivalOptions {
   /** Also solve the reflection from every interface at every geophone. Default false. */
@@ -126,7 +122,7 @@ export function computeArrivals(
       direct,
       head,
       reflections,
-      first: { ...kindOf(arrival), time },
+      first: arrival === 0 ? { kind: "direct", time } : { kind: "head", layer: arrival + 1, time },
     });
   }
   return { shot: shotIndex, shotPosition: xs, geophones };
