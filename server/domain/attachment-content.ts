@@ -52,12 +52,35 @@ function csvError(kind: AttachmentKind, issues: CsvIssue[]): AppError {
   );
 }
 
-/** The text of a CSV upload: UTF-8 (a BOM is allowed), not binary. */
+/**
+ * Most lines a CSV upload may have. A borehole log or a picks file of a survey has hundreds
+ * to a few tens of thousands (500 shots × 96 channels is 48,000 picks); a file with more is
+ * refused before it is parsed, so a hostile one-value-per-line file cannot fill memory.
+ */
+export const MAX_CSV_LINES = 60_000;
+
+/** Counts line breaks without building strings. */
+function lineCount(buffer: Buffer): number {
+  let lines = 1;
+  let at = buffer.indexOf(10);
+  while (at >= 0) {
+    lines++;
+    at = buffer.indexOf(10, at + 1);
+  }
+  return lines;
+}
+
+/** The text of a CSV upload: UTF-8 (a BOM is allowed), not binary, at most MAX_CSV_LINES lines. */
 export function csvText(buffer: Buffer): string {
   const nul = buffer.indexOf(0);
   if (nul >= 0) {
     const message = `byte ${nul}: a text file holds no NUL bytes; this looks like a binary file`;
     throw new AppError(415, "unsupported_file_type", message, { file: [message] });
+  }
+  const lines = lineCount(buffer);
+  if (lines > MAX_CSV_LINES) {
+    const message = `the file has ${lines.toLocaleString("en")} lines; a CSV upload may have at most ${MAX_CSV_LINES.toLocaleString("en")}`;
+    throw new AppError(422, "invalid_csv", message, { file: [message] });
   }
   try {
     return new TextDecoder("utf-8", { fatal: true }).decode(buffer);

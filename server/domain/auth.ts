@@ -12,6 +12,7 @@ import { passwordResetMail } from "./emails";
 import { AppError } from "./errors";
 import { loadActor } from "./me";
 import {
+  assertStrongPassword,
   decoyPasswordHash,
   generateToken,
   hashPassword,
@@ -117,7 +118,9 @@ export async function completePasswordReset(
   token: string,
   password: string,
 ): Promise<void> {
-  await usableReset(dataSource.manager, token);
+  const pending = await usableReset(dataSource.manager, token);
+  const owner = await dataSource.getRepository(User).findOneBy({ id: pending.userId });
+  await assertStrongPassword(password, owner ? [owner.email, owner.name] : []);
   const passwordHash = await hashPassword(password);
   await inTransaction(dataSource, async (manager) => {
     const reset = await usableReset(manager, token);

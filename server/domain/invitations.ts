@@ -15,7 +15,7 @@ import { requirePermission } from "./actor";
 import { recordAudit } from "./audit";
 import { invitationMail } from "./emails";
 import { AppError, notFound } from "./errors";
-import { generateToken, hashPassword, hashToken } from "./secrets";
+import { assertStrongPassword, generateToken, hashPassword, hashToken } from "./secrets";
 import { INVITATION_TTL_MS, type Services } from "./services";
 
 function toSummary(invitation: Invitation): InvitationSummary {
@@ -202,7 +202,8 @@ export async function acceptInvitation(
   input: { name: string; password: string },
 ): Promise<string> {
   // Fail fast on a bad link before spending time on the hash.
-  await usableInvitation(dataSource.manager, token);
+  const pending = await usableInvitation(dataSource.manager, token);
+  await assertStrongPassword(input.password, [pending.email, input.name]);
   const passwordHash = await hashPassword(input.password);
   return inTransaction(dataSource, async (manager) => {
     const invitation = await usableInvitation(manager, token);

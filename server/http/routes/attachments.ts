@@ -5,18 +5,26 @@
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
 import { idParamSchema } from "@/contracts/common";
-import { ATTACHMENT_LIMITS, attachmentFieldsSchema, picksSaveSchema } from "@/contracts/field";
+import {
+  ATTACHMENT_KIND_LABELS,
+  ATTACHMENT_LIMITS,
+  attachmentFieldsSchema,
+  picksSaveSchema,
+  type AttachmentKind,
+} from "@/contracts/field";
 import {
   attachmentContent,
   deleteAttachment,
   getPicks,
   listAttachments,
+  requireFieldEditor,
   requireFieldRole,
   savePicks,
   uploadAttachment,
   type UploadedFile,
 } from "../../domain/attachments";
 import { AppError, invalidInput } from "../../domain/errors";
+import { findVisiblePlan } from "../../domain/plan-visibility";
 import type { RouteContext } from "../context";
 import { originCheck } from "../origin";
 import { requireActor } from "../session";
@@ -25,8 +33,55 @@ import { noQuerySchema, parseBody, parseParams, parseQuery } from "../validate";
 /** Largest upload of any kind; each kind's own limit is checked after (ATTACHMENT_LIMITS). */
 const MAX_UPLOAD = Math.max(...Object.values(ATTACHMENT_LIMITS));
 
+/** Room for the multipart framing and the small text fields around the file. */
+const FORM_OVERHEAD = 64 * 1024;
+
+const isKind = (value: unknown): value is AttachmentKind =>
+  typeof value === "string" && Object.hasOwn(ATTACHMENT_LIMITS, value);
+
+/**
+ * multer's memory storage, but the file is refused (413) as soon as it outgrows its kind's
+ * limit when the form's `kind` field came before the file (the client sends it first), and the
+ * largest limit of any kind otherwise; the rest of the upload is then discarded unread.
+ */
+const kindAwareMemory: multer.StorageEngine = {
+  _handleFile(req, file, callback) {
+    const kind = (req.body as Record<string, unknown> | undefined)?.kind;
+    const limit = isKind(kind) ? ATTACHMENT_LIMITS[kind] : MAX_UPLOAD;
+    const chunks: Buffer[] = [];
+    let size = 0;
+    let finished = false;
+    const finish = (error: Error | null, info?: Partial<Express.Multer.File>) => {
+      if (finished) return;
+      finished = true;
+      callback(error, info);
+    };
+    file.stream.on("data", (chunk: Buffer) => {
+      if (finished) return;
+      size += chunk.length;
+      if (size > limit) {
+        const what = isKind(kind)
+          ? `a ${ATTACHMENT_KIND_LABELS[kind].toLowerCase()}`
+          : "any upload";
+        const message = `the file is larger than ${limit / (1024 * 1024)} MB, the most ${what} may be`;
+        chunks.length = 0;
+        file.stream.resume();
+        finish(new AppError(413, "file_too_large", message, { file: [message] }));
+        return;
+      }
+      chunks.push(chunk);
+    });
+    file.stream.on("error", (error: Error) => finish(error));
+    file.stream.on("end", () => finish(null, { buffer: Buffer.concat(chunks, size), size }));
+  },
+  _removeFile(_req, file, callback) {
+    (file as { buffer?: Buffer }).buffer = undefined;
+    callback(null);
+  },
+};
+
 const upload = multer({
-  storage: multer.memoryStorage(),
+  storage: kindAwareMemory,
   limits: { fileSize: MAX_UPLOAD, files: 1, fields: 8, fieldSize: 1024, parts: 10 },
 });
 
@@ -35,6 +90,10 @@ const receiveFile: RequestHandler = (req, res, next) => {
   upload.single("file")(req, res, (error: unknown) => {
     if (!error) {
       next();
+      return;
+    }
+    if (error instanceof AppError) {
+      next(error);
       return;
     }
     if (error instanceof multer.MulterError) {
@@ -95,11 +154,21 @@ export function attachmentUploadRouter(
     },
     originCheck(options),
     ctx.sessions.middleware,
-    (req, res, next) => {
+    // Cheap checks before a byte of the body is read: role, the plan (visible, editable, not
+    // archived), the media type and the declared length.
+    async (req, res, next) => {
       const actor = requireActor(res);
       requireFieldRole(actor);
-      parseParams(idParamSchema, req);
+      const { id } = parseParams(idParamSchema, req);
       parseQuery(noQuerySchema, req);
+      const plan = await findVisiblePlan(dataSource.manager, actor, id);
+      requireFieldEditor(actor, plan);
+      const declared = Number(req.headers["content-length"]);
+      if (Number.isFinite(declared) && declared > MAX_UPLOAD + FORM_OVERHEAD) {
+        const message = `the file is larger than ${MAX_UPLOAD / (1024 * 1024)} MB, the most any upload may be`;
+        res.setHeader("Connection", "close");
+        throw new AppError(413, "file_too_large", message, { file: [message] });
+      }
       next();
     },
     multipartOnly,

@@ -10,6 +10,7 @@ import { paths } from "@/app/paths";
 import { useAcceptInvitation, useInvitationPreview } from "../api/invitation";
 import { AuthFrame } from "./auth-frame";
 import { isLinkProblem, LinkProblem } from "./link-problem";
+import { PasswordStrengthHint } from "./password-strength-hint";
 
 export function AcceptInvitationPage() {
   const { token = "" } = useParams();
@@ -61,7 +62,12 @@ export function AcceptInvitationPage() {
         </Field>
         <Field
           label="Password"
-          hint="At least 10 characters."
+          hint={
+            <PasswordStrengthHint
+              password={form.watch("password") ?? ""}
+              userInputs={[preview.data.email, form.watch("name") ?? "", preview.data.teamName]}
+            />
+          }
           error={form.formState.errors.password?.message}
         >
           <input

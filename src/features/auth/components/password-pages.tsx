@@ -8,6 +8,7 @@ import { Button } from "@/components/button";
 import { ErrorNotice, Notice } from "@/components/feedback";
 import { paths } from "@/app/paths";
 import { useCompleteReset, useRequestReset } from "../api/password-reset";
+import { PasswordStrengthHint } from "./password-strength-hint";
 import { AuthFrame } from "./auth-frame";
 import { friendlierRateLimit, isLinkProblem, LinkProblem } from "./link-problem";
 
@@ -90,7 +91,7 @@ export function ResetPasswordPage() {
         >
           <Field
             label="New password"
-            hint="At least 10 characters."
+            hint={<PasswordStrengthHint password={form.watch("password") ?? ""} />}
             error={form.formState.errors.password?.message}
           >
             <input

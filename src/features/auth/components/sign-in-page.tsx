@@ -10,11 +10,9 @@ import { useSignIn } from "../api/sign-in";
 import { useMe } from "../api/me";
 import { AuthFrame } from "./auth-frame";
 import { friendlierRateLimit } from "./link-problem";
+import { safeNext } from "../safe-next";
 
 /** Only same-app paths are followed after sign-in. */
-function safeNext(next: string | null): string {
-  return next && next.startsWith("/") && !next.startsWith("//") ? next : paths.sites;
-}
 
 export function SignInPage() {
   const [params] = useSearchParams();
