@@ -81,3 +81,29 @@ export {
 export { modelFirstArrival } from "./modelled-arrivals";
 
 export { fieldApi, type FieldApi } from "./worker-api";
+
+export {
+  interpretLine,
+  interpretationJson,
+  LINE_METHODS,
+  type LineInput,
+  type LineInterpretation,
+  type LineMethod,
+  type RefractorSection,
+  type StationDepth,
+} from "./line-interpretation";
+export {
+  assignedLayer,
+  checkAssignments,
+  suggestAssignments,
+  type LayerAssignment,
+} from "./refractor-assignment";
+export {
+  elevationProfile,
+  parseElevationCsv,
+  surfaceFromModels,
+  type ElevationPoint,
+  type ElevationProfile,
+  type ElevationCsvResult,
+} from "./station-elevations";
+export { reciprocalChecks, reciprocalTolerance, type ReciprocalCheck } from "./reciprocal-times";
