@@ -36,8 +36,8 @@ export function AppLayout() {
   if (!me) return null;
   return (
     <div className="min-h-screen">
-      <header className="border-b border-rule bg-card/80">
-        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-8 gap-y-2 px-6 py-3">
+      <header className="app-header border-b border-rule bg-card/80 print:hidden">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-8 gap-y-2 px-4 py-3 sm:px-6">
           <NavLink to={paths.home} aria-label="Spreadsight home">
             <Wordmark />
           </NavLink>
@@ -66,7 +66,7 @@ export function AppLayout() {
             </span>
             <button
               type="button"
-              className="rounded-md border border-rule px-2.5 py-1 text-xs font-medium text-ink hover:bg-paper-deep"
+              className="rounded-md border border-rule px-2.5 py-1 text-xs font-medium whitespace-nowrap text-ink hover:bg-paper-deep"
               onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate(paths.signIn) })}
             >
               Sign out
@@ -74,7 +74,7 @@ export function AppLayout() {
           </div>
         </div>
       </header>
-      <main className="mx-auto max-w-7xl px-6 py-8">
+      <main className="mx-auto max-w-7xl px-4 py-6 sm:px-6 sm:py-8">
         <ErrorBoundary title="This page failed to draw">
           <Outlet />
         </ErrorBoundary>

@@ -333,10 +333,11 @@ function FieldCheck({
         <Link to={siteLink} className="text-ink underline">
           {plan.siteName || "Site"}
         </Link>
-        {" / "}
+        {" › "}
         <Link to={paths.plan(plan.id)} className="text-ink underline">
           {plan.name}
         </Link>
+        {" › Field check"}
       </p>
       <PageHeader
         title="Field check"

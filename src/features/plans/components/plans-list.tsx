@@ -153,8 +153,9 @@ export function PlansList({
 
       {visible.length > 0 ? (
         <div className="overflow-x-auto rounded-lg border border-rule bg-card">
-          <table className="w-full text-left text-sm">
-            <thead className="border-b border-rule bg-paper-deep/60 text-xs tracking-wide text-ink-soft uppercase">
+          {/* Below 640 px each plan reads as a small card (no sideways scroll on a phone). */}
+          <table className="block w-full text-left text-sm sm:table">
+            <thead className="hidden border-b border-rule bg-paper-deep/60 text-xs tracking-wide text-ink-soft uppercase sm:table-header-group">
               <tr>
                 <th scope="col" className="px-4 py-2 font-semibold">
                   Name
@@ -176,16 +177,16 @@ export function PlansList({
                 </th>
               </tr>
             </thead>
-            <tbody>
+            <tbody className="block sm:table-row-group">
               {visible.map((plan) => {
                 const allowed = listPermissions(me, plan);
                 const archived = plan.status === "archived";
                 return (
                   <tr
                     key={plan.id}
-                    className={`border-b border-rule last:border-0 ${archived ? "text-ink-faint" : ""}`}
+                    className={`flex flex-wrap items-center gap-x-3 gap-y-1 border-b border-rule px-3 py-2.5 last:border-0 sm:table-row sm:p-0 ${archived ? "text-ink-faint" : ""}`}
                   >
-                    <td className="px-4 py-2.5">
+                    <td className="basis-full sm:px-4 sm:py-2.5">
                       {renamingId === plan.id ? (
                         <NameForm
                           label={`New name for ${plan.name}`}
@@ -221,16 +222,20 @@ export function PlansList({
                         </span>
                       )}
                     </td>
-                    <td className="px-4 py-2.5">{plan.author.name}</td>
-                    <td className="px-4 py-2.5">{PLAN_STATUS_LABELS[plan.status]}</td>
-                    <td className="px-4 py-2.5">
+                    <td className="text-xs max-sm:before:content-['by_'] sm:px-4 sm:py-2.5 sm:text-sm">
+                      {plan.author.name}
+                    </td>
+                    <td className="text-xs sm:px-4 sm:py-2.5 sm:text-sm">
+                      {PLAN_STATUS_LABELS[plan.status]}
+                    </td>
+                    <td className="sm:px-4 sm:py-2.5">
                       <VerdictBadge verdict={plan.worstVerdict} />
                     </td>
-                    <td className="px-4 py-2.5 font-mono text-xs whitespace-nowrap text-ink-soft">
+                    <td className="font-mono text-xs whitespace-nowrap text-ink-soft sm:px-4 sm:py-2.5">
                       {dateTime.format(new Date(plan.updatedAt))} · rev {plan.revision}
                     </td>
-                    <td className="px-4 py-2.5">
-                      <div className="flex justify-end gap-1">
+                    <td className="basis-full sm:px-4 sm:py-2.5">
+                      <div className="flex flex-wrap gap-1 sm:justify-end">
                         {allowed.duplicate && !archived && !siteArchived ? (
                           <Button
                             variant="quiet"

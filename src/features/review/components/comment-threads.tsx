@@ -91,7 +91,7 @@ export function CommentThreads({ planId, anchorFilter, compact = false }: Commen
 
   return (
     <div className="flex flex-col gap-4">
-      <div className="flex flex-wrap items-center gap-2">
+      <div className="flex flex-wrap items-center gap-2 print:hidden">
         <span className="text-xs font-medium text-ink-soft" aria-hidden>
           Show:
         </span>
@@ -158,7 +158,7 @@ export function CommentThreads({ planId, anchorFilter, compact = false }: Commen
       )}
 
       {canComment ? (
-        <div className="rounded-md border border-rule bg-paper/60 p-3">
+        <div className="rounded-md border border-rule bg-paper/60 p-3 print:hidden">
           <CommentForm
             label={
               anchorFilter

@@ -61,8 +61,12 @@ export function ResolvabilitySummaryView({
             <p className="text-sm text-ink-soft">One layer only: no refractor to resolve.</p>
           ) : (
             <div className="overflow-x-auto">
-              <table className="w-full text-sm" aria-label={`Resolvability of ${model.name}`}>
-                <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
+              {/* Below 640 px each refractor reads as a small labelled block (no sideways scroll). */}
+              <table
+                className="block w-full text-sm sm:table"
+                aria-label={`Resolvability of ${model.name}`}
+              >
+                <thead className="hidden text-left text-xs tracking-wide text-ink-soft uppercase sm:table-header-group">
                   <tr className="border-b border-rule">
                     <th scope="col" className="py-1.5 pr-3 font-semibold">
                       Refractor
@@ -81,12 +85,15 @@ export function ResolvabilitySummaryView({
                     </th>
                   </tr>
                 </thead>
-                <tbody className="font-mono text-xs">
+                <tbody className="block font-mono text-xs sm:table-row-group">
                   {model.refractors.map((r) => (
-                    <tr key={r.layer} className="border-b border-rule/60">
+                    <tr
+                      key={r.layer}
+                      className="grid grid-cols-2 items-center gap-x-3 gap-y-1 border-b border-rule/60 py-2 sm:table-row sm:py-0"
+                    >
                       <th
                         scope="row"
-                        className="py-1.5 pr-3 text-left font-sans text-sm font-medium"
+                        className="py-1.5 pr-3 text-left font-sans text-sm font-medium max-sm:py-0"
                       >
                         Top of layer {r.layer}
                         <span className="block text-xs font-normal text-ink-soft">
@@ -98,19 +105,19 @@ export function ResolvabilitySummaryView({
                           )}
                         </span>
                       </th>
-                      <td className="py-1.5 pr-3">
+                      <td className="py-1.5 pr-3 max-sm:py-0">
                         <VerdictTag verdict={r.status} />
                       </td>
-                      <td className="py-1.5 pr-3 text-right">
+                      <td className="py-1.5 pr-3 text-right max-sm:py-0 max-sm:text-left max-sm:before:content-['true_depth_']">
                         {formatQuantity("length", r.trueDepth, units, 2)}
                       </td>
-                      <td className="py-1.5 pr-3 text-right">
+                      <td className="py-1.5 pr-3 text-right max-sm:py-0 max-sm:text-left max-sm:before:content-['interpreted_']">
                         {r.interpretedDepth === null
                           ? "not seen"
                           : formatQuantity("length", r.interpretedDepth, units, 2)}
                       </td>
                       <td
-                        className={`py-1.5 text-right ${r.exceedsTolerance ? "font-semibold text-brick" : ""}`}
+                        className={`py-1.5 text-right max-sm:py-0 max-sm:text-left max-sm:before:content-['depth_error_'] ${r.exceedsTolerance ? "font-semibold text-brick" : ""}`}
                       >
                         {r.error === null
                           ? "—"

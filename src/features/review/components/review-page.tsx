@@ -137,7 +137,7 @@ function Review({ plan, units }: { plan: PlanDetail; units: UnitSystem }) {
         </div>
         <Link
           to={paths.plan(plan.id)}
-          className="rounded-md border border-ink-soft bg-card px-3.5 py-1.5 text-sm font-medium text-ink hover:bg-paper-deep"
+          className="rounded-md border border-ink-soft bg-card px-3.5 py-1.5 text-sm font-medium text-ink hover:bg-paper-deep print:hidden"
         >
           {plan.permissions.edit ? "Edit in the designer" : "Open in the designer"}
         </Link>

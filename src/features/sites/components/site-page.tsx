@@ -14,7 +14,8 @@ export function SitePage({ children }: { children?: React.ReactNode }) {
       <p className="mb-2 text-sm">
         <Link to={paths.sites} className="text-ink underline">
           Sites
-        </Link>
+        </Link>{" "}
+        › {site.data.name}
       </p>
       <PageHeader
         title={site.data.name}

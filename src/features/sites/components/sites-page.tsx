@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { Link } from "react-router-dom";
+import { Link, useNavigate } from "react-router-dom";
 import { can } from "@/contracts/common";
 import type { SiteSummary } from "@/contracts/sites";
 import { useMe } from "@/features/auth/api/me";
@@ -20,6 +20,7 @@ export function SitesPage() {
   const createSite = useCreateSite();
   const updateSite = useUpdateSite();
   const mayEdit = me ? can.editSites(me.role) : false;
+  const navigate = useNavigate();
 
   return (
     <div>
@@ -44,12 +45,13 @@ export function SitesPage() {
               createSite.reset();
             }}
             onSubmit={(values) =>
-              createSite.mutate(values, { onSuccess: () => setCreating(false) })
+              // A new site has no plans yet: go straight to its plans to start one.
+              createSite.mutate(values, { onSuccess: (site) => navigate(paths.site(site.id)) })
             }
           />
         </Card>
       ) : null}
-      <div role="radiogroup" aria-label="Which sites" className="mb-4 flex gap-1 text-sm">
+      <div role="radiogroup" aria-label="Which sites" className="mb-4 flex flex-wrap gap-1 text-sm">
         {(
           [
             ["false", "Active"],
@@ -136,7 +138,7 @@ function SiteCard({
     <li>
       <Card className={site.archived ? "opacity-75" : ""}>
         <div className="flex items-start justify-between gap-3">
-          <h2 className="text-lg font-semibold text-ink-deep">
+          <h2 className="min-w-0 text-lg font-semibold break-words text-ink-deep">
             <Link to={paths.site(site.id)} className="hover:underline">
               {site.name}
             </Link>
@@ -150,12 +152,12 @@ function SiteCard({
         <p className="mt-2 text-sm whitespace-pre-line text-ink-soft">
           {site.description || "No description yet."}
         </p>
-        <p className="mt-3 font-mono text-xs text-ink-faint">
+        <p className="mt-3 text-xs text-ink-faint">
           {site.planCount} plan{site.planCount === 1 ? "" : "s"} · created by {site.createdBy} ·{" "}
           {dateFormat.format(new Date(site.createdAt))}
         </p>
         {mayEdit ? (
-          <div className="mt-3 flex gap-2">
+          <div className="mt-3 flex flex-wrap gap-2">
             <Button variant="secondary" onClick={onEdit} aria-label={`Rename ${site.name}`}>
               Rename
             </Button>

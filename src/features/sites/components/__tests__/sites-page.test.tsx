@@ -47,16 +47,20 @@ describe("SitesPage", () => {
         return { status: 201, body: created };
       },
     });
-    renderWithApp(<SitesPage />);
+    const { router } = renderWithApp(<SitesPage />, {
+      path: "/sites",
+      route: "/sites",
+      extraRoutes: [{ path: "/sites/:siteId", element: <p>the new site's plans</p> }],
+    });
     await screen.findByText("No sites yet");
     await userEvent.click(screen.getByRole("button", { name: "New site" }));
     await userEvent.click(screen.getByRole("button", { name: "Create site" }));
     expect(await screen.findByText("name is required")).toBeInTheDocument();
     await userEvent.type(screen.getByLabelText("Site name"), "Mill Brook landfill cell");
     await userEvent.click(screen.getByRole("button", { name: "Create site" }));
-    expect(
-      await screen.findByRole("link", { name: "Mill Brook landfill cell" }),
-    ).toBeInTheDocument();
+    // After "Create site" the user lands on the new site's plans (issue 14, item 11).
+    expect(await screen.findByText("the new site's plans")).toBeInTheDocument();
+    expect(router.state.location.pathname).toBe("/sites/22222222-2222-4222-8222-222222222222");
     await waitFor(() => expect(calls.filter((c) => c.method === "POST")).toHaveLength(1));
     expect(calls.find((c) => c.method === "POST")?.body).toEqual({
       name: "Mill Brook landfill cell",
