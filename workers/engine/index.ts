@@ -32,7 +32,6 @@ export { firstArrivalRayPath, type RayPath } from "./ray-paths";
 export {
   runSweep,
   createSweepRunner,
-  followShots,
   sweepSpecSchema,
   MAX_SWEEP_CELLS,
   type SweepSpec,
@@ -40,6 +39,7 @@ export {
   type SweepHooks,
   type SweepRunner,
 } from "./sweep";
+export { followShots } from "./follow-shots";
 export {
   STATUSES,
   STATUS_CODE,
@@ -68,11 +68,7 @@ export {
 } from "./materials";
 export { polylineAt } from "./section-schema";
 export { sectionFromLayered } from "./section-convert";
-export {
-  analyzeSection,
-  isSectionAnalysis,
-  runSectionSweep,
-  sectionShotField,
-} from "./section-analysis";
+export { analyzeSection, isSectionAnalysis, sectionShotField } from "./section-analysis";
+export { runSectionSweep, MAX_SECTION_SWEEP_CELLS } from "./section-sweep";
 export type * from "./section-types";
 export { modellerApi, type ModellerApi } from "./worker-api";

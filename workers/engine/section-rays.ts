@@ -1,0 +1,119 @@
+/**
+ * Reading the time field: the first-arrival time at any point (a geophone) and the
+ * first-arrival ray from a point back to the source, by descending the time gradient
+ * (Podvin & Lecomte 1991 §5; the usual way to get rays from a time field).
+ */
+import { seesSourceDirectly, SOURCE_RADIUS_CELLS, type GridSource } from "./eikonal-source";
+import { cellOf, type SectionGrid } from "./section-grid";
+
+/**
+ * Time at a point (s): the analytic time when the point sees the source directly within
+ * the source neighbourhood, else bilinear interpolation in the cell holding it (corners
+ * without a time are replaced by the nearest finite corner plus the straight path at the
+ * cell's slowness).
+ */
+export function timeAt(
+  grid: SectionGrid,
+  T: Float64Array,
+  source: GridSource,
+  x: number,
+  z: number,
+): number {
+  const d = Math.hypot(x - source.x, z - source.z);
+  if (d <= SOURCE_RADIUS_CELLS * grid.h && seesSourceDirectly(grid, source, x, z)) {
+    return d * source.slowness;
+  }
+  const { nx, h, x0, zTop } = grid;
+  const { i, j } = cellOf(grid, x, z);
+  const fx = Math.min(1, Math.max(0, (x - (x0 + i * h)) / h));
+  const fz = Math.min(1, Math.max(0, (zTop - j * h - z) / h));
+  const t00 = T[j * nx + i];
+  const t10 = T[j * nx + i + 1];
+  const t01 = T[(j + 1) * nx + i];
+  const t11 = T[(j + 1) * nx + i + 1];
+  if (Number.isFinite(t00 + t10 + t01 + t11)) {
+    return (t00 * (1 - fx) + t10 * fx) * (1 - fz) + (t01 * (1 - fx) + t11 * fx) * fz;
+  }
+  const s = grid.slowness[j * (nx - 1) + i];
+  let best = Infinity;
+  const corners: [number, number, number][] = [
+    [t00, 0, 0],
+    [t10, 1, 0],
+    [t01, 0, 1],
+    [t11, 1, 1],
+  ];
+  for (const [t, a, b] of corners) {
+    if (!Number.isFinite(t)) continue;
+    const cand = t + Math.hypot((fx - a) * h, (fz - b) * h) * (Number.isFinite(s) ? s : 0);
+    if (cand < best) best = cand;
+  }
+  return best;
+}
+
+/** Gradient of the time field at a point (s/m per axis: ∂T/∂x, ∂T/∂z with z up). */
+function gradientAt(
+  grid: SectionGrid,
+  T: Float64Array,
+  x: number,
+  z: number,
+): [number, number] | null {
+  const { nx, nz, h, x0, zTop } = grid;
+  const cell = cellOf(grid, x, z);
+  const i = cell.i;
+  let j = cell.j;
+  for (let attempt = 0; attempt < 2; attempt++) {
+    const t00 = T[j * nx + i];
+    const t10 = T[j * nx + i + 1];
+    const t01 = T[(j + 1) * nx + i];
+    const t11 = T[(j + 1) * nx + i + 1];
+    if (Number.isFinite(t00 + t10 + t01 + t11)) {
+      const fx = Math.min(1, Math.max(0, (x - (x0 + i * h)) / h));
+      const fz = Math.min(1, Math.max(0, (zTop - j * h - z) / h));
+      const gx = ((t10 - t00) * (1 - fz) + (t11 - t01) * fz) / h;
+      // row index grows downwards: ∂T/∂z(up) = −∂T/∂row / h
+      const gz = -((t01 - t00) * (1 - fx) + (t11 - t10) * fx) / h;
+      return [gx, gz];
+    }
+    if (j + 2 < nz) j += 1;
+    else break;
+  }
+  return null;
+}
+
+/**
+ * The first-arrival ray from (x, z) back to the source as interleaved x, elevation pairs
+ * (m), ordered from the source to the point. Steps of ¾ cell down the gradient until two
+ * cells from the source, then straight to the source.
+ */
+export function traceRay(
+  grid: SectionGrid,
+  T: Float64Array,
+  source: GridSource,
+  x: number,
+  z: number,
+): Float64Array {
+  const pts: number[] = [x, z];
+  const step = grid.h * 0.75;
+  const near = 2 * grid.h;
+  const maxSteps = 8 * (grid.nx + grid.nz);
+  let px = x;
+  let pz = z;
+  for (let k = 0; k < maxSteps; k++) {
+    const d = Math.hypot(px - source.x, pz - source.z);
+    if (d <= near) break;
+    const g = gradientAt(grid, T, px, pz);
+    if (!g) break;
+    const norm = Math.hypot(g[0], g[1]);
+    if (!(norm > 0)) break;
+    px -= (step * g[0]) / norm;
+    pz -= (step * g[1]) / norm;
+    pts.push(px, pz);
+  }
+  pts.push(source.x, source.z);
+  const out = new Float64Array(pts.length);
+  for (let k = 0; k < pts.length; k += 2) {
+    out[k] = pts[pts.length - 2 - k];
+    out[k + 1] = pts[pts.length - 1 - k];
+  }
+  return out;
+}
