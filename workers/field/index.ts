@@ -107,3 +107,13 @@ export {
   type ElevationCsvResult,
 } from "./station-elevations";
 export { reciprocalChecks, reciprocalTolerance, type ReciprocalCheck } from "./reciprocal-times";
+export {
+  interpretPlanPicks,
+  layeredCandidates,
+  candidateDepth,
+  modelArrivalLayer,
+  type PlanForInterpretation,
+  type PlanInterpretation,
+  type PlanInterpretationOptions,
+  type CandidateMisfit,
+} from "./plan-interpretation";
