@@ -16,6 +16,9 @@ import type {
   Plan,
   PlanAnalysis,
   RayPath,
+  SectionShotField,
+  SectionSweepResult,
+  SectionSweepSpec,
   ShotArrivals,
   Spread,
   SweepResult,
@@ -73,6 +76,17 @@ export interface Modeller {
   sweep(plan: Plan, spec: SweepSpec, control?: SweepControl): Promise<SweepResult>;
   /** Cancel the running sweep, if any. */
   cancelSweep(): void;
+  /** Time field and first-arrival rays of one shot over a section model (the Section chart). */
+  sectionField(plan: Plan, modelIndex: number, shot: number): Promise<SectionShotField>;
+  /**
+   * Section design sweep in its own worker; a new one supersedes (ends) a running one, and
+   * an abort signal cancels it.
+   */
+  sectionSweep(
+    plan: Plan,
+    spec: SectionSweepSpec,
+    control?: SweepControl,
+  ): Promise<SectionSweepResult>;
   /** Stop the workers; pending requests reject as cancelled. */
   dispose(): void;
 }
@@ -105,9 +119,9 @@ const nextTask = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
  * The engine itself, for running on this thread where no Worker exists (tests, old browsers):
  * loaded on first use, so the engine is in the application's chunks only as a fallback.
  */
-type Engine = typeof import("@engine");
+type Engine = typeof import("./engine-here");
 let engine: Promise<Engine> | null = null;
-const loadEngine = (): Promise<Engine> => (engine ??= import("@engine"));
+const loadEngine = (): Promise<Engine> => (engine ??= import("./engine-here"));
 
 /** Create a modeller facade. */
 export function createModeller(options: ModellerOptions = {}): Modeller {
@@ -203,9 +217,15 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
       let run: Promise<SweepResult>;
       if (factory) {
         sweeper ??= spawn();
+        // The worker reports after every row; pass on at most one report per 40 ms (and the
+        // last), so a fast grid does not re-render the page hundreds of times.
+        let reported = -Infinity;
         const progress = control.onProgress
           ? Comlink.proxy((f: number) => {
-              if (!stoppedBy) control.onProgress?.(f);
+              const now = performance.now();
+              if (stoppedBy || (f < 1 && now - reported < 40)) return;
+              reported = now;
+              control.onProgress?.(f);
             })
           : undefined;
         run = sweeper.api.runSweep(plan, spec, progress) as Promise<SweepResult>;
@@ -225,7 +245,58 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
     });
   }
 
+  let sectionSweeper: { worker: WorkerLike; api: Comlink.Remote<ModellerWorkerApi> } | null = null;
+  let stopSectionSweep: ((reason: CancelReason) => void) | null = null;
+  function sectionSweep(
+    plan: Plan,
+    spec: SectionSweepSpec,
+    control: SweepControl = {},
+  ): Promise<SectionSweepResult> {
+    stopSectionSweep?.("superseded");
+    return new Promise<SectionSweepResult>((resolve, reject) => {
+      let stopped = false;
+      const stop = (reason: CancelReason) => {
+        if (stopped) return;
+        stopped = true;
+        // a worker cannot be interrupted: end it, a fresh one comes next time
+        sectionSweeper?.worker.terminate();
+        sectionSweeper = null;
+        reject(new ModellerCancelledError(reason));
+      };
+      stopSectionSweep = stop;
+      if (control.signal?.aborted) return stop("cancelled");
+      control.signal?.addEventListener("abort", () => stop("cancelled"), { once: true });
+      const progress = (f: number) => {
+        if (!stopped) control.onProgress?.(f);
+      };
+      const run = factory
+        ? ((sectionSweeper ??= spawn()).api.runSectionSweep(
+            plan,
+            spec,
+            control.onProgress ? Comlink.proxy(progress) : undefined,
+          ) as Promise<SectionSweepResult>)
+        : local((e) => e.runSectionSweep(plan, spec, { onProgress: progress }));
+      run.then(
+        (result) => {
+          if (stopSectionSweep === stop) stopSectionSweep = null;
+          if (!stopped) resolve(result);
+        },
+        (error: unknown) => {
+          if (stopSectionSweep === stop) stopSectionSweep = null;
+          if (!stopped) reject(error);
+        },
+      );
+    });
+  }
+
   return {
+    sectionField: (plan, modelIndex, shot) =>
+      latestOnly("sectionField", () =>
+        factory
+          ? (quickApi().sectionShotField(plan, modelIndex, shot) as Promise<SectionShotField>)
+          : local((e) => e.sectionShotField(plan, modelIndex, shot)),
+      ),
+    sectionSweep,
     analyze: (plan) =>
       latestOnly("analyze", () =>
         factory
@@ -278,6 +349,9 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
       quick = null;
       sweeper?.worker.terminate();
       sweeper = null;
+      stopSectionSweep?.("cancelled");
+      sectionSweeper?.worker.terminate();
+      sectionSweeper = null;
     },
   };
 }

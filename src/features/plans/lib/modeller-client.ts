@@ -11,7 +11,7 @@ import { createModeller, getModeller, isModellerCancelled, type Modeller } from 
 
 export type ModellerClient = Pick<
   Modeller,
-  "analyze" | "arrivals" | "curves" | "rayPath" | "sweep"
+  "analyze" | "arrivals" | "curves" | "rayPath" | "sweep" | "sectionField" | "sectionSweep"
 >;
 
 let override: ModellerClient | null = null;

@@ -28,14 +28,35 @@ export interface LayerRow {
   thicknessRange: [string, string];
 }
 
+/**
+ * A section model as the designer edits it: SI numbers (m, m/s) straight from the section
+ * editor's tables and chart, which parse what is typed themselves (see section-editor.tsx).
+ */
+export interface SectionDraft {
+  surface: [number, number][];
+  layers: Array<{
+    name?: string;
+    material?: string;
+    velocity: number;
+    velocityAt?: [number, number][];
+    base?: [number, number][];
+  }>;
+  cellSize?: number;
+}
+
 export interface ModelForm {
   name: string;
+  /** Layered models' rows; empty for a section model. */
   layers: LayerRow[];
+  /** Present for a section model (kind "section"). */
+  section?: SectionDraft;
 }
 
 export interface ShotRow {
   position: string;
   label: string;
+  /** Depth of a buried charge below the surface (section models), display units; "" = 0. */
+  depth?: string;
 }
 
 export interface PlanForm {
@@ -74,19 +95,33 @@ const pair = (
 /** Stored plan (SI) → form values in the user's units. */
 export function planToForm(plan: Plan, units: UnitSystem): PlanForm {
   return {
-    models: plan.models.map((model) => ({
-      name: model.name,
-      layers: model.layers.map((layer, i, all) => ({
-        name: layer.name ?? "",
-        material: layer.material ?? "",
-        velocity: formatInput("velocity", layer.velocity, units),
-        thickness: i === all.length - 1 ? "" : formatInput("length", layer.thickness, units),
-        dip:
-          layer.dip === undefined || layer.dip === 0 ? "" : formatInput("angle", layer.dip, units),
-        velocityRange: pair("velocity", layer.velocityRange, units),
-        thicknessRange: pair("length", layer.thicknessRange, units),
-      })),
-    })),
+    models: plan.models.map((model) =>
+      model.kind === "section"
+        ? {
+            name: model.name,
+            layers: [],
+            section: structuredClone({
+              surface: model.surface,
+              layers: model.layers,
+              ...(model.cellSize !== undefined ? { cellSize: model.cellSize } : {}),
+            }) as SectionDraft,
+          }
+        : {
+            name: model.name,
+            layers: model.layers.map((layer, i, all) => ({
+              name: layer.name ?? "",
+              material: layer.material ?? "",
+              velocity: formatInput("velocity", layer.velocity, units),
+              thickness: i === all.length - 1 ? "" : formatInput("length", layer.thickness, units),
+              dip:
+                layer.dip === undefined || layer.dip === 0
+                  ? ""
+                  : formatInput("angle", layer.dip, units),
+              velocityRange: pair("velocity", layer.velocityRange, units),
+              thicknessRange: pair("length", layer.thicknessRange, units),
+            })),
+          },
+    ),
     spread: {
       spacing: formatInput("length", plan.spread.spacing, units),
       channels: String(plan.spread.channels),
@@ -94,6 +129,7 @@ export function planToForm(plan: Plan, units: UnitSystem): PlanForm {
       shots: plan.spread.shots.map((shot) => ({
         position: formatInput("length", shot.position, units),
         label: shot.label ?? "",
+        ...(shot.depth ? { depth: formatInput("length", shot.depth, units) } : {}),
       })),
     },
     criteria: {
@@ -172,31 +208,36 @@ export function formToPlanInput(
 ): unknown {
   const parseInput: Parse = (quantity, typed, system) =>
     exact.get(exactKey(quantity, typed ?? "")) ?? parseTyped(quantity, typed, system);
+  const sections = form.models.some((m) => m.section);
   return {
-    format: "spreadsight-plan/1",
+    format: sections ? "spreadsight-plan/2" : "spreadsight-plan/1",
     name,
-    models: form.models.map((model) => ({
-      name: model.name,
-      layers: model.layers.map((row, i) => {
-        const last = i === model.layers.length - 1;
-        const layer: Record<string, unknown> = {
-          velocity: required(parseInput("velocity", row.velocity, units)),
-        };
-        if (text(row.name)) layer.name = text(row.name);
-        if (text(row.material)) layer.material = text(row.material);
-        if (!last) {
-          const thickness = parseInput("length", row.thickness, units);
-          if (thickness !== undefined) layer.thickness = thickness;
-          const dip = parseInput("angle", row.dip, units);
-          if (dip !== undefined) layer.dip = dip;
-          const thicknessRange = rangeOf(parseInput, "length", row.thicknessRange, units);
-          if (thicknessRange) layer.thicknessRange = thicknessRange;
-        }
-        const velocityRange = rangeOf(parseInput, "velocity", row.velocityRange, units);
-        if (velocityRange) layer.velocityRange = velocityRange;
-        return layer;
-      }),
-    })),
+    models: form.models.map((model) =>
+      model.section
+        ? { kind: "section", name: model.name, ...structuredClone(model.section) }
+        : {
+            name: model.name,
+            layers: model.layers.map((row, i) => {
+              const last = i === model.layers.length - 1;
+              const layer: Record<string, unknown> = {
+                velocity: required(parseInput("velocity", row.velocity, units)),
+              };
+              if (text(row.name)) layer.name = text(row.name);
+              if (text(row.material)) layer.material = text(row.material);
+              if (!last) {
+                const thickness = parseInput("length", row.thickness, units);
+                if (thickness !== undefined) layer.thickness = thickness;
+                const dip = parseInput("angle", row.dip, units);
+                if (dip !== undefined) layer.dip = dip;
+                const thicknessRange = rangeOf(parseInput, "length", row.thicknessRange, units);
+                if (thicknessRange) layer.thicknessRange = thicknessRange;
+              }
+              const velocityRange = rangeOf(parseInput, "velocity", row.velocityRange, units);
+              if (velocityRange) layer.velocityRange = velocityRange;
+              return layer;
+            }),
+          },
+    ),
     spread: {
       spacing: required(parseInput("length", form.spread.spacing, units)),
       channels: required(parseInput("count", form.spread.channels, units)),
@@ -206,6 +247,8 @@ export function formToPlanInput(
           position: required(parseInput("length", shot.position, units)),
         };
         if (text(shot.label)) out.label = text(shot.label);
+        const depth = sections ? parseInput("length", shot.depth ?? "", units) : undefined;
+        if (depth !== undefined && depth !== 0) out.depth = depth;
         return out;
       }),
     },
