@@ -197,7 +197,7 @@ describe("team review in the browser", () => {
     await screenshot(page, "review-lead-history-diff");
 
     await page.getByRole("tab", { name: "Activity" }).click();
-    await page.getByRole("list", { name: "Activity" }).getByText("asked for changes").waitFor();
+    await page.getByRole("list", { name: "Activity" }).getByText("returned the plan to the lead with notes").waitFor();
     expect(await page.getByRole("link", { name: "Download CSV" }).getAttribute("href")).toBe(
       `/api/plans/${planId}/activity.csv`,
     );
