@@ -11,7 +11,12 @@ import { layoutExtent, type Branch, type Layout, type Side } from "./branches";
 import { checkedEarth, interfaceDepth, type Earth } from "./geometry";
 import { linesFor, prepareEarth, type PreparedEarth } from "./head-waves";
 import { createLineSet, type LineSet } from "./lines";
-import { crossoverMethod, interceptTimeMethod, type ObservedLine } from "./interpretation";
+import {
+  crossoverMethod,
+  interceptTimeMethod,
+  type DipRecovery,
+  type ObservedLine,
+} from "./interpretation";
 import { recoverDipLayered } from "./dip-recovery";
 import { degrees, finiteOrNull } from "./numbers";
 import type { Criteria, GroundModel, Plan } from "./plan-schema";
@@ -33,7 +38,7 @@ import {
 import {
   lastCrossover,
   maxSpacingFor,
-  minimumThickness,
+  minimumThicknesses,
   OTHER_EVIDENCE,
   spreadLengthFor,
 } from "./design";
@@ -267,16 +272,26 @@ interface BranchState {
   judged: Uint8Array;
 }
 
+/**
+ * Lines, first-arrival pieces, counts and codes of one branch. Flat models share one line set
+ * and one set of pieces (`flatPieces`, filled on first use) between every branch: in offset
+ * they do not depend on the shot.
+ */
 function evaluateBranch(
   prep: PreparedEarth,
   layout: Layout,
   shot: number,
   branch: Branch,
   minGeophones: number,
+  flatPieces: Pieces | null = null,
 ): BranchState {
   const n = prep.earth.layerCount;
-  const lines = linesFor(prep, branch.shot, branch.sign, createLineSet(n));
-  const pieces = firstArrivalPieces(lines, n, createPieces(n));
+  const lines = prep.flat ?? linesFor(prep, branch.shot, branch.sign, createLineSet(n));
+  let pieces: Pieces;
+  if (prep.flat && flatPieces) {
+    if (flatPieces.count === 0) firstArrivalPieces(lines, n, flatPieces);
+    pieces = flatPieces;
+  } else pieces = firstArrivalPieces(lines, n, createPieces(n));
   const counts = countOnSegments(pieces, layout, branch, new Int32Array(n));
   const codes = new Uint8Array(n);
   const judged = new Uint8Array(n);
@@ -443,7 +458,7 @@ function dipChecks(earth: Earth, states: BranchState[], v0: number): DipCheck[] 
       continue;
     }
     const [a, b] = best;
-    const recovered = upper
+    const recovered: DipRecovery | null = upper
       ? recoverDipLayered(upper.velocities, upper.dips, a.lines.slowness[m], b.lines.slowness[m])
       : null;
     const xa = a.branch.shot;
@@ -579,11 +594,14 @@ function analyzeModel(
   const n = earth.layerCount;
   const min = criteria.minGeophones;
   const judged = judgedBranches(layout);
-  const states = judged.map(({ shot, branch }) => evaluateBranch(prep, layout, shot, branch, min));
+  const shared = prep.flat ? createPieces(n) : null;
+  const states = judged.map(({ shot, branch }) =>
+    evaluateBranch(prep, layout, shot, branch, min, shared),
+  );
   const primaryGeom = primaryBranch(layout);
   const primary =
     states.find((s) => s.shot === 0 && s.branch.side === primaryGeom.side) ??
-    evaluateBranch(prep, layout, 0, primaryGeom, min);
+    evaluateBranch(prep, layout, 0, primaryGeom, min, shared);
   const worst = new Uint8Array(n);
   const anyJudged = new Uint8Array(n);
   for (const s of states) accumulateWorst(s.codes, s.judged, n, worst, anyJudged);
@@ -598,7 +616,10 @@ function analyzeModel(
     status: statusFromCode(worstCode(0)),
     branches: states.map((s) => branchVerdict(layout, s, 0)),
   };
-  const withDesign = options.minimumThickness !== false;
+  const thicknesses =
+    options.minimumThickness !== false
+      ? minimumThicknesses(prep, layout, min, extent, judged)
+      : null;
   const refractors: RefractorAnalysis[] = [];
   for (let m = 1; m < n; m++) {
     const pv = primary.lines;
@@ -616,7 +637,7 @@ function analyzeModel(
       geophones: primary.counts[m],
       status: statusFromCode(worstCode(m)),
       blindEverywhere: prep.rule[m] === 1 && states.every((s) => s.codes[m] === STATUS_CODE.blind),
-      minimumThickness: withDesign ? minimumThickness(prep, layout, min, m, extent, judged) : null,
+      minimumThickness: thicknesses ? thicknesses[m] : null,
       branches: states.map((s) => branchVerdict(layout, s, m)),
     });
   }

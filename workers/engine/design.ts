@@ -66,6 +66,8 @@ function thicknessBeyond(deeper: DeeperLines, h0: number, x: number): number {
 
 const footA = new Float64Array(3);
 const footB = new Float64Array(3);
+const at0 = new Float64Array(2);
+const at1 = new Float64Array(2);
 
 /**
  * Intercept time (s) and unclamped critical distance (m) of the dipping head wave along
@@ -108,8 +110,6 @@ function deeperLines(
   const v = earth.velocity;
   const pm = lines.slowness[m];
   const rays = prep.flat ? null : branch.sign === 1 ? prep.forwardRays : prep.reverseRays;
-  const at0 = new Float64Array(2);
-  const at1 = new Float64Array(2);
   out.count = 0;
   for (let j = m + 1; j < n; j++) {
     if (lines.exists[j] !== 1) continue;
@@ -213,6 +213,53 @@ export function minimumThickness(
   extent: { from: number; to: number },
   branches: readonly JudgedBranch[] = judgedBranches(layout),
 ): number | null {
+  return thicknessOf(prep, layout, minGeophones, m, extent, branches, createScratch(prep));
+}
+
+/**
+ * minimumThickness (m) of every layer of the model, index = 0-based layer (null for layer 0,
+ * the half-space and wherever minimumThickness is null), sharing buffers between layers.
+ */
+export function minimumThicknesses(
+  prep: PreparedEarth,
+  layout: Layout,
+  minGeophones: number,
+  extent: { from: number; to: number },
+  branches: readonly JudgedBranch[] = judgedBranches(layout),
+): (number | null)[] {
+  const scratch = createScratch(prep);
+  const out: (number | null)[] = [];
+  for (let m = 0; m < prep.earth.layerCount; m++) {
+    out.push(thicknessOf(prep, layout, minGeophones, m, extent, branches, scratch));
+  }
+  return out;
+}
+
+interface Scratch {
+  readonly lines: LineSet;
+  readonly shallow: Pieces;
+  readonly deeper: DeeperLines;
+}
+
+function createScratch(prep: PreparedEarth): Scratch {
+  const n = prep.earth.layerCount;
+  return {
+    // flat models: linesFor returns the shared set and never writes into the scratch
+    lines: prep.flat ?? createLineSet(n),
+    shallow: createPieces(n),
+    deeper: createDeeperLines(n),
+  };
+}
+
+function thicknessOf(
+  prep: PreparedEarth,
+  layout: Layout,
+  minGeophones: number,
+  m: number,
+  extent: { from: number; to: number },
+  branches: readonly JudgedBranch[],
+  { lines: scratch, shallow, deeper }: Scratch,
+): number | null {
   const { earth } = prep;
   const n = earth.layerCount;
   if (m < 1 || m >= n - 1 || prep.rule[m] !== 1) return null;
@@ -221,9 +268,6 @@ export function minimumThickness(
   const ds = earth.slope[m] - earth.slope[m + 1];
   const geometric = Math.max(extent.from * ds, extent.to * ds, 0);
   const thicker = prep.flat ? null : withThickness(earth, m, h0 + Math.max(1, h0));
-  const scratch = createLineSet(n);
-  const shallow = createPieces(n);
-  const deeper = createDeeperLines(n);
   let shallowOf: LineSet | null = null;
   let worstBad = -Infinity;
   let bestResolve = Infinity;
