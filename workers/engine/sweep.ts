@@ -10,6 +10,7 @@
  */
 import { z } from "zod";
 import { layoutExtent, type Layout } from "./branches";
+import { followShots } from "./follow-shots";
 import {
   earthFromModel,
   findInterfaceProblem,
@@ -121,20 +122,8 @@ function issueText(error: z.ZodError): string {
   return error.issues.map((i) => `${i.path.join(".") || "spec"}: ${i.message}`).join("; ");
 }
 
-/** Shot positions for a new spread, following the rule of SweepSpec.shotLayout. */
-export function followShots(base: Layout, spacing: number, channels: number): Float64Array {
-  const x0 = base.firstGeophone;
-  const end = x0 + (base.channels - 1) * base.spacing;
-  const newEnd = x0 + (channels - 1) * spacing;
-  const out = new Float64Array(base.shots.length);
-  for (let s = 0; s < base.shots.length; s++) {
-    const x = base.shots[s];
-    if (x <= x0) out[s] = x;
-    else if (x >= end) out[s] = newEnd + (x - end);
-    else out[s] = x0 + ((x - x0) / (end - x0)) * (newEnd - x0);
-  }
-  return out;
-}
+/** Shot positions for a new spread, following the rule of SweepSpec.shotLayout (follow-shots.ts). */
+export { followShots };
 
 /** A sweep that can be advanced a few rows at a time (for cooperative cancellation). */
 export interface SweepRunner {
