@@ -98,7 +98,7 @@ export function ImportPlanButton({
           className="rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick"
         >
           <p className="font-semibold">The plan was not imported</p>
-          <ul className="mt-1 list-disc pl-5 font-mono text-xs">
+          <ul className="mt-1 list-disc pl-5 text-xs">
             {problems.map((p) => (
               <li key={p}>{p}</li>
             ))}

@@ -144,7 +144,7 @@ export function InboxPage() {
                   >
                     {notice.text}
                   </span>
-                  <span className="block font-mono text-xs text-ink-soft">
+                  <span className="block text-xs text-ink-soft">
                     {notice.actorName} ·{" "}
                     <time dateTime={notice.createdAt}>
                       {timeFormat.format(new Date(notice.createdAt))}

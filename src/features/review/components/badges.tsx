@@ -64,11 +64,11 @@ export function VerdictTag({ verdict }: { verdict: Verdict | null | undefined })
 
 const ANCHOR_MARK = { layer: "▤", refractor: "╱", shot: "✦" } as const;
 
-/** Where a comment points, as a small chip. */
+/** Where a comment points, as a small chip (wrapping, never cut off). */
 export function AnchorChip({ kind, label }: { kind: keyof typeof ANCHOR_MARK; label: string }) {
   return (
     <span
-      className="inline-flex max-w-full items-center gap-1 truncate rounded border border-ink-faint/50 bg-paper px-1.5 py-0.5 font-mono text-[11px] text-ink"
+      className="inline-flex max-w-full items-start gap-1 rounded border border-ink-faint/50 bg-paper px-1.5 py-0.5 text-xs break-words text-ink"
       title={label}
     >
       <span aria-hidden className="text-ochre">
