@@ -24,6 +24,7 @@ export {
   computeArrivals,
   sampleCurves,
   type ArrivalKind,
+  type ArrivalOptions,
   type GeophoneArrivals,
   type ShotArrivals,
   type ArrivalCurves,
