@@ -3,8 +3,10 @@
  * The event loop only reads the database and sends answers, so plain GETs stay fast while
  * reports render and files are parsed.
  *
- * The pool starts on first use with at most 2 threads (or SPREADSIGHT_WORKERS), each reused
- * for every task; tasks wait in a queue of at most 200, beyond which the request gets 503.
+ * The pool starts on first use with one thread fewer than the machine has cores (at least one,
+ * at most 4; or SPREADSIGHT_WORKERS), so that a core stays free for the event loop; each thread
+ * is reused for every task. Tasks wait in a queue of at most 200, beyond which the request gets
+ * 503 `busy`.
  */
 import { availableParallelism } from "node:os";
 import { Piscina } from "piscina";
@@ -22,7 +24,7 @@ function workerFile(): string {
 function threads(): number {
   const wanted = Number(process.env.SPREADSIGHT_WORKERS);
   if (Number.isInteger(wanted) && wanted > 0) return wanted;
-  return Math.max(1, Math.min(2, availableParallelism()));
+  return Math.max(1, Math.min(4, availableParallelism() - 1));
 }
 
 function getPool(): Piscina {
