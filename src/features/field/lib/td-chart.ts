@@ -3,7 +3,8 @@
  * first arrivals) and of the residual chart, as pure functions; the components only bind them
  * to SVG. Times are drawn in ms, positions in m.
  */
-import { line, scaleLinear, type ScaleLinear } from "d3";
+import { scaleLinear, type ScaleLinear } from "d3-scale";
+import { line } from "d3-shape";
 import { sampleCurves, type GroundModel } from "@engine";
 import type { FirstBreakPick } from "@/contracts/field";
 

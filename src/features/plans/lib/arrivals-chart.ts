@@ -6,7 +6,8 @@
  * Every time and segment count comes from the engine (sampleCurves, computeArrivals and the
  * analysis); this module only places them on the page.
  */
-import { line, scaleLinear, type ScaleLinear } from "d3";
+import { scaleLinear, type ScaleLinear } from "d3-scale";
+import { line } from "d3-shape";
 import { arrivalColour } from "@/lib/chart/palette";
 import { formatQuantity, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type { ArrivalCurves, BranchVerdict, ModelAnalysis, ShotArrivals, Status } from "./engine";

@@ -3,7 +3,8 @@
  * models) and the table of their verdicts and depth errors, with the cells that differ from
  * the first scenario marked. Pure; every number comes from the engine's answers.
  */
-import { line, scaleLinear, type ScaleLinear } from "d3";
+import { scaleLinear, type ScaleLinear } from "d3-scale";
+import { line } from "d3-shape";
 import { SCENARIO_COLOURS } from "@/lib/chart/palette";
 import { formatQuantity, formatSigned, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type {

@@ -5,7 +5,8 @@
  * x is the sum of the thicknesses above at position 0 plus x · tan(dip) — the plan schema's
  * own convention (workers/engine/plan-schema.ts), so dipping interfaces are drawn as they dip.
  */
-import { interpolateRgb, scaleLinear, type ScaleLinear } from "d3";
+import { interpolateRgb } from "d3-interpolate";
+import { scaleLinear, type ScaleLinear } from "d3-scale";
 import { palette } from "@/lib/chart/palette";
 import { toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type { GroundModel, RayPath, Spread } from "./engine";

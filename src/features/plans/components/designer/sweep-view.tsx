@@ -11,7 +11,7 @@ import { useCreatePlan } from "../../api/create-plan";
 import { useElementWidth } from "@/hooks/use-element-width";
 import type { Plan, SweepResult } from "../../lib/engine";
 import { isSuperseded, modeller } from "../../lib/modeller-client";
-import { buildHeatmap, CELL_FILL, type HeatCell } from "../../lib/sweep-heatmap";
+import { buildHeatmap, CELL_FILL, heatmapImage, type HeatCell } from "../../lib/sweep-heatmap";
 import {
   defaultAxisRange,
   defaultParameterRange,
@@ -21,6 +21,9 @@ import {
 } from "../../lib/sweep-plan";
 import { mayCreatePlan } from "../plans-list";
 import { VERDICT_LABELS } from "../verdict-badge";
+
+/** Most steps along either side of the grid (a 200 × 200 sweep takes about a second). */
+const MAX_STEPS = 200;
 
 interface Setup {
   modelIndex: number;
@@ -156,8 +159,8 @@ function SweepEditor({
     [numbers.steps, "parameter steps"],
     [numbers.axisSteps, `${setup.axis} steps`],
   ] as const) {
-    if (v === undefined || !Number.isInteger(v) || v < 2 || v > 120)
-      problems.push(`${label} must be a whole number from 2 to 120`);
+    if (v === undefined || !Number.isInteger(v) || v < 2 || v > MAX_STEPS)
+      problems.push(`${label} must be a whole number from 2 to ${MAX_STEPS}`);
   }
   if (setup.kind === "thickness" && setup.layer >= model.layers.length)
     problems.push("the last layer is a half-space: sweep its velocity instead");
@@ -417,6 +420,9 @@ function Heatmap({
     const axis = result.axis.kind === "spacing" ? plan.spread.spacing : plan.spread.channels;
     return buildHeatmap(result, Math.max(360, width), units, { axis, parameter });
   }, [result, width, units, plan, modelIndex]);
+  // The cells are painted as one image (a pixel per cell); SVG carries the pointer, the marker,
+  // the highlighted cell and the axes.
+  const image = useMemo(() => heatmapImage(result), [result]);
   const [active, setActive] = useState<HeatCell | null>(null);
   const { data: me } = useMe();
   const createPlan = useCreatePlan(detail.siteId);
@@ -436,7 +442,13 @@ function Heatmap({
   const move = (dRow: number, dCol: number) => {
     const row = Math.min(result.rows - 1, Math.max(0, (active?.row ?? 0) + dRow));
     const col = Math.min(result.cols - 1, Math.max(0, (active?.col ?? 0) + dCol));
-    setActive(heatmap.cells[row * result.cols + col]);
+    setActive(heatmap.cellAt(row, col));
+  };
+  const cellUnder = (e: React.PointerEvent<SVGElement> | React.MouseEvent<SVGElement>) => {
+    const svg = e.currentTarget.ownerSVGElement ?? (e.currentTarget as SVGSVGElement);
+    const box = svg.getBoundingClientRect();
+    const scale = box.width > 0 ? heatmap.width / box.width : 1;
+    return heatmap.cellFromPoint((e.clientX - box.left) * scale, (e.clientY - box.top) * scale);
   };
 
   return (
@@ -475,20 +487,51 @@ function Heatmap({
         }}
         onPointerLeave={() => setActive(null)}
       >
-        {heatmap.cells.map((c) => (
-          <rect
-            key={`${c.row}-${c.col}`}
-            x={c.x}
-            y={c.y}
-            width={c.w + 0.5}
-            height={c.h + 0.5}
-            fill={c.fill}
-            data-state={c.state}
-            onPointerEnter={() => setActive(c)}
-            onClick={() => applyCell(c)}
-            style={{ cursor: mayCopy ? "pointer" : "default" }}
-          />
-        ))}
+        {image ? (
+          <>
+            <image
+              href={image}
+              x={heatmap.plot.x}
+              y={heatmap.plot.y}
+              width={heatmap.plot.width}
+              height={heatmap.plot.height}
+              preserveAspectRatio="none"
+              style={{ imageRendering: "pixelated" }}
+            />
+            <rect
+              x={heatmap.plot.x}
+              y={heatmap.plot.y}
+              width={heatmap.plot.width}
+              height={heatmap.plot.height}
+              fill="transparent"
+              data-role="cells"
+              onPointerMove={(e) => {
+                const cell = cellUnder(e);
+                if (cell?.row !== active?.row || cell?.col !== active?.col) setActive(cell);
+              }}
+              onClick={(e) => {
+                const cell = cellUnder(e);
+                if (cell) applyCell(cell);
+              }}
+              style={{ cursor: mayCopy ? "pointer" : "default" }}
+            />
+          </>
+        ) : (
+          heatmap.cells.map((c) => (
+            <rect
+              key={`${c.row}-${c.col}`}
+              x={c.x}
+              y={c.y}
+              width={c.w + 0.5}
+              height={c.h + 0.5}
+              fill={c.fill}
+              data-state={c.state}
+              onPointerEnter={() => setActive(c)}
+              onClick={() => applyCell(c)}
+              style={{ cursor: mayCopy ? "pointer" : "default" }}
+            />
+          ))
+        )}
         {heatmap.marker ? (
           <g pointerEvents="none" data-role="plan-marker">
             <circle
