@@ -8,7 +8,7 @@
 import { cellOf, type SectionGrid } from "./section-grid";
 
 /** Radius of the analytic neighbourhood, in cells. */
-export const SOURCE_RADIUS_CELLS = 8;
+export const SOURCE_RADIUS_CELLS = 24;
 
 /** A source on the grid: position (m, elevation m) and the slowness around it (s/m). */
 export interface GridSource {
@@ -25,7 +25,7 @@ export function slownessAt(grid: SectionGrid, x: number, z: number): number {
 
 /**
  * Whether the straight segment from the source to (x, z) stays in cells of the source's
- * slowness (sampled every quarter cell).
+ * slowness (sampled every half cell).
  */
 export function seesSourceDirectly(
   grid: SectionGrid,
@@ -34,7 +34,7 @@ export function seesSourceDirectly(
   z: number,
 ): boolean {
   const d = Math.hypot(x - source.x, z - source.z);
-  const steps = Math.max(1, Math.ceil((4 * d) / grid.h));
+  const steps = Math.max(1, Math.ceil((2 * d) / grid.h));
   for (let k = 0; k <= steps; k++) {
     const f = k / steps;
     const px = source.x + f * (x - source.x);

@@ -34,6 +34,8 @@ export interface SectionGrid {
   readonly zTop: number;
   /** Slowness per cell, s/m (Infinity: air). Length (nx−1)·(nz−1). */
   readonly slowness: Float64Array;
+  /** Surface elevation at every node column, m. */
+  readonly surface: Float64Array;
   readonly warnings: string[];
 }
 
@@ -170,7 +172,8 @@ export function rasteriseSection(
       slow[k] = 1 / velocityAt(g, k, x);
     }
     tops[n] = -Infinity;
-    const surface = surfaceAt(g, x);
+    // a cell is ground when the surface rises above its bottom anywhere across it
+    const surface = Math.max(surfaceAt(g, x), surfaceAt(g, x - 0.5 * h), surfaceAt(g, x + 0.5 * h));
     for (let j = 0; j < cz; j++) {
       const zt = zTop - j * h;
       const zb = zt - h;
@@ -202,6 +205,8 @@ export function rasteriseSection(
       slowness[idx] = inverted ? mean : Math.sqrt(p * p + sumRoot * sumRoot);
     }
   }
+  const surfaceAtNodes = new Float64Array(nx);
+  for (let i = 0; i < nx; i++) surfaceAtNodes[i] = surfaceAt(g, x0 + i * h);
   const warnings = thinWarnings(g, h, options.layerNames ?? []);
   if (source === "limit") {
     warnings.unshift(
@@ -216,6 +221,7 @@ export function rasteriseSection(
     x0,
     zTop,
     slowness,
+    surface: surfaceAtNodes,
     warnings,
   };
 }

@@ -8,9 +8,11 @@ import { cellOf, type SectionGrid } from "./section-grid";
 
 /**
  * Time at a point (s): the analytic time when the point sees the source directly within
- * the source neighbourhood, else bilinear interpolation in the cell holding it (corners
- * without a time are replaced by the nearest finite corner plus the straight path at the
- * cell's slowness).
+ * the source neighbourhood (unless an earlier wave reached its cell: then the earlier of
+ * that and the field), else bilinear interpolation in the cell holding it. A corner
+ * above the surface (reached only through the staircase of surface cells, so late) is
+ * replaced by linear extrapolation from the two nodes below it; corners without a time by
+ * the nearest finite corner plus the straight path at the cell's slowness.
  */
 export function timeAt(
   grid: SectionGrid,
@@ -21,16 +23,41 @@ export function timeAt(
 ): number {
   const d = Math.hypot(x - source.x, z - source.z);
   if (d <= SOURCE_RADIUS_CELLS * grid.h && seesSourceDirectly(grid, source, x, z)) {
-    return d * source.slowness;
+    // an earlier wave (e.g. a head wave) reached a corner of the cell: the field knows better
+    const { i, j } = cellOf(grid, x, z);
+    let overtaken = false;
+    for (const [a, b] of [
+      [i, j],
+      [i + 1, j],
+      [i, j + 1],
+      [i + 1, j + 1],
+    ]) {
+      const straight =
+        Math.hypot(grid.x0 + a * grid.h - source.x, grid.zTop - b * grid.h - source.z) *
+        source.slowness;
+      if (T[b * grid.nx + a] < straight * (1 - 1e-9)) overtaken = true;
+    }
+    const direct = d * source.slowness;
+    return overtaken ? Math.min(direct, interpolatedTime(grid, T, x, z)) : direct;
   }
+  return interpolatedTime(grid, T, x, z);
+}
+
+function interpolatedTime(grid: SectionGrid, T: Float64Array, x: number, z: number): number {
   const { nx, h, x0, zTop } = grid;
   const { i, j } = cellOf(grid, x, z);
   const fx = Math.min(1, Math.max(0, (x - (x0 + i * h)) / h));
   const fz = Math.min(1, Math.max(0, (zTop - j * h - z) / h));
-  const t00 = T[j * nx + i];
-  const t10 = T[j * nx + i + 1];
-  const t01 = T[(j + 1) * nx + i];
-  const t11 = T[(j + 1) * nx + i + 1];
+  const node = (a: number, b: number): number => {
+    const t = T[b * nx + a];
+    if (zTop - b * h <= grid.surface[a] + 1e-9 || b + 2 >= grid.nz) return t;
+    const below = 2 * T[(b + 1) * nx + a] - T[(b + 2) * nx + a];
+    return Number.isFinite(below) ? below : t;
+  };
+  const t00 = node(i, j);
+  const t10 = node(i + 1, j);
+  const t01 = node(i, j + 1);
+  const t11 = node(i + 1, j + 1);
   if (Number.isFinite(t00 + t10 + t01 + t11)) {
     return (t00 * (1 - fx) + t10 * fx) * (1 - fz) + (t01 * (1 - fx) + t11 * fx) * fz;
   }
