@@ -4,6 +4,8 @@
  *
  * Environment: PORT (3000), HOST (127.0.0.1), SPREADSIGHT_DB (./data/spreadsight.sqlite),
  * DATABASE_URL (postgres://…: PostgreSQL instead of the SQLite file; DB_POOL_SIZE, default 10),
+ * S3_ENDPOINT + S3_BUCKET (+ S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY, S3_REGION, S3_PREFIX,
+ * S3_FORCE_PATH_STYLE): uploaded files in an S3-compatible object store instead of the database,
  * SMTP_URL (unset: in demo mode the built-in fake mailbox, otherwise no mail is sent),
  * SPREADSIGHT_MAILBOX=catch (the fake mailbox outside demo mode: admins can then read every
  * member's reset link, so only for a trial on one machine), MAIL_FROM, PUBLIC_URL
@@ -13,6 +15,7 @@
  */
 import { resolve } from "node:path";
 import { isPostgresUrl, redactUrl } from "./data/data-source";
+import { objectStoreFromEnv } from "./data/file-store";
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from "./data/seed-demo";
 import { createLogger } from "./logger";
 import { startServer } from "./start";
@@ -41,9 +44,11 @@ async function main(): Promise<void> {
     throw new Error(`DATABASE_URL must start with postgres:// or postgresql://`);
   }
   const dbPath = resolve(env.SPREADSIGHT_DB || "data/spreadsight.sqlite");
+  const objectStore = objectStoreFromEnv(env);
   const server = await startServer({
     dbPath,
     databaseUrl,
+    objectStore,
     port: parsePort(env.PORT),
     host: env.HOST || "127.0.0.1",
     demo,
@@ -61,6 +66,7 @@ async function main(): Promise<void> {
     "",
     `Spreadsight is running at ${server.url}`,
     `  database: ${databaseUrl ? redactUrl(databaseUrl) : dbPath}`,
+    `  uploads:  ${objectStore ? `object store ${objectStore.endpoint} bucket ${objectStore.bucket}` : "in the database"}`,
     `  e-mail:   ${server.mailbox ? "built-in fake mailbox (admins: Mailbox page)" : env.SMTP_URL ? "SMTP_URL" : "not sent (set SMTP_URL)"}`,
   ];
   if (server.publicUrl !== server.url) lines.push(`  links in e-mails use ${server.publicUrl}`);

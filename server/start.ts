@@ -13,6 +13,12 @@ import { fileURLToPath } from "node:url";
 import type { Logger } from "pino";
 import type { DataSource } from "typeorm";
 import { openDatabase } from "./data/data-source";
+import {
+  s3FileStore,
+  sweepOrphanObjects,
+  useFileStore,
+  type ObjectStoreSettings,
+} from "./data/file-store";
 import { TypeormLuciaAdapter } from "./data/lucia-adapter";
 import { seedDemo } from "./data/seed-demo";
 import { createApp, type AppLocals } from "./http/app";
@@ -29,6 +35,8 @@ export interface StartOptions {
   dbPath?: string;
   /** A postgres:// URL: use PostgreSQL instead of SQLite (see docs/api.md, "Database"). */
   databaseUrl?: string;
+  /** Keep uploaded files in this S3-compatible store instead of the database. */
+  objectStore?: ObjectStoreSettings | null;
   /** TCP port; 0 picks a free one. Default 3000. */
   port?: number;
   /** Interface to listen on. Default 127.0.0.1. */
@@ -88,6 +96,7 @@ export async function startServer(options: StartOptions): Promise<RunningServer>
   const dataSource = await openDatabase(
     options.databaseUrl ? { url: options.databaseUrl } : { path: options.dbPath! },
   );
+  if (options.objectStore) useFileStore(dataSource, s3FileStore(options.objectStore));
   let fakeSmtp: FakeSmtp | null = null;
   let httpServer: Server | null = null;
   try {
@@ -142,8 +151,14 @@ export async function startServer(options: StartOptions): Promise<RunningServer>
       new TypeormLuciaAdapter(dataSource)
         .deleteExpiredSessions()
         .catch((error: unknown) => logger.warn({ err: error }, "session sweep failed"));
+    // Objects whose attachment row is gone (cascades, refused uploads): see file-store.ts.
+    const sweepObjects = () =>
+      sweepOrphanObjects(dataSource).catch((error: unknown) =>
+        logger.warn({ err: error }, "object store sweep failed"),
+      );
     await sweepSessions();
-    const sweeper = setInterval(sweepSessions, 60 * 60 * 1000);
+    void sweepObjects();
+    const sweeper = setInterval(() => void sweepSessions().then(sweepObjects), 60 * 60 * 1000);
     sweeper.unref();
 
     let closing: Promise<void> | null = null;

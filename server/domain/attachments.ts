@@ -8,6 +8,7 @@
  * Uploads are field data, so they are accepted in every status but archived.
  */
 import { createHash, randomUUID } from "node:crypto";
+import type { Readable } from "node:stream";
 import type { DataSource, EntityManager } from "typeorm";
 import type { z } from "zod";
 import {
@@ -25,6 +26,7 @@ import { Attachment } from "../data/entities/attachment";
 import { PickSet } from "../data/entities/pick-set";
 import type { Plan } from "../data/entities/plan";
 import { PlanRevision } from "../data/entities/plan-revision";
+import { fileStoreOf, readAttachmentBytes, removeObjectsQuietly } from "../data/file-store";
 import { inTransaction } from "../data/transaction";
 import type { Actor } from "./actor";
 import { cleanFileName, type CheckedContent } from "./attachment-content";
@@ -166,6 +168,13 @@ export async function uploadAttachment(
   const id = randomUUID();
   const sha256 = createHash("sha256").update(file.buffer).digest("hex");
   const fileName = cleanFileName(file.originalname);
+  // With object storage the bytes are written first (no network inside the transaction); a
+  // refused transaction removes them again (file-store.ts sweeps any that stay behind).
+  const objectKey = await fileStoreOf(dataSource).put(
+    { id, teamId: actor.teamId, planId },
+    file.buffer,
+    STORED_MEDIA_TYPE[fields.kind],
+  );
   await inTransaction(dataSource, async (manager) => {
     // Re-read inside the transaction: the revision must be the latest at the moment of writing.
     const current = await findVisiblePlan(manager, actor, planId);
@@ -186,7 +195,8 @@ export async function uploadAttachment(
       size: file.size,
       sha256,
       facts: checked.facts,
-      content: file.buffer,
+      content: objectKey ? Buffer.alloc(0) : file.buffer,
+      objectKey,
       uploadedById: actor.userId,
       createdAt: new Date(),
     });
@@ -204,6 +214,9 @@ export async function uploadAttachment(
         revision: revision.number,
       },
     });
+  }).catch(async (error: unknown) => {
+    await removeObjectsQuietly(dataSource, [objectKey]);
+    throw error;
   });
   const row = await findAttachmentRow(dataSource.manager, actor, id);
   return {
@@ -257,21 +270,15 @@ async function visibleAttachment(
   }
 }
 
-/** The file's bytes with what the response needs. */
+/** The file's bytes as a stream (from the database or the object store) with what the
+ * response needs. */
 export async function attachmentContent(
   dataSource: DataSource,
   actor: Actor,
   id: string,
-): Promise<{ summary: AttachmentSummary; content: Buffer }> {
+): Promise<{ summary: AttachmentSummary; content: Readable }> {
   const { row } = await visibleAttachment(dataSource.manager, actor, id);
-  const withContent = await dataSource
-    .getRepository(Attachment)
-    .createQueryBuilder("a")
-    .addSelect("a.content")
-    .where("a.id = :id AND a.teamId = :teamId", { id, teamId: actor.teamId })
-    .getOne();
-  if (!withContent) throw notFound("attachment");
-  return { summary: toSummary(row), content: Buffer.from(withContent.content) };
+  return { summary: toSummary(row), content: await readAttachmentBytes(dataSource, row.id) };
 }
 
 export async function deleteAttachment(
@@ -280,7 +287,7 @@ export async function deleteAttachment(
   id: string,
 ): Promise<void> {
   requireFieldRole(actor);
-  await inTransaction(dataSource, async (manager) => {
+  const objectKey = await inTransaction(dataSource, async (manager) => {
     const { row, plan } = await visibleAttachment(manager, actor, id);
     requireFieldEditor(actor, plan);
     await manager.getRepository(Attachment).delete({ id, teamId: actor.teamId });
@@ -292,7 +299,10 @@ export async function deleteAttachment(
       targetId: row.planId,
       detail: { attachment: id, kind: row.kind, fileName: row.fileName },
     });
+    return row.objectKey;
   });
+  // After the commit: the object goes too (or, if the store is unreachable, at the next sweep).
+  await removeObjectsQuietly(dataSource, [objectKey]);
 }
 
 function toPickSetView(planId: string, row: PickSet | null): PickSetView {

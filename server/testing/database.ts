@@ -12,6 +12,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import pg from "pg";
 import type { DatabaseKind, DatabaseOptions } from "../data/data-source";
+import type { ObjectStoreSettings } from "../data/file-store";
 
 export interface TestDatabase {
   kind: DatabaseKind;
@@ -26,12 +27,21 @@ declare module "vitest" {
   export interface ProvidedContext {
     pgAdminUrl: string;
     pgTemplate: string;
+    s3Settings: ObjectStoreSettings;
   }
 }
 
 /** The database the current test project runs on. */
 export function testDatabaseKind(): DatabaseKind {
   return process.env.SPREADSIGHT_TEST_DB === "postgres" ? "postgres" : "sqlite";
+}
+
+/** The fake S3 server of the `server-pg` project (uploads go there), or null (SQLite project:
+ * uploads stay in the database). */
+export async function testObjectStore(): Promise<ObjectStoreSettings | null> {
+  if (testDatabaseKind() === "sqlite") return null;
+  const { inject } = await import("vitest");
+  return inject("s3Settings");
 }
 
 /** `postgres://…/<name>`: the admin URL with another database name. */

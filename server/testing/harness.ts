@@ -19,7 +19,8 @@ import type { RateLimitConfig } from "../http/rate-limit";
 import { createLogger } from "../logger";
 import { startFakeSmtp } from "../mail/fake-smtp";
 import { createMailer } from "../mail/mailer";
-import { createTestDatabase, type TestDatabase } from "./database";
+import { s3FileStore, useFileStore } from "../data/file-store";
+import { createTestDatabase, testObjectStore, type TestDatabase } from "./database";
 
 /** The public URL the test app believes it has; also the Origin tests send. */
 export const PUBLIC_URL = "http://spreadsight.test";
@@ -48,6 +49,8 @@ export async function createTestContext(
 ): Promise<TestContext> {
   const database = options.database ?? (await createTestDatabase());
   const dataSource = await openDatabase(database.options);
+  const objectStore = await testObjectStore();
+  if (objectStore) useFileStore(dataSource, s3FileStore(objectStore));
   const logger = createLogger("silent");
   const smtp = await startFakeSmtp(dataSource, logger);
   const mailer = createMailer({

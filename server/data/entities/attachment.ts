@@ -26,6 +26,9 @@ export class Attachment {
   @Column({ type: "simple-json" }) facts: AttachmentFacts;
   /** The file's bytes; not loaded by listings (select: false). */
   @Column({ type: BLOB, select: false }) content: Buffer;
+  /** The object holding the bytes when they are in object storage (then `content` is empty);
+   * null when `content` holds them (server/data/file-store.ts). */
+  @Column({ type: "varchar", length: 400, nullable: true }) objectKey: string | null;
   @Column(UUID) uploadedById: string;
   @Column({ type: TIMESTAMP }) createdAt: Date;
 

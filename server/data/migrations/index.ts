@@ -6,10 +6,12 @@ import { Foundation1733097600000 } from "./1733097600000-foundation";
 import { PlansReview1733184000000 } from "./1733184000000-plans-review";
 import { Field1733270400000 } from "./1733270400000-field";
 import { RateLimits1796169600000 } from "./1796169600000-rate-limits";
+import { ObjectStorage1796256000000 } from "./1796256000000-object-storage";
 
 export const migrations = [
   Foundation1733097600000,
   PlansReview1733184000000,
   Field1733270400000,
   RateLimits1796169600000,
+  ObjectStorage1796256000000,
 ];

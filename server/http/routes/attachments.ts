@@ -2,6 +2,7 @@
  * Field data of a plan: uploads (multipart, see `attachmentUploadRouter`), the list, a file's
  * content, deletion, and the saved first-break picks. See docs/api.md "Field check".
  */
+import { pipeline } from "node:stream/promises";
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
 import { idParamSchema } from "@/contracts/common";
@@ -205,7 +206,9 @@ export function attachmentsRouter(ctx: RouteContext): Router {
     res.setHeader("Content-Type", summary.mediaType);
     res.setHeader("X-Content-Type-Options", "nosniff");
     res.attachment(summary.fileName);
-    res.send(content);
+    res.setHeader("Content-Length", String(summary.size));
+    // Streamed from the database row or the object store, never buffered whole here.
+    await pipeline(content, res);
   });
 
   router.delete("/attachments/:id", async (req, res) => {

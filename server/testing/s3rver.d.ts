@@ -1,0 +1,17 @@
+/** The parts of s3rver (a fake S3 server for tests) that server/testing/fake-s3.ts uses. */
+declare module "s3rver" {
+  import type { AddressInfo } from "node:net";
+  interface S3rverOptions {
+    address?: string;
+    port?: number;
+    silent?: boolean;
+    directory: string;
+    resetOnClose?: boolean;
+    configureBuckets?: { name: string; configs?: string[] }[];
+  }
+  export default class S3rver {
+    constructor(options: S3rverOptions);
+    run(): Promise<AddressInfo>;
+    close(): Promise<void>;
+  }
+}
