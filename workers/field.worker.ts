@@ -2,6 +2,7 @@
  * Field worker entry: exposes the SEG-2 reader and the first-break pickers through comlink.
  * The samples of a read record are transferred, not copied.
  */
+import "./zod-jitless";
 import { expose, transfer } from "comlink";
 import { fieldApi, type FieldApi } from "./field/worker-api";
 

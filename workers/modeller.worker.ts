@@ -2,6 +2,7 @@
  * The modeller's Web Worker entry: exposes the engine through comlink. Typed arrays in
  * results (sweep grids, chart curves) are transferred, not copied.
  */
+import "./zod-jitless";
 import { expose, transfer } from "comlink";
 import { modellerApi, type Plan, type SectionSweepSpec, type SweepSpec } from "./engine";
 

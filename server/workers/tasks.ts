@@ -4,11 +4,29 @@
  * an uploaded file (CSV parsing, SEG-2 reading). Every task resolves; an expected refusal comes
  * back as a plain `{ error }` object because thrown errors lose their fields between threads.
  */
+import { readlinkSync } from "node:fs";
+import { setPriority } from "node:os";
 import type { AttachmentFields, AttachmentKind } from "@/contracts/field";
 import { checkContent, type CheckedContent } from "../domain/attachment-content";
 import { AppError, type FieldErrors } from "../domain/errors";
 import { completeReportInput, type ReportSource } from "../reports/assemble";
 import { renderPlanReport } from "../reports/plan-report";
+
+/**
+ * On Linux, lower this worker thread's scheduling priority (nice 10; /proc/thread-self names
+ * the thread's own id, and setpriority on a thread id affects that thread only), so that on a
+ * busy machine the event loop, which answers every request, wins the CPU over report drawing
+ * and file parsing. Elsewhere nothing changes.
+ */
+function lowerThreadPriority(): void {
+  try {
+    const tid = /task\/(\d+)$/.exec(readlinkSync("/proc/thread-self"))?.[1];
+    if (tid) setPriority(Number(tid), 10);
+  } catch {
+    // not Linux, or not allowed: keep the default priority
+  }
+}
+lowerThreadPriority();
 
 export type WorkerTask =
   | { kind: "report"; source: ReportSource; compress?: boolean }
