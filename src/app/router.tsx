@@ -49,9 +49,10 @@ const DesignerRoute = lazyScreen(
   () => import("./designer-route"),
   (m) => m.DesignerRoute,
 );
+/** The Review screen with the designer's charts it borrows (review-charts.tsx). */
 const ReviewPage = lazyScreen(
-  () => import("@/features/review"),
-  (m) => m.ReviewPage,
+  () => import("./review-charts"),
+  (m) => m.ReviewRoute,
 );
 const TeamActivityPage = lazyScreen(
   () => import("@/features/review"),

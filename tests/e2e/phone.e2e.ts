@@ -110,6 +110,8 @@ describe("phone width, 390 px", () => {
     await page.goto(`${app.url}/plans/${planId}/review`);
     await page.getByRole("heading", { name: /^Review: / }).waitFor();
     await page.getByRole("heading", { name: "Review notes" }).waitFor();
+    // The designer's Arrivals chart, read-only, fits the phone too.
+    await page.getByRole("img", { name: /^Arrivals, / }).waitFor();
     await expectNoSidewaysScroll(page, "review");
   });
 

@@ -11,3 +11,4 @@ export {
 export { useAnchorThreadCounts, type AnchorThreadCount } from "./hooks/use-anchor-thread-counts";
 export { PlanStatusBadge } from "./components/badges";
 export { TeamActivityPage } from "./components/team-activity-page";
+export { ReviewSlotsProvider, type ReviewSlots } from "./review-slots";

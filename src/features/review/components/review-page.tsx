@@ -18,6 +18,7 @@ import { PlanDocumentView } from "./plan-document";
 import { CommentThreads } from "./comment-threads";
 import { HistoryPanel } from "./history-panel";
 import { ActivityPanel } from "./activity-panel";
+import { useReviewSlots } from "../review-slots";
 
 const timeFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short" });
 
@@ -103,6 +104,7 @@ function Review({ plan, units }: { plan: PlanDetail; units: UnitSystem }) {
   };
   const lastNote = latestDecisionNote(activity.data ?? []);
   const document = revision.data?.document ?? plan.document;
+  const slots = useReviewSlots();
 
   return (
     <div>
@@ -164,6 +166,20 @@ function Review({ plan, units }: { plan: PlanDetail; units: UnitSystem }) {
               )}
             </ErrorBoundary>
           </Card>
+
+          {slots && !revision.isPending ? (
+            <Card>
+              <h2 className="mb-3 font-semibold text-ink">
+                Arrivals{" "}
+                <span className="font-mono text-xs font-normal text-ink-soft">
+                  revision {plan.revision}, read-only
+                </span>
+              </h2>
+              <ErrorBoundary title="The charts failed to draw">
+                {slots.renderCharts(document, units)}
+              </ErrorBoundary>
+            </Card>
+          ) : null}
 
           <Card>
             <div
