@@ -9,6 +9,7 @@ import {
   modelFirstArrival,
   type ObservedPick,
 } from "../../workers/field/index";
+import { interpretationSummary } from "./field-interpretation";
 import type { PlanReportInput, ReportFieldCheck } from "./types";
 
 /** What the database gives the report; the rest is computed by `completeReportInput`. */
@@ -47,6 +48,7 @@ export function fieldCheckSummary(
     })),
     best: bestIndex === null ? null : fits[bestIndex].name,
     warnings,
+    interpretation: interpretationSummary(picks, { models, criteria: { pickError } }),
   };
 }
 

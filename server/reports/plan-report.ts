@@ -10,6 +10,7 @@ import { arrivalsFigure, drawArrivals, drawSection, sectionFigure } from "./char
 import { pdfText, reportFonts } from "./fonts";
 import { ink, ReportWriter, type Cell } from "./layout";
 import type { PlanReportInput } from "./types";
+import { drawInterpretation } from "./field-interpretation";
 
 /** Section headings, in order (the tests look for them). */
 export const REPORT_SECTIONS = [
@@ -389,6 +390,7 @@ function fieldCheck(w: ReportWriter, input: PlanReportInput): void {
     ]),
   );
   for (const warning of f.warnings) w.callout(warning, "caution");
+  drawInterpretation(w, f.interpretation);
 }
 
 function reviewHistory(w: ReportWriter, input: PlanReportInput): void {

@@ -4,6 +4,7 @@
  * the plan document with the engine, so every number in the report is the engine's.
  */
 import type { Plan, PlanAnalysis } from "@engine";
+import type { ReportInterpretation } from "./field-interpretation";
 
 export interface ReportRevision {
   number: number;
@@ -37,6 +38,8 @@ export interface ReportFieldCheck {
   fits: { name: string; rms: number | null; meanResidual: number | null; count: number }[];
   best: string | null;
   warnings: string[];
+  /** The interpreted section under the line (server/reports/field-interpretation.ts). */
+  interpretation?: ReportInterpretation | null;
 }
 
 export interface PlanReportInput {

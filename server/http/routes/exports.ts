@@ -6,6 +6,7 @@ import { Router } from "express";
 import { z } from "zod";
 import { idParamSchema } from "@/contracts/common";
 import { exportPlanDocument, exportStationsCsv, importPlan } from "../../domain/exports";
+import { exportInterpretationCsv } from "../../domain/interpretation-export";
 import { planReportPdf } from "../../domain/reports";
 import type { RouteContext } from "../context";
 import { requireActor } from "../session";
@@ -33,6 +34,16 @@ export function exportsRouter(ctx: RouteContext): Router {
     const { id } = parseParams(idParamSchema, req);
     parseQuery(noQuerySchema, req);
     const { csv, fileName } = await exportStationsCsv(dataSource, actor, id);
+    res.setHeader("Content-Type", "text/csv; charset=utf-8");
+    res.attachment(fileName);
+    res.send(csv);
+  });
+
+  router.get("/plans/:id/interpretation.csv", async (req, res) => {
+    const actor = requireActor(res);
+    const { id } = parseParams(idParamSchema, req);
+    parseQuery(noQuerySchema, req);
+    const { csv, fileName } = await exportInterpretationCsv(dataSource, actor, id);
     res.setHeader("Content-Type", "text/csv; charset=utf-8");
     res.attachment(fileName);
     res.send(csv);

@@ -1,0 +1,211 @@
+/**
+ * The interpreted section under the line in the plan report and its CSV export: pure functions
+ * of data. `interpretationSummary` runs the same interpretation as the Field check screen and
+ * the `interpret` command (workers/field/plan-interpretation.ts) with its defaults (picks
+ * assigned as the best-fitting candidate suggests, plus-minus method, the plan's pick error,
+ * elevations from the plan's section surface or flat); `drawInterpretation` draws it with the
+ * report writer; `interpretationCsv` writes one row per refractor and geophone.
+ * Units: m, m/s, s (the PDF prints ms for times).
+ */
+import Papa from "papaparse";
+import {
+  interpretPlanPicks,
+  LINE_METHODS,
+  type LineMethod,
+  type ObservedPick,
+  type PlanForInterpretation,
+} from "../../workers/field/index";
+import { ink, type ReportWriter } from "./layout";
+
+/** What the report and the CSV show of the interpretation. */
+export type ReportInterpretation =
+  | {
+      ok: true;
+      method: LineMethod;
+      suggestedFrom: string | null;
+      elevationSource: "csv" | "plan" | "flat";
+      datum: number;
+      topVelocity: number;
+      refractors: {
+        layer: number;
+        shots: [number, number];
+        meanVelocity: number;
+        rows: {
+          position: number;
+          depth: number;
+          elevation: number;
+          sigma: number;
+          velocity: number | null;
+          phantom: boolean;
+        }[];
+        notes: string[];
+      }[];
+      reciprocal: {
+        shots: [number, number];
+        difference: number;
+        tolerance: number;
+        agrees: boolean;
+      }[];
+      misfits: { name: string; layers: { layer: number; rms: number | null }[] }[];
+      notes: string[];
+    }
+  | { ok: false; reason: string };
+
+/** Runs the default interpretation of saved picks (null when there are none). */
+export function interpretationSummary(
+  picks: readonly ObservedPick[],
+  plan: PlanForInterpretation,
+): ReportInterpretation | null {
+  if (picks.length === 0) return null;
+  try {
+    const r = interpretPlanPicks(plan, picks);
+    return {
+      ok: true,
+      method: r.result.method,
+      suggestedFrom: r.suggestedFrom,
+      elevationSource: r.elevationSource,
+      datum: r.result.datum,
+      topVelocity: r.result.topVelocity,
+      refractors: r.result.refractors.map((ref) => ({
+        layer: ref.layer,
+        shots: ref.shots,
+        meanVelocity: ref.meanVelocity,
+        rows: ref.depth.map((d) => ({
+          position: d.position,
+          depth: d.depth,
+          elevation: d.elevation,
+          sigma: d.sigma,
+          velocity:
+            ref.velocity.find((v) => Math.abs(v.position - d.position) < 0.001)?.value ?? null,
+          phantom: d.phantom,
+        })),
+        notes: ref.notes,
+      })),
+      reciprocal: r.result.reciprocal.map((c) => ({
+        shots: c.shots,
+        difference: c.difference,
+        tolerance: c.tolerance,
+        agrees: c.agrees,
+      })),
+      misfits: r.misfits,
+      notes: r.result.notes,
+    };
+  } catch (error) {
+    return { ok: false, reason: error instanceof Error ? error.message : String(error) };
+  }
+}
+
+const num = (v: number | null, digits: number) =>
+  v === null || !Number.isFinite(v)
+    ? "–"
+    : (Object.is(Number(v.toFixed(digits)), -0) ? 0 : v).toFixed(digits);
+
+/** Draws the interpreted section: method, per-refractor table, reciprocal checks, misfits. */
+export function drawInterpretation(
+  w: ReportWriter,
+  data: ReportInterpretation | null | undefined,
+): void {
+  if (!data) return;
+  w.subheading("Interpreted section under the line");
+  if (!data.ok) {
+    w.paragraph(`No interpretation: ${data.reason}`, { color: ink.soft });
+    return;
+  }
+  w.paragraph(
+    `${LINE_METHODS[data.method]}, picks assigned to refractors ${data.suggestedFrom ? `as “${data.suggestedFrom}” (the best-fitting candidate) suggests` : "by the user"}; top-layer velocity ${num(data.topVelocity, 0)} m/s; elevations ${data.elevationSource === "csv" ? "from the station CSV" : data.elevationSource === "plan" ? "from the plan's section surface" : "taken as flat at 0 m"}, datum ${num(data.datum, 2)} m. Depths are below the ground, ± one standard error from the pick error.`,
+  );
+  for (const ref of data.refractors) {
+    w.paragraph(
+      `Top of layer ${ref.layer}, from the shots at ${num(ref.shots[0], 2)} and ${num(ref.shots[1], 2)} m: mean velocity ${num(ref.meanVelocity, 0)} m/s.`,
+    );
+    w.table(
+      [
+        { header: "Geophone (m)", width: 80, align: "right" },
+        { header: "Depth (m)", width: 80, align: "right" },
+        { header: "± (m)", width: 60, align: "right" },
+        { header: "Elevation (m)", width: 90, align: "right" },
+        { header: "Velocity (m/s)", width: 90, align: "right" },
+        { header: "", width: 80 },
+      ],
+      ref.rows.map((r) => [
+        num(r.position, 2),
+        num(r.depth, 2),
+        num(r.sigma, 2),
+        num(r.elevation, 2),
+        num(r.velocity, 0),
+        r.phantom ? "phantomed" : "",
+      ]),
+    );
+    for (const note of ref.notes) w.callout(note, "plain");
+  }
+  if (data.reciprocal.length) {
+    w.table(
+      [
+        { header: "Reciprocal pair (m)", width: 140 },
+        { header: "Difference (ms)", width: 100, align: "right" },
+        { header: "Allowed (ms)", width: 90, align: "right" },
+        { header: "", width: 120 },
+      ],
+      data.reciprocal.map((c) => [
+        `${num(c.shots[0], 2)} ↔ ${num(c.shots[1], 2)}`,
+        num(c.difference * 1000, 2),
+        num(c.tolerance * 1000, 1),
+        c.agrees ? "agree" : { text: "disagree: check picks", bold: true },
+      ]),
+    );
+  }
+  if (data.misfits.length && data.refractors.length) {
+    w.table(
+      [
+        { header: "Candidate model", width: 220 },
+        ...data.refractors.map((r) => ({
+          header: `Layer ${r.layer} RMS depth misfit (m)`,
+          width: 130,
+          align: "right" as const,
+        })),
+      ],
+      data.misfits.map((m) => [
+        m.name,
+        ...data.refractors.map((r) =>
+          num(m.layers.find((l) => l.layer === r.layer)?.rms ?? null, 2),
+        ),
+      ]),
+    );
+  }
+  for (const note of data.notes) w.callout(note, "caution");
+}
+
+/**
+ * One CSV row per refractor and geophone: layer, method, position_m, depth_m, elevation_m,
+ * sigma_m, velocity_m_s, phantom (RFC 4180, CRLF). Empty (header only) without an interpretation.
+ */
+export function interpretationCsv(data: ReportInterpretation | null): string {
+  const fields = [
+    "layer",
+    "method",
+    "position_m",
+    "depth_m",
+    "elevation_m",
+    "sigma_m",
+    "velocity_m_s",
+    "phantom",
+  ];
+  const rows: (string | number)[][] = [];
+  if (data?.ok) {
+    for (const ref of data.refractors) {
+      for (const r of ref.rows) {
+        rows.push([
+          ref.layer,
+          data.method,
+          Number(r.position.toFixed(3)),
+          Number(r.depth.toFixed(3)),
+          Number(r.elevation.toFixed(3)),
+          Number(r.sigma.toFixed(3)),
+          r.velocity === null ? "" : Number(r.velocity.toFixed(1)),
+          r.phantom ? "yes" : "no",
+        ]);
+      }
+    }
+  }
+  return Papa.unparse({ fields, data: rows }, { newline: "\r\n", escapeFormulae: true }) + "\r\n";
+}
