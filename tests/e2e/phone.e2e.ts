@@ -155,6 +155,36 @@ describe("phone width, 390 px", () => {
     expect(printed.buttons).toBe(0);
     expect(printed.heading).toBe(true);
     expect(printed.designerLink).toBe(false);
+  });
+
+  it("prints the Field check screen without navigation or buttons, on a white page", async () => {
+    const { page } = browser;
+    await page.setViewportSize({ width: 1000, height: 900 });
+    const { planId } = await demoPlan(page);
+    await page.goto(`${app.url}/plans/${planId}/field`);
+    await page.getByRole("heading", { name: "Field check" }).waitFor();
+    await page.waitForLoadState("networkidle");
+    await page.emulateMedia({ media: "print" });
+    const printed = await page.evaluate(() => {
+      const shown = (el: Element | null) => !!el && getComputedStyle(el).display !== "none";
+      return {
+        nav: shown(document.querySelector(".app-header")),
+        buttons: Array.from(document.querySelectorAll("main button, main a[download]")).filter(
+          shown,
+        ).length,
+        background: getComputedStyle(document.body).backgroundColor,
+        heading: shown(document.querySelector("h1")),
+      };
+    });
+    await screenshot(page, "print-field-check");
+    await page.emulateMedia({ media: "screen" });
+    await page.setViewportSize(PHONE);
+    expect(printed).toEqual({
+      nav: false,
+      buttons: 0,
+      background: "rgb(255, 255, 255)",
+      heading: true,
+    });
     expect(printed.background).toBe("rgb(255, 255, 255)");
   });
 });
