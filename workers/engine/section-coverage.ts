@@ -8,10 +8,11 @@
  *    neither the first nor the last geophone of the branch, beyond which the arrival may
  *    go on) — the layered rule for segments;
  *  - blind: the layer is faster than every layer above, yet no first arrival travels
- *    along it anywhere (the layered "head wave never first"). Gaps inside the sampled
- *    extent — parts of the interface no first-arrival ray travelled along — are listed as
- *    blind stretches too, but do not count towards the interface's verdict (judged false),
- *    as a layered refractor with a short segment is not blind;
+ *    along it anywhere (the layered "head wave never first"). Gaps — parts of the
+ *    interface under the spread, where the layer exists and could send a head wave, that no
+ *    first-arrival ray travelled along — are listed as blind stretches too, but do not
+ *    count towards the interface's verdict (judged false), as a layered refractor with a
+ *    short segment is not blind;
  *  - inverted: the layer is not faster than a layer above there (no head wave).
  * The interface's verdict is the worst over the stretches that count; under-sampled when
  * none counts.
@@ -184,9 +185,7 @@ export function sectionCoverage(
     let blind: [number, number][] = [];
     const gaps = sampled.length > 0;
     if (gaps) {
-      const lo = Math.min(...sampled.map((s) => s.from));
-      const hi = Math.max(...sampled.map((s) => s.to));
-      blind = intervalsWhere(lo, hi, step, (x) => capable(x) && !covered(x)).filter(
+      blind = intervalsWhere(spreadFrom, spreadTo, step, (x) => capable(x) && !covered(x)).filter(
         ([a, b]) => b - a >= 2 * step,
       );
     } else {

@@ -244,23 +244,18 @@ export function sectionIssues(model: {
       return;
     }
     if (above) {
-      const rise = firstRise(base, above, from, to);
-      if (rise) {
+      const top = firstRise(base, surface, from, to);
+      const rise = top ? null : firstRise(base, above, from, to);
+      if (top) {
+        issues.push({
+          path: ["layers", i, "base", top.index],
+          message: `base rises above the surface at ${fmt(top.at)} m`,
+        });
+      } else if (rise) {
         issues.push({
           path: ["layers", i, "base", rise.index],
-          message:
-            above === surface
-              ? `base rises above the surface at ${fmt(rise.at)} m`
-              : `base crosses ${aboveLabel} at ${fmt(rise.at)} m (${fmt(rise.by)} m above it)`,
+          message: `base crosses ${aboveLabel} at ${fmt(rise.at)} m (${fmt(rise.by)} m above it)`,
         });
-      } else if (above !== surface) {
-        const top = firstRise(base, surface, from, to);
-        if (top) {
-          issues.push({
-            path: ["layers", i, "base", top.index],
-            message: `base rises above the surface at ${fmt(top.at)} m`,
-          });
-        }
       }
     }
     above = base;
