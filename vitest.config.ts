@@ -1,4 +1,4 @@
-import { defineConfig } from "vitest/config";
+import { configDefaults, defineConfig } from "vitest/config";
 import react from "@vitejs/plugin-react";
 import { fileURLToPath, URL } from "node:url";
 
@@ -26,6 +26,8 @@ export default defineConfig({
           name: "server",
           environment: "node",
           include: ["server/**/*.test.ts", "workers/**/*.test.ts", "scripts/**/*.test.ts"],
+          // *.pg.test.ts need PostgreSQL: they run in server-pg only.
+          exclude: [...configDefaults.exclude, "**/*.pg.test.ts"],
           testTimeout: 20000,
           hookTimeout: 30000,
         },

@@ -64,7 +64,8 @@ export async function openDatabase(options: DatabaseOptions): Promise<DataSource
         url: options.url,
         entities,
         migrations,
-        migrationsRun: true,
+        // Run below, under a lock: several app servers may start at once on one database.
+        migrationsRun: false,
         migrationsTransactionMode: "each",
         synchronize: false,
         logging: false,
@@ -77,7 +78,35 @@ export async function openDatabase(options: DatabaseOptions): Promise<DataSource
     : sqliteDataSource(options.path);
   usePortableTypes(dataSource);
   await dataSource.initialize();
+  if (options.url !== undefined) {
+    try {
+      await migrateUnderLock(dataSource);
+    } catch (error) {
+      await dataSource.destroy();
+      throw error;
+    }
+  }
   return dataSource;
+}
+
+/** Any fixed number: the key of the PostgreSQL advisory lock held while migrating. */
+const MIGRATION_LOCK = 7_311_004_213;
+
+/**
+ * Runs pending migrations while holding a session advisory lock, so that when several app
+ * servers start together on one PostgreSQL database one migrates and the others wait, then
+ * find nothing left to do.
+ */
+async function migrateUnderLock(dataSource: DataSource): Promise<void> {
+  const runner = dataSource.createQueryRunner();
+  await runner.connect();
+  try {
+    await runner.query(`SELECT pg_advisory_lock(${MIGRATION_LOCK})`);
+    await dataSource.runMigrations({ transaction: "each" });
+  } finally {
+    await runner.query(`SELECT pg_advisory_unlock(${MIGRATION_LOCK})`).catch(() => undefined);
+    await runner.release();
+  }
 }
 
 function sqliteDataSource(path: string): DataSource {

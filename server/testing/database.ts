@@ -67,8 +67,9 @@ export async function adminQuery(adminUrl: string, sql: string): Promise<void> {
   }
 }
 
-/** A fresh, migrated, empty database of the project's kind. */
-export async function createTestDatabase(): Promise<TestDatabase> {
+/** A fresh database of the project's kind: migrated and without rows (or, with `empty`, without
+ * tables: PostgreSQL only; a new SQLite file always starts empty). */
+export async function createTestDatabase(options: { empty?: boolean } = {}): Promise<TestDatabase> {
   if (testDatabaseKind() === "sqlite") {
     const dir = mkdtempSync(join(tmpdir(), "spreadsight-db-"));
     return {
@@ -81,7 +82,13 @@ export async function createTestDatabase(): Promise<TestDatabase> {
   }
   const { adminUrl, template } = await pgSettings();
   const name = `spreadsight_test_${randomBytes(6).toString("hex")}`;
-  await adminQuery(adminUrl, `CREATE DATABASE "${name}" TEMPLATE "${template}"`);
+  // `empty`: no tables at all, so the caller's first openDatabase runs every migration.
+  await adminQuery(
+    adminUrl,
+    options.empty
+      ? `CREATE DATABASE "${name}"`
+      : `CREATE DATABASE "${name}" TEMPLATE "${template}"`,
+  );
   return {
     kind: "postgres",
     options: { url: withDatabase(adminUrl, name) },
