@@ -4,6 +4,8 @@ import { MAX_LAYERS, MAX_MODELS } from "@engine";
 import { Button } from "@/components/button";
 import { unitLabel, type UnitSystem } from "@/lib/units";
 import { emptyLayer, type PlanForm } from "../../lib/plan-form";
+import { SectionModelButtons } from "../section/section-model-buttons";
+import { SectionEditor } from "../section/section-editor";
 import { useDesignerSlots } from "../../designer-slots";
 import { AnchorCommentsChip } from "./anchor-comments";
 import { CellInput } from "./cell-input";
@@ -76,13 +78,33 @@ export function GroundModelsPanel({
             + Copy as new model
           </Button>
         ) : null}
+        {!readOnly ? (
+          <SectionModelButtons
+            current={current}
+            units={units}
+            full={models.fields.length >= MAX_MODELS}
+            onAdd={(model) => {
+              models.append(model);
+              onSelect(models.fields.length);
+            }}
+          />
+        ) : null}
       </div>
-      <ModelEditor
-        key={models.fields[current]?.id}
-        index={current}
-        units={units}
-        readOnly={readOnly}
-      />
+      {getValues(`models.${current}.section`) ? (
+        <SectionEditor
+          key={models.fields[current]?.id}
+          index={current}
+          units={units}
+          readOnly={readOnly}
+        />
+      ) : (
+        <ModelEditor
+          key={models.fields[current]?.id}
+          index={current}
+          units={units}
+          readOnly={readOnly}
+        />
+      )}
       {!readOnly && models.fields.length > 1 ? (
         <div className="mt-3 flex justify-end">
           <Button

@@ -9,6 +9,8 @@ import { VerdictBadge } from "../verdict-badge";
 import { ArrivalsPanel } from "./arrivals-panel";
 import { SectionPanel } from "./section-panel";
 import { ResolvabilityPanel } from "./resolvability-panel";
+import { isSectionAnalysis } from "@engine";
+import { SectionAnswers } from "../section/section-answers";
 
 type Tab = "arrivals" | "section" | "resolvability";
 const TABS: Array<{ tab: Tab; label: string }> = [
@@ -151,7 +153,19 @@ export function ResultsPanel({
           ) : null}
         </div>
 
-        {tab === "arrivals" ? (
+        {isSectionAnalysis(model) ? (
+          <ErrorBoundary title="The section answers failed to draw">
+            <SectionAnswers
+              plan={plan}
+              analysis={model}
+              modelIndex={modelIndex}
+              shotIndex={shot}
+              units={units}
+              tab={tab}
+            />
+          </ErrorBoundary>
+        ) : null}
+        {isSectionAnalysis(model) ? null : tab === "arrivals" ? (
           <ErrorBoundary title="The Arrivals chart failed to draw">
             <ArrivalsPanel
               plan={plan}
@@ -162,12 +176,12 @@ export function ResultsPanel({
             />
           </ErrorBoundary>
         ) : null}
-        {tab === "section" ? (
+        {!isSectionAnalysis(model) && tab === "section" ? (
           <ErrorBoundary title="The Section failed to draw">
             <SectionPanel plan={plan} modelIndex={modelIndex} shotIndex={shot} units={units} />
           </ErrorBoundary>
         ) : null}
-        {tab === "resolvability" ? (
+        {!isSectionAnalysis(model) && tab === "resolvability" ? (
           <ErrorBoundary title="The Resolvability table failed to draw">
             <ResolvabilityPanel
               plan={plan}

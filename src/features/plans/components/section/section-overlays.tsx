@@ -1,0 +1,187 @@
+import { chartMono, palette } from "@/lib/chart/palette";
+import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
+import type { SectionInterpretation, SectionRay } from "@engine";
+import type { InterfaceCoverage } from "@engine";
+import type { SectionDraft } from "../../lib/plan-form";
+import { interpretationMarks, rayPaths, stretchMarks } from "../../lib/section-answers";
+import type { Borehole } from "../../lib/section-import";
+import { lineAt, type SectionView } from "../../lib/section-view";
+
+/** Boreholes drawn as vertical logs where they stand, a tick at each logged base. */
+export function BoreholeLogs({
+  view,
+  boreholes,
+  surface,
+  units,
+}: {
+  view: SectionView;
+  boreholes: Borehole[];
+  surface: [number, number][];
+  units: UnitSystem;
+}) {
+  return (
+    <g aria-label="Boreholes">
+      {boreholes.map((b) => {
+        const ground = lineAt(surface, b.position);
+        const px = view.x(b.position);
+        const depths = b.depths.filter((d): d is number => d !== null);
+        const bottom = view.y(ground - Math.max(0, ...depths));
+        return (
+          <g key={b.name}>
+            <rect
+              x={px - 3}
+              y={view.y(ground)}
+              width={6}
+              height={Math.max(2, bottom - view.y(ground))}
+              fill={palette.card}
+              stroke={palette.inkDeep}
+              strokeWidth={1}
+            />
+            {depths.map((d, i) => (
+              <line
+                key={i}
+                x1={px - 6}
+                x2={px + 6}
+                y1={view.y(ground - d)}
+                y2={view.y(ground - d)}
+                stroke={palette.inkDeep}
+                strokeWidth={1.5}
+              />
+            ))}
+            <text x={px + 7} y={bottom + 10} fontSize={10} fill={palette.inkDeep}>
+              {b.name}
+            </text>
+            <title>{`${b.name} at ${formatQuantity("length", b.position, units)}`}</title>
+          </g>
+        );
+      })}
+    </g>
+  );
+}
+
+/** First-arrival rays of one shot. */
+export function RayOverlay({ view, rays }: { view: SectionView; rays: SectionRay[] }) {
+  return (
+    <g aria-label="First-arrival ray paths" fill="none" pointerEvents="none">
+      {rayPaths(view, rays).map((r) => (
+        <path key={r.geophone} d={r.path} stroke={r.colour} strokeWidth={0.9} opacity={0.75} />
+      ))}
+    </g>
+  );
+}
+
+/** The stretches of each interface sampled by head waves, one row per shot branch. */
+export function StretchOverlay({
+  view,
+  section,
+  coverage,
+}: {
+  view: SectionView;
+  section: SectionDraft;
+  coverage: InterfaceCoverage[];
+}) {
+  const marks = stretchMarks(view, section, coverage);
+  return (
+    <g aria-label="Stretches sampled by head waves" pointerEvents="none">
+      {marks.map((m, i) => (
+        <g key={i}>
+          <path
+            d={m.path}
+            fill="none"
+            stroke={palette.card}
+            strokeWidth={5.5}
+            strokeLinecap="butt"
+            opacity={0.8}
+          />
+          <path
+            d={m.path}
+            fill="none"
+            stroke={m.colour}
+            strokeWidth={3.5}
+            strokeDasharray={m.dash}
+            strokeLinecap="butt"
+          />
+          {m.label && m.row === 0 ? (
+            <text
+              x={m.label.x}
+              y={m.label.y}
+              textAnchor="middle"
+              fontSize={10}
+              fontFamily={chartMono}
+              fontWeight={600}
+              fill={m.colour}
+              stroke={palette.card}
+              strokeWidth={2.5}
+              paintOrder="stroke"
+            >
+              {m.label.text}
+            </text>
+          ) : null}
+        </g>
+      ))}
+    </g>
+  );
+}
+
+/** The interfaces a crew would interpret, dashed over the true ones, and the worst point. */
+export function InterpretationOverlay({
+  view,
+  interpretation,
+  units,
+}: {
+  view: SectionView;
+  interpretation: SectionInterpretation;
+  units: UnitSystem;
+}) {
+  const { lines, worst } = interpretationMarks(view, interpretation);
+  return (
+    <g aria-label="Interpreted interfaces" pointerEvents="none">
+      {lines.map((l) => (
+        <g key={l.layer}>
+          <path
+            d={l.path}
+            fill="none"
+            stroke={palette.inkDeep}
+            strokeWidth={1.6}
+            strokeDasharray="5 4"
+          />
+          {l.points.map((p, i) => (
+            <circle
+              key={i}
+              cx={p.px}
+              cy={p.py}
+              r={3}
+              fill={palette.card}
+              stroke={palette.inkDeep}
+              strokeWidth={1.2}
+            />
+          ))}
+        </g>
+      ))}
+      {worst ? (
+        <g>
+          <circle
+            cx={worst.px}
+            cy={worst.py}
+            r={7}
+            fill="none"
+            stroke={palette.brick}
+            strokeWidth={2}
+          />
+          <text
+            x={worst.px + 10}
+            y={worst.py - 8}
+            fontSize={11}
+            fontWeight={600}
+            fill={palette.brick}
+            stroke={palette.card}
+            strokeWidth={3}
+            paintOrder="stroke"
+          >
+            {`worst ${formatSigned("length", worst.error, units)}`}
+          </text>
+        </g>
+      ) : null}
+    </g>
+  );
+}

@@ -1,0 +1,210 @@
+/**
+ * The answers on a section as drawing data (pure, d3 scales only): the stretches of each
+ * interface sampled by head waves, offset under the interface one row per shot branch and
+ * coloured by verdict; the first-arrival rays of a shot; the interfaces a crew would
+ * interpret; and the arrivals of one shot as time against position.
+ */
+import { scaleLinear } from "d3-scale";
+import { arrivalColour, palette } from "@/lib/chart/palette";
+import { toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
+import type {
+  CoverageStretch,
+  InterfaceCoverage,
+  SectionInterpretation,
+  SectionRay,
+  SectionShotArrivals,
+  Status,
+} from "@engine";
+import type { SectionDraft } from "./plan-form";
+import { clipLine, type SectionView } from "./section-view";
+
+/** Colour and dash of a verdict on the section (colour is never the only cue: dashes too). */
+export const STRETCH_STYLE: Record<Status, { colour: string; dash: string | undefined }> = {
+  resolved: { colour: palette.moss, dash: undefined },
+  "under-sampled": { colour: palette.ochre, dash: "6 3" },
+  blind: { colour: palette.brick, dash: "2 3" },
+  inverted: { colour: palette.brick, dash: "8 3 2 3" },
+};
+
+export interface StretchMark {
+  layer: number;
+  stretch: CoverageStretch;
+  path: string;
+  colour: string;
+  dash: string | undefined;
+  /** Where to write the geophone count, or null when the stretch is too short on screen. */
+  label: { x: number; y: number; text: string } | null;
+  /** Branch row under the interface (0 nearest). */
+  row: number;
+}
+
+/** Side word of a branch. */
+export const sideWord = (side: string | null) =>
+  side === "forward" ? "forward" : side === "reverse" ? "reverse" : "";
+
+/**
+ * Each stretch drawn along its interface between `from` and `to`, 5 px under it per branch
+ * row (one row per shot branch, in the order they come), blind and inverted stretches on
+ * the interface itself.
+ */
+export function stretchMarks(
+  view: SectionView,
+  section: SectionDraft,
+  coverage: InterfaceCoverage[],
+): StretchMark[] {
+  const out: StretchMark[] = [];
+  for (const c of coverage) {
+    const base = section.layers[c.layer - 2]?.base;
+    if (!base) continue;
+    const rows = new Map<string, number>();
+    for (const s of c.stretches) {
+      const key = s.shot === null ? "none" : `${s.shot}:${s.side}`;
+      if (!rows.has(key)) rows.set(key, s.shot === null ? -1 : rows.size);
+      const row = rows.get(key) as number;
+      const from = Math.max(view.from, Math.min(s.from, s.to));
+      const to = Math.min(view.to, Math.max(s.from, s.to));
+      if (!(to >= from)) continue;
+      const pts = clipLine(base, from, to);
+      const dy = row < 0 ? 0 : 5 + row * 5;
+      const path = pts
+        .map(
+          ([x, z], i) =>
+            `${i === 0 ? "M" : "L"}${view.x(x).toFixed(1)},${(view.y(z) + dy).toFixed(1)}`,
+        )
+        .join("");
+      const style = STRETCH_STYLE[s.status];
+      const wide = view.x(to) - view.x(from) >= 22;
+      const mid = (from + to) / 2;
+      const midZ = clipLine(base, mid, mid)[0][1];
+      out.push({
+        layer: c.layer,
+        stretch: s,
+        path,
+        colour: style.colour,
+        dash: style.dash,
+        row,
+        label:
+          wide && s.shot !== null
+            ? { x: view.x(mid), y: view.y(midZ) + dy + 12, text: String(s.geophones) }
+            : null,
+      });
+    }
+  }
+  return out;
+}
+
+/** First-arrival ray paths as SVG paths, coloured by the layer they travelled along. */
+export function rayPaths(view: SectionView, rays: SectionRay[]) {
+  return rays
+    .filter((r) => r.points.length >= 4)
+    .map((r) => {
+      let d = "";
+      for (let i = 0; i < r.points.length; i += 2)
+        d += `${i === 0 ? "M" : "L"}${view.x(r.points[i]).toFixed(1)},${view.y(r.points[i + 1]).toFixed(1)}`;
+      return { geophone: r.geophone, via: r.via, path: d, colour: arrivalColour(r.via) };
+    });
+}
+
+/** Interpreted interfaces as dashed lines and the worst point. */
+export function interpretationMarks(view: SectionView, interpretation: SectionInterpretation) {
+  const lines = interpretation.interfaces.map((f) => {
+    const pts = [...f.points].sort((a, b) => a.position - b.position);
+    return {
+      layer: f.layer,
+      path: pts
+        .map(
+          (p, i) =>
+            `${i === 0 ? "M" : "L"}${view.x(p.position).toFixed(1)},${view.y(p.elevation).toFixed(1)}`,
+        )
+        .join(""),
+      points: pts.map((p) => ({ px: view.x(p.position), py: view.y(p.elevation), point: p })),
+    };
+  });
+  const w = interpretation.worst;
+  let worst = null;
+  if (w) {
+    const f = interpretation.interfaces.find((i) => i.layer === w.layer);
+    const p = f?.points.find((q) => q.position === w.position && q.error === w.error);
+    if (p) worst = { px: view.x(p.position), py: view.y(p.elevation), ...w };
+  }
+  return { lines, worst };
+}
+
+export interface ArrivalsPlot {
+  width: number;
+  height: number;
+  margin: { top: number; right: number; bottom: number; left: number };
+  xTicks: Array<{ px: number; label: string }>;
+  yTicks: Array<{ px: number; label: string }>;
+  xLabel: string;
+  yLabel: string;
+  shotX: number;
+  /** Straight pieces between neighbouring geophones of the same arrival and side of the shot. */
+  segments: Array<{ path: string; colour: string }>;
+  points: Array<{
+    px: number;
+    py: number;
+    colour: string;
+    via: number;
+    position: number;
+    time: number;
+  }>;
+}
+
+/** The first arrivals of one shot on the section, time (ms) against position. */
+export function arrivalsPlot(
+  shot: SectionShotArrivals,
+  width: number,
+  units: UnitSystem,
+): ArrivalsPlot {
+  const margin = { top: 16, right: 18, bottom: 42, left: 58 };
+  const height = 300;
+  const xs = [shot.position, ...shot.geophones.map((g) => g.position)];
+  const times = shot.geophones.map((g) => g.time ?? 0);
+  const x = scaleLinear()
+    .domain([Math.min(...xs), Math.max(...xs)])
+    .range([margin.left, width - margin.right]);
+  const tMax = Math.max(1e-3, ...times) * 1.08;
+  const y = scaleLinear()
+    .domain([0, tMax])
+    .range([height - margin.bottom, margin.top]);
+  const perUnit = toDisplay("length", 1, units);
+  const xTicks = scaleLinear()
+    .domain(x.domain().map((v) => v * perUnit))
+    .ticks(8)
+    .map((v) => ({ px: x(v / perUnit), label: String(v) }));
+  const yTicks = scaleLinear()
+    .domain([0, tMax * 1000])
+    .ticks(6)
+    .map((v) => ({ px: y(v / 1000), label: String(v) }));
+  const points = shot.geophones
+    .filter((g) => g.time !== null)
+    .map((g) => ({
+      px: x(g.position),
+      py: y(g.time as number),
+      colour: arrivalColour(g.via),
+      via: g.via,
+      position: g.position,
+      time: g.time as number,
+    }));
+  const segments: ArrivalsPlot["segments"] = [];
+  for (let i = 1; i < points.length; i++) {
+    const a = points[i - 1];
+    const b = points[i];
+    const sameSide = (a.position - shot.position) * (b.position - shot.position) > 0;
+    if (a.via === b.via && sameSide)
+      segments.push({ path: `M${a.px},${a.py}L${b.px},${b.py}`, colour: a.colour });
+  }
+  return {
+    width,
+    height,
+    margin,
+    xTicks,
+    yTicks,
+    xLabel: `Geophone position (${unitLabel("length", units)})`,
+    yLabel: "First arrival (ms)",
+    shotX: x(shot.position),
+    segments,
+    points,
+  };
+}
