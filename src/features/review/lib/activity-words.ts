@@ -44,7 +44,9 @@ export function describeAction(action: string): string {
   return target ? `${target}: ${words}` : words;
 }
 
-const SHOWN = ["name", "revision", "message", "note", "email", "role"];
+const SHOWN = ["name", "fileName", "revision", "message", "note", "email", "role"];
+/** How a detail key reads. */
+const KEY_WORDS: Record<string, string> = { fileName: "file" };
 
 const isStatus = (value: unknown): value is PlanStatus =>
   typeof value === "string" && (PLAN_STATUSES as readonly string[]).includes(value);
@@ -70,7 +72,7 @@ export function describeDetail(detail: Record<string, unknown> | null): string {
     if (value === undefined || value === null || value === "") continue;
     if (typeof value === "object") continue;
     const text = String(value);
-    parts.push(`${key}: ${text.length > 140 ? `${text.slice(0, 139)}…` : text}`);
+    parts.push(`${KEY_WORDS[key] ?? key}: ${text.length > 140 ? `${text.slice(0, 139)}…` : text}`);
   }
   return parts.join(" · ");
 }

@@ -116,6 +116,12 @@ describe("team trail helpers", () => {
     ]);
   });
 
+  it("names the file of an upload in the plan's activity", () => {
+    expect(
+      describeDetail({ attachment: "a1", kind: "seg2", fileName: "shot-12.sg2", revision: 2 }),
+    ).toBe("file: shot-12.sg2 · revision: 2");
+  });
+
   it("sorts actions into kinds a reader filters by", () => {
     expect(activityKind("attachment.upload")).toBe("files");
     expect(activityKind("picks.save")).toBe("files");
