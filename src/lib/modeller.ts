@@ -89,6 +89,8 @@ export interface Modeller {
   ): Promise<SectionSweepResult>;
   /** Stop the workers; pending requests reject as cancelled. */
   dispose(): void;
+  /** Start the quick worker now (it loads while the page fetches its data); no-op without one. */
+  warm(): void;
 }
 
 /** Something that behaves like a module Worker (real, or a test double). */
@@ -339,6 +341,9 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
           : local((e) => e.firstArrivalRayPath(model, shotPosition, geophonePosition)),
       ),
     sweep,
+    warm: () => {
+      if (factory) quickApi();
+    },
     cancelSweep: () => stopSweep?.("cancelled"),
     dispose() {
       stopSweep?.("cancelled");

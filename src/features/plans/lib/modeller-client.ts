@@ -26,6 +26,11 @@ export function privateModeller(): { client: ModellerClient; dispose: () => void
   return { client: own, dispose: () => own.dispose() };
 }
 
+/** Start the shared modeller's worker early (the designer does so while the plan loads). */
+export function warmModeller(): void {
+  if (!override) getModeller().warm();
+}
+
 /** Substitute the modeller (tests); null restores the real one. */
 export function setModeller(next: ModellerClient | null): void {
   override = next;

@@ -1,6 +1,7 @@
 import { useMemo, useState } from "react";
 import { type UnitSystem } from "@/lib/units";
 import { useElementWidth } from "@/hooks/use-element-width";
+import { useLateFlag } from "../../hooks/use-late-flag";
 import { useLatestResult } from "../../hooks/use-latest-result";
 import { layeredModel, type Plan, type PlanAnalysis } from "../../lib/engine";
 import { modeller } from "../../lib/modeller-client";
@@ -87,7 +88,13 @@ export function ArrivalsPanel({
   const key = `${objectId(analysis)}:${modelIndex}:${shotIndex}:${domain.join(",")}:${reflections}`;
   const data = useLatestResult(request, key, computeChart);
   const shown = data.resultInput;
+  const stale = useLateFlag(!data.current, 200);
   const model = plan.models[modelIndex];
+  // A new array on every render would make the chart rebuild its paths on every render.
+  const layerNames = useMemo(
+    () => (shown ? shown.plan.models[shown.modelIndex].layers.map((l) => l.name) : []),
+    [shown],
+  );
 
   return (
     <div ref={ref} className="min-w-0">
@@ -124,13 +131,13 @@ export function ArrivalsPanel({
         <ArrivalsChart
           data={data.result}
           analysis={shown.analysis.models[shown.modelIndex]}
-          layerNames={shown.plan.models[shown.modelIndex].layers.map((l) => l.name)}
+          layerNames={layerNames}
           minGeophones={shown.plan.criteria.minGeophones}
           units={units}
           width={Math.max(320, width)}
           domain={shown.domain}
           showReflections={shown.reflections}
-          stale={!data.current}
+          stale={stale}
           title={`Arrivals, ${model.name}, shot ${shown.shotIndex + 1}`}
         />
       ) : null}

@@ -26,11 +26,14 @@ import { ResultsPanel } from "./results-panel";
 import { SweepView } from "./sweep-view";
 import { CompareView } from "./compare-view";
 import { AnchorCommentsScope } from "./anchor-comments";
+import { warmModeller } from "../../lib/modeller-client";
 
 /** The designer route: loads the plan, then hands it to the editor keyed by plan and units. */
 export function PlanDesignerPage() {
   const { planId = "" } = useParams();
   const plan = usePlan(planId);
+  // The modeller's worker starts loading while the plan is fetched.
+  useEffect(warmModeller, []);
   const { data: me } = useMe();
   if (plan.isPending) return <Loading label="Loading the plan…" />;
   if (plan.isError)

@@ -9,6 +9,7 @@ import { VerdictBadge } from "../verdict-badge";
 import { ArrivalsPanel } from "./arrivals-panel";
 import { SectionPanel } from "./section-panel";
 import { ResolvabilityPanel } from "./resolvability-panel";
+import { useLateFlag } from "../../hooks/use-late-flag";
 import { isSectionAnalysis } from "@engine";
 import { SectionAnswers } from "../section/section-answers";
 
@@ -43,6 +44,8 @@ export function ResultsPanel({
   const tab = (TABS.find((t) => t.tab === search.get("panel"))?.tab ?? "arrivals") as Tab;
   const [shotIndex, setShotIndex] = useState(0);
   const { result, resultInput: plan, current, pending, error } = analysis;
+  // Only an answer that takes a while is shown as "an earlier version" (no flicker per key).
+  const outdated = useLateFlag(!current, 200);
 
   if (!result || !plan) {
     return (
@@ -64,8 +67,8 @@ export function ResultsPanel({
 
   return (
     <Card className="min-w-0">
-      <div className={current ? "" : "opacity-70"}>
-        {!current ? (
+      <div className={outdated ? "opacity-70" : ""}>
+        {outdated ? (
           <div className="mb-3">
             <Notice tone="caution">
               {error
