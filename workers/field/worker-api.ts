@@ -5,11 +5,12 @@
 import { pickAic } from "./aic-picker";
 import { pickEnergyRatio } from "./energy-ratio-picker";
 import { pickOnset } from "./onset-picker";
+import { interpretPlanPicks } from "./plan-interpretation";
 import { pickRecord, pickTrace } from "./pick-record";
 import { readSeg2 } from "./seg2-reader";
 import { pickStaLta } from "./sta-lta-picker";
 
-/** SEG-2 reading and first-break picking offered by the field worker. */
+/** SEG-2 reading, first-break picking and the interpretation under the line offered by the field worker. */
 export const fieldApi = {
   readSeg2,
   pickRecord,
@@ -18,6 +19,7 @@ export const fieldApi = {
   pickAic,
   pickEnergyRatio,
   pickOnset,
+  interpretPlanPicks,
 };
 
 /** Type of the field worker's API (wrap it with comlink's Remote<>). */

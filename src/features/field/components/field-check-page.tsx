@@ -16,6 +16,7 @@ import { errorMessage } from "@/lib/api-client";
 import {
   modelFirstArrival,
   parsePicksCsv,
+  type PickQuality,
   type PickerChoice,
   type Seg2Record,
 } from "../../../../workers/field/index";
@@ -47,6 +48,7 @@ import {
   TimeDistanceChart,
 } from "./comparison-panel";
 import { ExportLinks } from "./export-links";
+import { InterpretationPanel } from "./interpretation-panel";
 import { RecordSection, recordSpan, type SectionView } from "./record-section";
 import { SegmentsPanel } from "./segments-panel";
 import { UploadPanel } from "./upload-panel";
@@ -64,6 +66,11 @@ export function fieldRights(plan: PlanDetail, me: MeResponse | null | undefined)
 
 /** Pickers offered, by key (the key is saved with the picks). */
 export const PICKERS: { key: string; label: string; choice: PickerChoice }[] = [
+  {
+    key: "onset",
+    label: "Onset above the noise, checked against neighbours (recommended)",
+    choice: { method: "onset" },
+  },
   {
     key: "sta-lta+aic",
     label: "STA/LTA refined by AIC (Allen 1978; Maeda 1985)",
@@ -137,6 +144,9 @@ function FieldCheck({
   const [picking, setPicking] = useState(false);
   const [selected, setSelected] = useState<number | null>(null);
   const [view, setView] = useState<SectionView | null>(null);
+  /** Quality word of the automatic picks, by "shot|geophone" (positions in m). */
+  const [qualities, setQualities] = useState<Map<string, PickQuality>>(new Map());
+  const units = me?.preferences.units ?? "metric";
   const save = useSavePicks(plan.id);
   const remove = useDeleteAttachment(plan.id);
   const addModel = useAddCandidateModel(plan);
@@ -267,8 +277,21 @@ function FieldCheck({
         receiverPosition: t.receiverPosition,
         sourcePosition: t.sourcePosition,
       }));
-      const choice = (PICKERS.find((p) => p.key === picker) ?? PICKERS[0]).choice;
+      const chosen = (PICKERS.find((p) => p.key === picker) ?? PICKERS[0]).choice;
+      // The onset picker searches around the best-fitting model's arrivals when there is one.
+      const choice: PickerChoice =
+        chosen.method === "onset" && modelled
+          ? { method: "onset", options: { predicted: modelled } }
+          : chosen;
       const result = await fieldWorker().pickRecord(traces, choice);
+      setQualities((q) => {
+        const next = new Map(q);
+        result.forEach((r, i) => {
+          const place = placements[i];
+          next.set(`${place.sourcePosition}|${place.receiverPosition}`, r.quality);
+        });
+        return next;
+      });
       const incoming: FirstBreakPick[] = [];
       const missed: string[] = [];
       result.forEach((r, i) => {
@@ -283,9 +306,10 @@ function FieldCheck({
           });
       });
       setDraft((d) => mergePicks(d ?? savedPicks, incoming));
+      const weak = result.filter((r) => r.quality === "weak").length;
       setNotice({
-        tone: missed.length ? "caution" : "success",
-        text: `${incoming.length} of ${result.length} traces picked automatically.${missed.length ? ` No pick on ${missed.join("; ")}.` : ""} Click a trace to adjust its pick.`,
+        tone: missed.length || weak ? "caution" : "success",
+        text: `${incoming.length} of ${result.length} traces picked automatically${weak ? `, ${weak} of them weak (faint or off their neighbours' trend: check them)` : ""}.${missed.length ? ` No pick on ${missed.join("; ")}.` : ""} Click a trace to adjust its pick.`,
       });
     } catch (error) {
       setNotice({ tone: "caution", text: `Automatic picking failed: ${errorMessage(error)}` });
@@ -478,6 +502,9 @@ function FieldCheck({
               record={open.record}
               placements={placements}
               picks={picks}
+              quality={placements.map(
+                (p) => qualities.get(`${p.sourcePosition}|${p.receiverPosition}`) ?? null,
+              )}
               modelled={modelled}
               modelName={shownCandidate?.name ?? null}
               view={view}
@@ -584,6 +611,26 @@ function FieldCheck({
           )}
         </Card>
       </ErrorBoundary>
+
+      {picks.length > 0 ? (
+        <ErrorBoundary title="The interpretation under the line failed">
+          <Card>
+            <h2 className="mb-1 text-lg font-semibold text-ink-deep">Under the line</h2>
+            <p className="mb-3 text-sm text-ink-soft">
+              Reversed shots interpreted geophone by geophone: each refractor's depth and elevation
+              under every geophone with its uncertainty, and its velocity along the line. Assign the
+              picks to refractors, choose the method and the datum.
+            </p>
+            <InterpretationPanel
+              picks={picks}
+              models={doc.models}
+              candidates={candidates}
+              pickError={doc.criteria.pickError}
+              units={units}
+            />
+          </Card>
+        </ErrorBoundary>
+      ) : null}
 
       {picks.length > 0 ? (
         <ErrorBoundary title="The segment reading failed">

@@ -1,7 +1,7 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import type { FirstBreakPick } from "@/contracts/field";
 import { palette, chartFont } from "@/lib/chart/palette";
-import type { Seg2Record } from "../../../../workers/field/index";
+import type { PickQuality, Seg2Record } from "../../../../workers/field/index";
 import { useElementWidth } from "@/hooks/use-element-width";
 import { metres, ms } from "../lib/format";
 import { findPick, type TracePlacement } from "../lib/picks";
@@ -62,6 +62,7 @@ function draw(
   modelled: (number | null)[] | null,
   view: SectionView,
   hover: number | null,
+  quality: readonly (PickQuality | null)[] | null,
 ) {
   const dpr = window.devicePixelRatio || 1;
   canvas.width = Math.round(layout.width * dpr);
@@ -172,19 +173,43 @@ function draw(
     ctx.setLineDash([]);
   }
 
-  // Picks.
+  // Picks; an automatic pick's quality: weak ones dashed with a ring, none marked × at the top.
   placements.forEach((p, i) => {
     const pick = findPick(picks, p.sourcePosition, p.receiverPosition);
-    if (!pick) return;
+    const q = quality?.[i] ?? null;
     const x = layout.traceX(i);
+    if (!pick) {
+      if (q === "none") {
+        const y = margins.top + 8;
+        ctx.strokeStyle = palette.brick;
+        ctx.lineWidth = 2;
+        ctx.beginPath();
+        ctx.moveTo(x - 4, y - 4);
+        ctx.lineTo(x + 4, y + 4);
+        ctx.moveTo(x + 4, y - 4);
+        ctx.lineTo(x - 4, y + 4);
+        ctx.stroke();
+      }
+      return;
+    }
     const y = layout.timeY(pick.time);
     const half = Math.max(3, Math.min(10, layout.spacing * 0.42));
     ctx.strokeStyle = PICK_COLOURS[pick.origin];
     ctx.lineWidth = 2.5;
+    const weak = q === "weak" && pick.origin === "auto";
+    if (weak) ctx.setLineDash([3, 2]);
     ctx.beginPath();
     ctx.moveTo(x - half, y);
     ctx.lineTo(x + half, y);
     ctx.stroke();
+    ctx.setLineDash([]);
+    if (weak) {
+      ctx.strokeStyle = palette.ochre;
+      ctx.lineWidth = 1.5;
+      ctx.beginPath();
+      ctx.arc(x, y, half + 2, 0, 2 * Math.PI);
+      ctx.stroke();
+    }
     if (pick.origin === "adjusted") {
       ctx.fillStyle = PICK_COLOURS.adjusted;
       ctx.beginPath();
@@ -213,10 +238,13 @@ export function RecordSection({
   onViewChange,
   onAdjust,
   editable,
+  quality = null,
 }: {
   record: Seg2Record;
   placements: TracePlacement[];
   picks: readonly FirstBreakPick[];
+  /** Quality word of each trace's automatic pick (null where unknown). */
+  quality?: readonly (PickQuality | null)[] | null;
   /** Modelled first arrival per trace, s (null where none). */
   modelled: (number | null)[] | null;
   modelName: string | null;
@@ -250,9 +278,10 @@ export function RecordSection({
         modelled,
         view,
         hover?.trace ?? null,
+        quality,
       );
     }
-  }, [layout, record, placements, picks, modelled, view, hover?.trace]);
+  }, [layout, record, placements, picks, modelled, view, hover?.trace, quality]);
 
   const span = recordSpan(record);
   const target = (event: React.MouseEvent<HTMLCanvasElement>) => {
@@ -299,7 +328,11 @@ export function RecordSection({
       <p className="mt-1 h-5 font-mono text-xs text-ink-soft" aria-live="polite">
         {hover && hovered
           ? `channel ${record.traces[hover.trace].channel ?? hover.trace + 1} · geophone ${metres(hovered.receiverPosition)} · ${ms(hover.time, 2)}` +
-            (hoveredPick ? ` · pick ${ms(hoveredPick.time, 2)} (${hoveredPick.origin})` : "") +
+            (hoveredPick
+              ? ` · pick ${ms(hoveredPick.time, 2)} (${hoveredPick.origin}${quality?.[hover.trace] && hoveredPick.origin === "auto" ? `, ${quality[hover.trace]}` : ""})`
+              : quality?.[hover.trace] === "none"
+                ? " · no automatic pick"
+                : "") +
             (modelled && modelled[hover.trace] !== null
               ? ` · ${modelName ?? "model"} ${ms(modelled[hover.trace], 2)}`
               : "")

@@ -6,8 +6,12 @@
 import * as Comlink from "comlink";
 import {
   fieldApi,
+  type ObservedPick,
   type PickerChoice,
   type PickableTrace,
+  type PlanForInterpretation,
+  type PlanInterpretation,
+  type PlanInterpretationOptions,
   type RecordPick,
   type Seg2Record,
 } from "../../../../workers/field/index";
@@ -17,6 +21,12 @@ export interface FieldWorker {
   readSeg2(bytes: ArrayBuffer): Promise<Seg2Record>;
   /** Picks every trace with the chosen picker. */
   pickRecord(traces: PickableTrace[], picker: PickerChoice): Promise<RecordPick[]>;
+  /** Interprets the picks under the line (the same function as the `interpret` command). */
+  interpret(
+    plan: PlanForInterpretation,
+    picks: ObservedPick[],
+    options: PlanInterpretationOptions,
+  ): Promise<PlanInterpretation>;
 }
 
 type Remote = Comlink.Remote<typeof fieldApi>;
@@ -27,6 +37,9 @@ const direct: FieldWorker = {
   },
   async pickRecord(traces, picker) {
     return fieldApi.pickRecord({ traces }, picker);
+  },
+  async interpret(plan, picks, options) {
+    return fieldApi.interpretPlanPicks(plan, picks, options);
   },
 };
 
@@ -47,6 +60,7 @@ function create(): FieldWorker {
   return {
     readSeg2: (bytes) => remote.readSeg2(Comlink.transfer(bytes, [bytes])),
     pickRecord: (traces, picker) => remote.pickRecord({ traces }, picker),
+    interpret: (plan, picks, options) => remote.interpretPlanPicks(plan, picks, options),
   };
 }
 

@@ -1,0 +1,425 @@
+/**
+ * "Under the line": the reversed-profile interpretation of the picks (plus-minus, delay times
+ * or the generalized reciprocal method) run in the field worker by the same function as the
+ * `interpret` command. The user chooses the method and the datum, may load station elevations,
+ * and assigns picks to refractors by segment (suggested by the best-fitting candidate). Shows
+ * the interpreted interfaces on a section over the candidate models, a table per geophone, the
+ * misfit of each candidate and the reciprocal-time checks, in the user's units.
+ */
+import { useEffect, useMemo, useState } from "react";
+import type { FirstBreakPick } from "@/contracts/field";
+import { Button } from "@/components/button";
+import { Notice } from "@/components/feedback";
+import { errorMessage } from "@/lib/api-client";
+import { formatQuantity, fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
+import {
+  LINE_METHODS,
+  parseElevationCsv,
+  type ElevationPoint,
+  type LayerAssignment,
+  type LineMethod,
+  type PlanInterpretation,
+} from "../../../../workers/field/index";
+import type { Candidate } from "../lib/comparison";
+import { fieldWorker } from "../lib/field-worker";
+import { InterpretedSection } from "./interpreted-section";
+
+const length = (v: number | null | undefined, units: UnitSystem, digits?: number) =>
+  formatQuantity("length", v, units, digits);
+
+/** The interpretation card of the Field check. */
+export function InterpretationPanel({
+  picks,
+  models,
+  candidates,
+  pickError,
+  units,
+}: {
+  picks: readonly FirstBreakPick[];
+  /** The plan's models as stored (layered and section). */
+  models: readonly unknown[];
+  candidates: readonly Candidate[];
+  pickError: number;
+  units: UnitSystem;
+}) {
+  const [method, setMethod] = useState<LineMethod>("plus-minus");
+  const [datumText, setDatumText] = useState("");
+  const [elevations, setElevations] = useState<ElevationPoint[] | null>(null);
+  const [elevationNote, setElevationNote] = useState<string | null>(null);
+  const [assignments, setAssignments] = useState<LayerAssignment[] | null>(null);
+  const [result, setResult] = useState<PlanInterpretation | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [running, setRunning] = useState(false);
+
+  const datum = datumText.trim() === "" ? null : Number(datumText.replace(",", "."));
+  const datumBad = datum !== null && !Number.isFinite(datum);
+  const observed = useMemo(
+    () =>
+      picks.map((p) => ({
+        sourcePosition: p.sourcePosition,
+        receiverPosition: p.receiverPosition,
+        time: p.time,
+      })),
+    [picks],
+  );
+
+  useEffect(() => {
+    if (datumBad || observed.length === 0) return;
+    let live = true;
+    setRunning(true);
+    fieldWorker()
+      .interpret({ models: [...models], criteria: { pickError } }, observed, {
+        method,
+        assignments,
+        elevations,
+        datum: datum === null ? null : fromDisplay("length", datum, units),
+      })
+      .then((r) => {
+        if (!live) return;
+        setResult(r);
+        setError(null);
+      })
+      .catch((e: unknown) => {
+        if (!live) return;
+        setResult(null);
+        setError(errorMessage(e));
+      })
+      .finally(() => live && setRunning(false));
+    return () => {
+      live = false;
+    };
+  }, [observed, models, pickError, method, assignments, elevations, datum, datumBad, units]);
+
+  const shown = assignments ?? result?.assignments ?? [];
+  const maxLayer = Math.max(2, ...candidates.map((c) => c.model.layers.length));
+  const editAssignment = (i: number, patch: Partial<LayerAssignment>) => {
+    const next = shown.map((a, k) => (k === i ? { ...a, ...patch } : a));
+    setAssignments(next);
+  };
+
+  const loadElevations = async (file: File | undefined) => {
+    if (!file) return;
+    const read = parseElevationCsv(await file.text());
+    if (!read.ok) {
+      setElevationNote(`${file.name}: ${read.errors.map((e) => e.message).join("; ")}`);
+      return;
+    }
+    setElevations(read.points);
+    setElevationNote(`${read.points.length} station elevations from ${file.name}.`);
+  };
+
+  const unitL = unitLabel("length", units);
+  return (
+    <div className="flex flex-col gap-4">
+      <div className="flex flex-wrap items-end gap-4 text-sm">
+        <label className="flex flex-col gap-1">
+          <span className="font-medium text-ink">Method</span>
+          <select
+            className="field-input py-1"
+            value={method}
+            onChange={(e) => setMethod(e.target.value as LineMethod)}
+          >
+            {(Object.keys(LINE_METHODS) as LineMethod[]).map((m) => (
+              <option key={m} value={m}>
+                {LINE_METHODS[m]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex flex-col gap-1">
+          <span className="font-medium text-ink">Datum elevation ({unitL})</span>
+          <input
+            className="field-input w-32 py-1"
+            inputMode="decimal"
+            placeholder="lowest station"
+            value={datumText}
+            aria-invalid={datumBad}
+            onChange={(e) => setDatumText(e.target.value)}
+          />
+        </label>
+        <label className="flex flex-col gap-1">
+          <span className="font-medium text-ink">
+            Station elevations (CSV: position_m, elevation_m)
+          </span>
+          <input
+            type="file"
+            accept=".csv,.txt"
+            className="text-sm"
+            onChange={(e) => void loadElevations(e.target.files?.[0])}
+          />
+        </label>
+        {elevations ? (
+          <Button variant="quiet" onClick={() => setElevations(null)}>
+            Use the plan's surface
+          </Button>
+        ) : null}
+      </div>
+      {datumBad ? <Notice tone="caution">The datum must be a number of {unitL}.</Notice> : null}
+      {elevationNote ? <p className="text-xs text-ink-soft">{elevationNote}</p> : null}
+
+      <div>
+        <h3 className="mb-1 text-sm font-semibold text-ink">Picks assigned to refractors</h3>
+        <p className="mb-2 text-xs text-ink-soft">
+          {assignments
+            ? "Your assignment. "
+            : result?.suggestedFrom
+              ? `Suggested by “${result.suggestedFrom}”, the best-fitting candidate. `
+              : ""}
+          Layer 1 is the direct wave; layer 2 the head wave along the top of layer 2, and so on.
+          Geophones between “from” and “to” of a shot belong to that layer.
+        </p>
+        <div className="overflow-x-auto">
+          <table className="text-sm">
+            <caption className="sr-only">Segments assigned to refractors</caption>
+            <thead>
+              <tr className="text-left text-ink-soft">
+                <th className="pr-4 font-medium">Shot ({unitL})</th>
+                <th className="pr-4 font-medium">From ({unitL})</th>
+                <th className="pr-4 font-medium">To ({unitL})</th>
+                <th className="pr-4 font-medium">Layer</th>
+              </tr>
+            </thead>
+            <tbody>
+              {shown.map((a, i) => (
+                <tr key={`${a.shot}-${a.from}-${i}`}>
+                  <td className="pr-4 font-mono">{length(a.shot, units, 2)}</td>
+                  {(["from", "to"] as const).map((key) => (
+                    <td key={key} className="pr-4">
+                      <input
+                        className="field-input w-24 py-0.5 font-mono"
+                        aria-label={`Segment ${i + 1} ${key}`}
+                        defaultValue={String(Number(toDisplay("length", a[key], units).toFixed(2)))}
+                        onBlur={(e) => {
+                          const v = Number(e.target.value.replace(",", "."));
+                          if (Number.isFinite(v)) {
+                            editAssignment(i, { [key]: fromDisplay("length", v, units) });
+                          }
+                        }}
+                      />
+                    </td>
+                  ))}
+                  <td className="pr-4">
+                    <select
+                      className="field-input py-0.5"
+                      aria-label={`Segment ${i + 1} layer`}
+                      value={a.layer}
+                      onChange={(e) => editAssignment(i, { layer: Number(e.target.value) })}
+                    >
+                      {Array.from({ length: maxLayer }, (_, k) => k + 1).map((l) => (
+                        <option key={l} value={l}>
+                          {l === 1 ? "1 (direct wave)" : `${l}`}
+                        </option>
+                      ))}
+                    </select>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+        {assignments ? (
+          <Button variant="quiet" onClick={() => setAssignments(null)}>
+            Back to the suggestion
+          </Button>
+        ) : null}
+      </div>
+
+      {running && !result ? <p className="text-sm text-ink-soft">Interpreting…</p> : null}
+      {error ? <Notice tone="caution">{error}</Notice> : null}
+      {result ? (
+        <InterpretationResult result={result} candidates={candidates} units={units} />
+      ) : null}
+    </div>
+  );
+}
+
+function InterpretationResult({
+  result,
+  candidates,
+  units,
+}: {
+  result: PlanInterpretation;
+  candidates: readonly Candidate[];
+  units: UnitSystem;
+}) {
+  const r = result.result;
+  const positions = [
+    ...new Set(r.refractors.flatMap((ref) => ref.depth.map((d) => d.position))),
+  ].sort((a, b) => a - b);
+  const at = (layer: number, x: number) =>
+    r.refractors
+      .find((ref) => ref.layer === layer)
+      ?.depth.find((d) => Math.abs(d.position - x) < 0.001);
+  const velocityAt = (layer: number, x: number) =>
+    r.refractors
+      .find((ref) => ref.layer === layer)
+      ?.velocity.find((v) => Math.abs(v.position - x) < 0.001)?.value;
+  return (
+    <div className="flex flex-col gap-4">
+      <p className="text-sm text-ink-soft">
+        Top layer {formatQuantity("velocity", r.topVelocity, units, 0)} (direct wave); datum{" "}
+        {length(r.datum, units, 2)}; elevations{" "}
+        {result.elevationSource === "csv"
+          ? "from your CSV"
+          : result.elevationSource === "plan"
+            ? "from the plan's section surface"
+            : "flat (no elevations given)"}
+        . Depths are below the ground; ± is one standard error from the plan's pick error.
+      </p>
+      {r.notes.map((n) => (
+        <Notice key={n} tone="caution">
+          {n}
+        </Notice>
+      ))}
+      {r.refractors.flatMap((ref) =>
+        ref.notes.map((n) => (
+          <p key={`${ref.layer}-${n}`} className="text-xs text-ink-soft">
+            Layer {ref.layer}: {n}
+          </p>
+        )),
+      )}
+      {r.refractors.length > 0 ? (
+        <InterpretedSection result={result} candidates={candidates} units={units} />
+      ) : null}
+
+      {r.refractors.length > 0 ? (
+        <div className="overflow-x-auto">
+          <table className="w-full text-sm">
+            <caption className="mb-1 text-left text-sm font-semibold text-ink">
+              Under every geophone
+            </caption>
+            <thead>
+              <tr className="text-left text-ink-soft">
+                <th className="pr-3 font-medium">Geophone</th>
+                {r.refractors.map((ref) => (
+                  <th key={ref.layer} className="pr-3 font-medium" colSpan={3}>
+                    Top of layer {ref.layer} ({LINE_METHODS[ref.method]})
+                  </th>
+                ))}
+              </tr>
+              <tr className="text-left text-xs text-ink-soft">
+                <th />
+                {r.refractors.map((ref) => [
+                  <th key={`${ref.layer}d`} className="pr-3 font-normal">
+                    depth ± σ
+                  </th>,
+                  <th key={`${ref.layer}e`} className="pr-3 font-normal">
+                    elevation
+                  </th>,
+                  <th key={`${ref.layer}v`} className="pr-3 font-normal">
+                    velocity
+                  </th>,
+                ])}
+              </tr>
+            </thead>
+            <tbody className="font-mono">
+              {positions.map((x) => (
+                <tr key={x}>
+                  <td className="pr-3">{length(x, units, 1)}</td>
+                  {r.refractors.map((ref) => {
+                    const d = at(ref.layer, x);
+                    return [
+                      <td key={`${ref.layer}d`} className="pr-3">
+                        {d
+                          ? `${length(d.depth, units, 2)} ± ${formatQuantity("length", d.sigma, units, 2)}${d.phantom ? " *" : ""}`
+                          : "—"}
+                      </td>,
+                      <td key={`${ref.layer}e`} className="pr-3">
+                        {d ? length(d.elevation, units, 2) : "—"}
+                      </td>,
+                      <td key={`${ref.layer}v`} className="pr-3">
+                        {formatQuantity("velocity", velocityAt(ref.layer, x), units, 0)}
+                      </td>,
+                    ];
+                  })}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          {r.refractors.some((ref) => ref.depth.some((d) => d.phantom)) ? (
+            <p className="mt-1 text-xs text-ink-soft">
+              * phantomed: a time from a farther shot on the same side, shifted onto this shot's
+              branch.
+            </p>
+          ) : null}
+        </div>
+      ) : null}
+
+      {result.misfits.length > 0 && r.refractors.length > 0 ? (
+        <table className="text-sm">
+          <caption className="mb-1 text-left text-sm font-semibold text-ink">
+            Interpreted depths against each candidate (RMS difference)
+          </caption>
+          <thead>
+            <tr className="text-left text-ink-soft">
+              <th className="pr-4 font-medium">Candidate</th>
+              {r.refractors.map((ref) => (
+                <th key={ref.layer} className="pr-4 font-medium">
+                  Top of layer {ref.layer}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {result.misfits.map((m) => (
+              <tr key={m.name}>
+                <td className="pr-4">{m.name}</td>
+                {r.refractors.map((ref) => (
+                  <td key={ref.layer} className="pr-4 font-mono">
+                    {length(m.layers.find((l) => l.layer === ref.layer)?.rms ?? null, units, 2)}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ) : null}
+
+      <table className="text-sm">
+        <caption className="mb-1 text-left text-sm font-semibold text-ink">
+          Reciprocal times (each pair of shots)
+        </caption>
+        <thead>
+          <tr className="text-left text-ink-soft">
+            <th className="pr-4 font-medium">Shots</th>
+            <th className="pr-4 font-medium">A at B</th>
+            <th className="pr-4 font-medium">B at A</th>
+            <th className="pr-4 font-medium">Difference</th>
+            <th className="pr-4 font-medium">Check</th>
+          </tr>
+        </thead>
+        <tbody>
+          {r.reciprocal.length === 0 ? (
+            <tr>
+              <td colSpan={5} className="text-ink-soft">
+                No pair of shots records the other's position.
+              </td>
+            </tr>
+          ) : (
+            r.reciprocal.map((c) => (
+              <tr key={`${c.shots[0]}-${c.shots[1]}`}>
+                <td className="pr-4 font-mono">
+                  {length(c.shots[0], units, 1)} ↔ {length(c.shots[1], units, 1)}
+                </td>
+                <td className="pr-4 font-mono">{formatQuantity("time", c.forward, units, 2)}</td>
+                <td className="pr-4 font-mono">{formatQuantity("time", c.reverse, units, 2)}</td>
+                <td className="pr-4 font-mono">{formatQuantity("time", c.difference, units, 2)}</td>
+                <td className={`pr-4 ${c.agrees ? "text-moss" : "font-semibold text-brick"}`}>
+                  {c.agrees
+                    ? "agree"
+                    : `differ by more than ${formatQuantity("time", c.tolerance, units, 1)}: check the picks, shot positions or trigger`}
+                  {c.extrapolated ? " (extended beyond the picks)" : ""}
+                </td>
+              </tr>
+            ))
+          )}
+        </tbody>
+      </table>
+      <p className="text-xs text-ink-soft">
+        Allowed difference: the larger of 2 ms and three times the error of a difference of two
+        picks (a few milliseconds is common practice). An interpretation is a model, not ground
+        truth: boreholes and a qualified geophysicist's review decide.
+      </p>
+    </div>
+  );
+}
