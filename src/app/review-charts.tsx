@@ -1,9 +1,13 @@
 import { useState } from "react";
-import type { Plan } from "@engine";
+import { isSectionAnalysis, type Plan } from "@engine";
 import type { UnitSystem } from "@/lib/units";
 import { ArrivalsPanel } from "@/features/plans/components/designer/arrivals-panel";
 import { ChartState } from "@/features/plans/components/charts/arrivals-chart";
 import { usePlanAnalysis } from "@/features/plans/hooks/use-plan-analysis";
+import {
+  SectionArrivalsChart,
+  SectionReadOnly,
+} from "@/features/plans/components/section/section-answers";
 import { ReviewPage, ReviewSlotsProvider, type ReviewSlots } from "@/features/review";
 
 /**
@@ -50,7 +54,26 @@ export function ReviewCharts({ document, units }: { document: Plan; units: UnitS
         </label>
       </div>
       <ChartState pending={analysis.pending && !analysis.result} error={analysis.error} />
-      {analysis.result && analysis.current ? (
+      {analysis.result && analysis.current && isSectionAnalysis(analysis.result.models[model]) ? (
+        <>
+          <SectionArrivalsChart
+            analysis={analysis.result.models[model]}
+            shotIndex={shot}
+            units={units}
+            title={`Arrivals, ${document.models[model].name}, shot ${shot + 1}`}
+            layerNames={document.models[model].layers.map((l, i) => l.name || `layer ${i + 1}`)}
+          />
+          <h3 className="mt-2 text-sm font-semibold text-ink-deep">
+            Section: stretches sampled by head waves (read-only)
+          </h3>
+          <SectionReadOnly
+            plan={document}
+            analysis={analysis.result.models[model]}
+            modelIndex={model}
+            units={units}
+          />
+        </>
+      ) : analysis.result && analysis.current ? (
         <ArrivalsPanel
           plan={document}
           analysis={analysis.result}
