@@ -9,6 +9,7 @@
  * dipping model. Aims (issue 3): under 0.5 ms and under 2 s.
  * Then bench/engine.ts (issue 11): the analysis against the engine's first-arrival core on
  * the same case (aim ≤ 10×) and its growth with the layer count (aim: exponent ≤ 2).
+ * Then bench/db.ts (issue 13): plan GET and save p50/p99 on SQLite and PostgreSQL.
  */
 import { Bench } from "tinybench";
 import {
@@ -19,7 +20,9 @@ import {
   type Plan,
   type SweepSpec,
 } from "../workers/engine";
+import { runDbBench } from "./db";
 import { runEngineBench } from "./engine";
+import { runSectionBench } from "./section";
 
 function plan(input: unknown): Plan {
   const r = parsePlan(input);
@@ -110,3 +113,5 @@ console.log(
     `200 × 200 sweep ${grid.toFixed(0)} ms (< 2000 ms: ${grid < 2000 ? "met" : "NOT met"})`,
 );
 await runEngineBench((p) => analyzePlan(p));
+await runSectionBench();
+await runDbBench();

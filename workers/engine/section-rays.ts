@@ -77,17 +77,20 @@ function interpolatedTime(grid: SectionGrid, T: Float64Array, x: number, z: numb
   return best;
 }
 
-/** Gradient of the time field at a point (s/m per axis: ∂T/∂x, ∂T/∂z with z up). */
+/**
+ * Gradient of the time field at a point (s/m per axis: ∂T/∂x, ∂T/∂z with z up) written into
+ * `out`; false where the cell (and the one below) has no time at every corner.
+ */
 function gradientAt(
   grid: SectionGrid,
   T: Float64Array,
   x: number,
   z: number,
-): [number, number] | null {
+  out: Float64Array,
+): boolean {
   const { nx, nz, h, x0, zTop } = grid;
-  const cell = cellOf(grid, x, z);
-  const i = cell.i;
-  let j = cell.j;
+  const i = Math.min(nx - 2, Math.max(0, Math.floor((x - x0) / h + 1e-9)));
+  let j = Math.min(nz - 2, Math.max(0, Math.floor((zTop - z) / h + 1e-9)));
   for (let attempt = 0; attempt < 2; attempt++) {
     const t00 = T[j * nx + i];
     const t10 = T[j * nx + i + 1];
@@ -96,15 +99,15 @@ function gradientAt(
     if (Number.isFinite(t00 + t10 + t01 + t11)) {
       const fx = Math.min(1, Math.max(0, (x - (x0 + i * h)) / h));
       const fz = Math.min(1, Math.max(0, (zTop - j * h - z) / h));
-      const gx = ((t10 - t00) * (1 - fz) + (t11 - t01) * fz) / h;
+      out[0] = ((t10 - t00) * (1 - fz) + (t11 - t01) * fz) / h;
       // row index grows downwards: ∂T/∂z(up) = −∂T/∂row / h
-      const gz = -((t01 - t00) * (1 - fx) + (t11 - t10) * fx) / h;
-      return [gx, gz];
+      out[1] = -((t01 - t00) * (1 - fx) + (t11 - t10) * fx) / h;
+      return true;
     }
     if (j + 2 < nz) j += 1;
     else break;
   }
-  return null;
+  return false;
 }
 
 /**
@@ -119,28 +122,39 @@ export function traceRay(
   x: number,
   z: number,
 ): Float64Array {
-  const pts: number[] = [x, z];
   const step = grid.h * 0.75;
   const near = 2 * grid.h;
   const maxSteps = 8 * (grid.nx + grid.nz);
+  let pts = new Float64Array(256);
+  let n = 0;
+  const push = (a: number, b: number) => {
+    if (n + 2 > pts.length) {
+      const bigger = new Float64Array(pts.length * 2);
+      bigger.set(pts);
+      pts = bigger;
+    }
+    pts[n++] = a;
+    pts[n++] = b;
+  };
+  const g = new Float64Array(2);
+  push(x, z);
   let px = x;
   let pz = z;
   for (let k = 0; k < maxSteps; k++) {
     const d = Math.hypot(px - source.x, pz - source.z);
     if (d <= near) break;
-    const g = gradientAt(grid, T, px, pz);
-    if (!g) break;
+    if (!gradientAt(grid, T, px, pz, g)) break;
     const norm = Math.hypot(g[0], g[1]);
     if (!(norm > 0)) break;
     px -= (step * g[0]) / norm;
     pz -= (step * g[1]) / norm;
-    pts.push(px, pz);
+    push(px, pz);
   }
-  pts.push(source.x, source.z);
-  const out = new Float64Array(pts.length);
-  for (let k = 0; k < pts.length; k += 2) {
-    out[k] = pts[pts.length - 2 - k];
-    out[k + 1] = pts[pts.length - 1 - k];
+  push(source.x, source.z);
+  const out = new Float64Array(n);
+  for (let k = 0; k < n; k += 2) {
+    out[k] = pts[n - 2 - k];
+    out[k + 1] = pts[n - 1 - k];
   }
   return out;
 }
