@@ -401,7 +401,10 @@ function reviewHistory(w: ReportWriter, input: PlanReportInput): void {
       "ok",
     );
   } else {
-    w.callout(`This plan has not been signed off for mobilisation (status: ${input.plan.status}).`, "caution");
+    w.callout(
+      `This plan has not been signed off for mobilisation (status: ${input.plan.status}).`,
+      "caution",
+    );
   }
   w.subheading("Review");
   if (input.review.length === 0) w.paragraph("No review steps recorded.", { color: ink.soft });

@@ -154,7 +154,10 @@ describe("team review in the browser", () => {
     const { page } = lead;
     await waitForUnread(page, leadUnread + 2);
     await page.getByRole("link", { name: /^Inbox/ }).click();
-    await unreadNotice(page, `${REVIEWER_NAME} mentioned you in a review note on “${PLAN}”`).waitFor();
+    await unreadNotice(
+      page,
+      `${REVIEWER_NAME} mentioned you in a review note on “${PLAN}”`,
+    ).waitFor();
     const decision = unreadNotice(page, `${REVIEWER_NAME} returned with notes “${PLAN}”`);
     await decision.waitFor();
     await screenshot(page, "review-lead-inbox");
@@ -197,7 +200,10 @@ describe("team review in the browser", () => {
     await screenshot(page, "review-lead-history-diff");
 
     await page.getByRole("tab", { name: "Activity" }).click();
-    await page.getByRole("list", { name: "Activity" }).getByText("returned the plan to the lead with notes").waitFor();
+    await page
+      .getByRole("list", { name: "Activity" })
+      .getByText("returned the plan to the lead with notes")
+      .waitFor();
     expect(await page.getByRole("link", { name: "Download CSV" }).getAttribute("href")).toBe(
       `/api/plans/${planId}/activity.csv`,
     );
@@ -228,7 +234,10 @@ describe("team review in the browser", () => {
     // Still unread: the mention; new: the approval.
     await waitForUnread(lp, leadUnread + 2);
     await lp.getByRole("link", { name: /^Inbox/ }).click();
-    await unreadNotice(lp, `${REVIEWER_NAME} signed off for mobilisation “${PLAN}” (revision 2)`).click();
+    await unreadNotice(
+      lp,
+      `${REVIEWER_NAME} signed off for mobilisation “${PLAN}” (revision 2)`,
+    ).click();
     await lp.getByRole("heading", { name: `Review: ${PLAN}` }).waitFor();
     await statusBadge(lp, "Signed off").waitFor();
     await lp.getByRole("button", { name: "Start a new revision" }).waitFor();

@@ -257,7 +257,9 @@ describe("ImportPlanButton", () => {
       screen.getByLabelText("Import plan (JSON)"),
       new File(["{ not json"], "plan.json", { type: "application/json" }),
     );
-    expect(await screen.findByRole("alert")).toHaveTextContent("plan.json is not a plan JSON file: its text is not JSON");
+    expect(await screen.findByRole("alert")).toHaveTextContent(
+      "plan.json is not a plan JSON file: its text is not JSON",
+    );
     expect(calls).toHaveLength(0);
   });
 });

@@ -55,7 +55,11 @@ describe("DecisionPanel", () => {
     renderWithApp(
       <DecisionPanel plan={planDetail({ status: "in-review", permissions: noPermissions })} />,
     );
-    expect(screen.getByText(/A reviewer signs it off for mobilisation or returns it to the lead with notes/)).toBeInTheDocument();
+    expect(
+      screen.getByText(
+        /A reviewer signs it off for mobilisation or returns it to the lead with notes/,
+      ),
+    ).toBeInTheDocument();
   });
 
   it("tells the author of a sandbox scenario that it never goes to review, not that a lead submits it", () => {
