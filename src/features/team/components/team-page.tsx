@@ -122,7 +122,7 @@ export function TeamPage() {
                       <td className="py-2">
                         <select
                           aria-label={`Role of ${member.name}`}
-                          className="field-input py-1"
+                          className="field-input min-w-32 py-1"
                           value={
                             pendingRole?.userId === member.userId ? pendingRole.role : member.role
                           }
