@@ -76,10 +76,14 @@ describe("foundation in the browser", () => {
       .getByLabel("Ground conditions")
       .fill("Soft alluvium over gravel; rock expected at 12 to 20 m.");
     await page.getByRole("button", { name: "Create site" }).click();
-    await page.getByRole("link", { name: "Copperfield bypass embankment" }).waitFor();
-    await screenshot(page, "sites-created");
-    await page.getByRole("link", { name: "Copperfield bypass embankment" }).click();
+    // "Create site" opens the new site's plans (issue 14).
+    await page.getByRole("heading", { name: "Copperfield bypass embankment" }).waitFor();
+    expect(page.url()).toMatch(/\/sites\/[0-9a-f-]{36}$/);
     await page.getByText("Soft alluvium over gravel").waitFor();
+    await page.getByRole("heading", { name: "Plans" }).waitFor();
+    await screenshot(page, "sites-created");
+    await page.getByRole("link", { name: "Sites", exact: true }).first().click();
+    await page.getByRole("link", { name: "Copperfield bypass embankment" }).waitFor();
     await screenshot(page, "site-detail");
     await signOut(page);
   });
@@ -93,8 +97,9 @@ describe("foundation in the browser", () => {
     writeFileSync(bad, JSON.stringify({ name: "Broken", models: [], spread: { spacing: -1 } }));
     await page.getByLabel("Import plan (JSON)").setInputFiles(bad);
     await page.getByText("The plan was not imported").waitFor();
+    // Problems read as the screen counts, not as zod paths ("Spread: spacing …").
     await page
-      .getByText(/spread\.spacing/)
+      .getByText(/Spread: spacing/)
       .first()
       .waitFor();
     await page
