@@ -1,4 +1,11 @@
-import { useRef, useState, type KeyboardEvent, type PointerEvent, type ReactNode } from "react";
+import {
+  useEffect,
+  useRef,
+  useState,
+  type KeyboardEvent,
+  type PointerEvent,
+  type ReactNode,
+} from "react";
 import { chartFont, chartMono, palette } from "@/lib/chart/palette";
 import { formatQuantity, type UnitSystem } from "@/lib/units";
 import type { SectionView } from "../../lib/section-view";
@@ -44,6 +51,18 @@ export function SectionFigure({
   const svg = useRef<SVGSVGElement>(null);
   const [drag, setDrag] = useState<PointRef | null>(null);
   const { margin, width, height } = view;
+  // keyboard focus follows the selected point (e.g. one just added by a click on a line),
+  // unless the user is typing in a box
+  const selectedKey = editing?.selected
+    ? `${editing.selected.line}:${editing.selected.index}`
+    : null;
+  useEffect(() => {
+    if (!selectedKey || !svg.current) return;
+    const active = document.activeElement;
+    if (active && active !== document.body && !svg.current.contains(active)) return;
+    const handle = svg.current.querySelector<SVGGElement>(`[data-point="${selectedKey}"]`);
+    if (handle && handle !== active) handle.focus();
+  }, [selectedKey]);
   const bottom = height - margin.bottom;
   const right = width - margin.right;
 
