@@ -137,7 +137,10 @@ async function session(target: Target): Promise<Session> {
 interface Load {
   p50: number;
   p99: number;
+  /** Answered requests. */
   requests: number;
+  /** Requests sent (an answer that never came within the phase counts here, not above). */
+  sent: number;
   errors: number;
 }
 
@@ -161,6 +164,7 @@ function cannon(url: string, cookie: string, rate: number, seconds: number): Pro
           p50: result.latency.p50,
           p99: result.latency.p99,
           requests: result.requests.total,
+          sent: result.requests.sent,
           errors: result.errors + result.timeouts + result.non2xx,
         });
       },
@@ -333,9 +337,9 @@ function report(label: string, r: Results) {
       case: "A. GET plan @200/s during exports",
       p50_ms: f(r.a.reads.p50),
       p99_ms: f(r.a.reads.p99),
-      n: r.a.reads.requests,
+      n: `${r.a.reads.requests}/${r.a.reads.sent}`,
       errors: r.a.reads.errors,
-      aim: `p99 < 50, 0 errors: ${r.a.reads.p99 < 50 && r.a.reads.errors === 0 ? "met" : "NOT met"}`,
+      aim: `p99 < 50, 0 errors: ${r.a.reads.p99 < 50 && r.a.reads.errors === 0 && r.a.reads.requests >= r.a.reads.sent * 0.99 ? "met" : "NOT met"}`,
     },
     {
       case: "A. report.pdf (20 clients)",
@@ -349,17 +353,17 @@ function report(label: string, r: Results) {
       case: "C. /api/health @50/s during uploads",
       p50_ms: f(r.c.health.p50),
       p99_ms: f(r.c.health.p99),
-      n: r.c.health.requests,
+      n: `${r.c.health.requests}/${r.c.health.sent}`,
       errors: r.c.health.errors,
-      aim: `p99 < 100: ${r.c.health.p99 < 100 ? "met" : "NOT met"}`,
+      aim: `p99 < 100: ${r.c.health.p99 < 100 && r.c.health.requests >= r.c.health.sent * 0.99 ? "met" : "NOT met"}`,
     },
     {
       case: "C. GET plan @50/s during uploads",
       p50_ms: f(r.c.plan.p50),
       p99_ms: f(r.c.plan.p99),
-      n: r.c.plan.requests,
+      n: `${r.c.plan.requests}/${r.c.plan.sent}`,
       errors: r.c.plan.errors,
-      aim: `p99 < 100: ${r.c.plan.p99 < 100 ? "met" : "NOT met"}`,
+      aim: `p99 < 100: ${r.c.plan.p99 < 100 && r.c.plan.requests >= r.c.plan.sent * 0.99 ? "met" : "NOT met"}`,
     },
   ]);
   const growthB = r.b.rssEnd - r.b.rssEarly;
@@ -400,13 +404,37 @@ try {
 if (before) report(`before (${beforeDir}, tsx)`, before);
 report("after (build/server, compiled)", after);
 if (before) {
-  const ratio = (b: number, a: number) => (a > 0 ? `${(b / a).toFixed(1)}×` : "–");
-  console.log("\nbefore / after (higher is better for after):");
+  const ratio = (b: number, a: number) => (a > 0 && b > 0 ? `${(b / a).toFixed(1)}×` : "–");
+  const answered = (l: Load) => `${l.requests}/${l.sent}`;
+  console.log("\nbefore / after (a ratio above 1 means after is faster; answered/sent):");
   console.table([
-    { case: "A. GET plan p50", ratio: ratio(before.a.reads.p50, after.a.reads.p50) },
-    { case: "A. GET plan p99", ratio: ratio(before.a.reads.p99, after.a.reads.p99) },
-    { case: "A. report p50", ratio: ratio(before.a.exports.p50, after.a.exports.p50) },
-    { case: "C. health p99", ratio: ratio(before.c.health.p99, after.c.health.p99) },
-    { case: "C. GET plan p99", ratio: ratio(before.c.plan.p99, after.c.plan.p99) },
+    {
+      case: "A. GET plan p50 / p99",
+      p50: ratio(before.a.reads.p50, after.a.reads.p50),
+      p99: ratio(before.a.reads.p99, after.a.reads.p99),
+      before: answered(before.a.reads),
+      after: answered(after.a.reads),
+    },
+    {
+      case: "A. report p50 / p99",
+      p50: ratio(before.a.exports.p50, after.a.exports.p50),
+      p99: ratio(before.a.exports.p99, after.a.exports.p99),
+      before: before.a.exports.count,
+      after: after.a.exports.count,
+    },
+    {
+      case: "C. health p50 / p99",
+      p50: ratio(before.c.health.p50, after.c.health.p50),
+      p99: ratio(before.c.health.p99, after.c.health.p99),
+      before: answered(before.c.health),
+      after: answered(after.c.health),
+    },
+    {
+      case: "C. GET plan p50 / p99",
+      p50: ratio(before.c.plan.p50, after.c.plan.p50),
+      p99: ratio(before.c.plan.p99, after.c.plan.p99),
+      before: answered(before.c.plan),
+      after: answered(after.c.plan),
+    },
   ]);
 }
