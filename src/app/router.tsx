@@ -154,3 +154,20 @@ export const routes: RouteObject[] = [
 ];
 
 export const createRouter = () => createBrowserRouter(routes);
+
+/**
+ * Fetch the chunks of the likeliest next screens (sites list, designer) while the browser is
+ * idle after the first screen: they stay out of the first load yet are ready when clicked.
+ */
+export function prefetchLikelyScreens(): () => void {
+  const run = () => {
+    void import("@/features/sites/components/sites-page");
+    void import("./designer-route");
+  };
+  if (typeof window.requestIdleCallback === "function") {
+    const id = window.requestIdleCallback(run, { timeout: 3000 });
+    return () => window.cancelIdleCallback(id);
+  }
+  const timer = window.setTimeout(run, 1000);
+  return () => window.clearTimeout(timer);
+}
