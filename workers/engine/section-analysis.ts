@@ -76,6 +76,11 @@ function branchVerdict(
   let judged = true;
   if (layer > 0 && coverage && coverage.stretches.every((s) => s.status === "inverted")) {
     status = "inverted";
+  } else if (
+    ks.length === 0 &&
+    shot.between.some((e) => e.via === layer && b.geophones.includes(e.after))
+  ) {
+    status = "under-sampled"; // first between two geophones of the branch, on none
   } else if (ks.length === 0) {
     status = layer === 0 ? "under-sampled" : "blind";
     judged = layer > 0;

@@ -28,6 +28,13 @@ export interface SolvedShot {
   readonly to: Float64Array;
   /** Per geophone: the ray, interleaved x, elevation (empty at the shot). */
   readonly rays: Float64Array[];
+  /**
+   * Arrivals first between two neighbouring geophones but on neither: where the layers of
+   * two neighbours' arrivals differ by two or more, surface points between them are traced
+   * too; each entry is the geophone index before the point (by position), the layer
+   * (0-based) and the stretch travelled.
+   */
+  readonly between: { after: number; via: number; from: number; to: number }[];
 }
 
 /** A solved section: geometry, grid, geophones and every shot. */
@@ -134,7 +141,27 @@ export function solveShot(
     to[k] = c.to;
     rays.push(withRays ? ray : new Float64Array(0));
   }
-  return { shot, x, z, source, times, geophoneTimes, via, from, to, rays };
+  const between: SolvedShot["between"] = [];
+  for (let k = 0; k + 1 < n; k++) {
+    if (Math.abs(via[k + 1] - via[k]) < 2) continue;
+    const a = geophoneX[k];
+    const b = geophoneX[k + 1];
+    if ((a - x) * (b - x) < 0) continue; // the shot lies between them
+    const samples = Math.max(2, Math.min(16, Math.floor(Math.abs(b - a) / grid.h)));
+    const seen = new Set<number>();
+    for (let q = 1; q < samples; q++) {
+      const px = a + ((b - a) * q) / samples;
+      const ray = traceRay(grid, times, source, px, surfaceAt(g, px));
+      const c = classify(g.layerCount, tops, grid, ray, tol);
+      const lo = Math.min(via[k], via[k + 1]);
+      const hi = Math.max(via[k], via[k + 1]);
+      if (c.via > lo && c.via < hi && !seen.has(c.via)) {
+        seen.add(c.via);
+        between.push({ after: k, via: c.via, from: c.from, to: c.to });
+      }
+    }
+  }
+  return { shot, x, z, source, times, geophoneTimes, via, from, to, rays, between };
 }
 
 /** Geophone positions and elevations of a spread on a section. */

@@ -160,6 +160,24 @@ export function sectionCoverage(
         });
         criticalOffsets.push(Math.abs(gx[run.geophones[0]] - shot.x));
       }
+      // first between two geophones of the branch but on none: a segment holding no
+      // geophone, spanned by the branch (the layered under-sampled case with 0 geophones)
+      for (const e of shot.between) {
+        if (e.via !== m) continue;
+        const pos = b.geophones.indexOf(e.after);
+        const next = b.geophones.indexOf(e.after + 1);
+        if (pos < 0 || next < 0) continue;
+        stretches.push({
+          from: e.from,
+          to: e.to,
+          geophones: 0,
+          status: minGeophones > 0 ? "under-sampled" : "resolved",
+          shot: b.shot,
+          side: b.side,
+          judged: true,
+          geophonePositions: [],
+        });
+      }
     }
     const sampled = stretches.slice();
     const inverted = intervalsWhere(
