@@ -271,6 +271,22 @@ function InterpretationResult({
           {n}
         </Notice>
       ))}
+      <ul className="text-sm" aria-label="Refractor velocities">
+        {r.refractors.map((ref) => (
+          <li key={ref.layer}>
+            Top of layer {ref.layer}: {formatQuantity("velocity", ref.meanVelocity, units, 0)} ±{" "}
+            {formatQuantity("velocity", ref.meanVelocitySigma, units, 0)} over the whole stretch
+            between the shots at {length(ref.shots[0], units, 1)} and{" "}
+            {length(ref.shots[1], units, 1)}
+            {ref.xy
+              ? `; XY ${length(ref.xy.used, units, 1)} (two-layer estimate ${length(ref.xy.expected, units, 1)})`
+              : ""}
+            . The table's velocities come from{" "}
+            {ref.method === "grm" ? "the velocity analysis function" : "the minus times"} of five
+            neighbouring geophones and scatter more.
+          </li>
+        ))}
+      </ul>
       {r.refractors.flatMap((ref) =>
         ref.notes.map((n) => (
           <p key={`${ref.layer}-${n}`} className="text-xs text-ink-soft">
