@@ -44,11 +44,20 @@ const isKind = (value: unknown): value is AttachmentKind =>
  * multer's memory storage, but the file is refused (413) as soon as it outgrows its kind's
  * limit when the form's `kind` field came before the file (the client sends it first), and the
  * largest limit of any kind otherwise; the rest of the upload is then discarded unread.
+ *
+ * When the request declares its length, the file is written into one buffer of that size on a
+ * SharedArrayBuffer: no list of chunks joined at the end (which held the file twice), and the
+ * worker-thread pool reads the same memory instead of a copy.
  */
 const kindAwareMemory: multer.StorageEngine = {
   _handleFile(req, file, callback) {
     const kind = (req.body as Record<string, unknown> | undefined)?.kind;
     const limit = isKind(kind) ? ATTACHMENT_LIMITS[kind] : MAX_UPLOAD;
+    const declared = Number(req.headers["content-length"]);
+    let target: Buffer | null =
+      Number.isFinite(declared) && declared > 0
+        ? Buffer.from(new SharedArrayBuffer(Math.min(declared, limit + 1)))
+        : null;
     const chunks: Buffer[] = [];
     let size = 0;
     let finished = false;
@@ -59,21 +68,31 @@ const kindAwareMemory: multer.StorageEngine = {
     };
     file.stream.on("data", (chunk: Buffer) => {
       if (finished) return;
-      size += chunk.length;
-      if (size > limit) {
+      if (size + chunk.length > limit) {
         const what = isKind(kind)
           ? `a ${ATTACHMENT_KIND_LABELS[kind].toLowerCase()}`
           : "any upload";
         const message = `the file is larger than ${limit / (1024 * 1024)} MB, the most ${what} may be`;
         chunks.length = 0;
+        target = null;
         file.stream.resume();
         finish(new AppError(413, "file_too_large", message, { file: [message] }));
         return;
       }
-      chunks.push(chunk);
+      if (target && size + chunk.length <= target.length) chunk.copy(target, size);
+      else {
+        // No declared length (or a wrong one): keep the chunks and join them at the end.
+        if (target) chunks.push(target.subarray(0, size));
+        target = null;
+        chunks.push(chunk);
+      }
+      size += chunk.length;
     });
     file.stream.on("error", (error: Error) => finish(error));
-    file.stream.on("end", () => finish(null, { buffer: Buffer.concat(chunks, size), size }));
+    file.stream.on("end", () => {
+      const buffer = target ? target.subarray(0, size) : Buffer.concat(chunks, size);
+      finish(null, { buffer, size });
+    });
   },
   _removeFile(_req, file, callback) {
     (file as { buffer?: Buffer }).buffer = undefined;
