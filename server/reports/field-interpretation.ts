@@ -147,7 +147,7 @@ export function drawInterpretation(
         { header: "", width: 120 },
       ],
       data.reciprocal.map((c) => [
-        `${num(c.shots[0], 2)} ↔ ${num(c.shots[1], 2)}`,
+        `${num(c.shots[0], 2)} and ${num(c.shots[1], 2)}`,
         num(c.difference * 1000, 2),
         num(c.tolerance * 1000, 1),
         c.agrees ? "agree" : { text: "disagree: check picks", bold: true },
