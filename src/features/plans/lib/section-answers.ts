@@ -6,6 +6,13 @@
  */
 import { scaleLinear } from "d3-scale";
 import { arrivalColour, palette } from "@/lib/chart/palette";
+
+/**
+ * Ray colours on the section: the direct wave in soft ink, head waves in cool hues kept apart
+ * from the verdict colours (moss, ochre, brick) of the stretches drawn over them.
+ */
+const RAY_COLOURS = [palette.inkSoft, "#2f7d8c", "#6a4c7d", "#3a5f8f", "#5b3f2f", "#2e6b55"];
+export const rayColour = (via: number) => RAY_COLOURS[(Math.max(1, via) - 1) % RAY_COLOURS.length];
 import { toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type {
   CoverageStretch,
@@ -73,8 +80,9 @@ export function stretchMarks(
         )
         .join("");
       const style = STRETCH_STYLE[s.status];
-      const wide = view.x(to) - view.x(from) >= 22;
-      const mid = (from + to) / 2;
+      const wide = view.x(to) - view.x(from) >= 44;
+      // branch rows write their counts at different places along the stretch
+      const mid = from + (to - from) * [0.3, 0.7, 0.5, 0.15, 0.85][Math.max(0, row) % 5];
       const midZ = clipLine(base, mid, mid)[0][1];
       out.push({
         layer: c.layer,
@@ -85,7 +93,11 @@ export function stretchMarks(
         row,
         label:
           wide && s.shot !== null
-            ? { x: view.x(mid), y: view.y(midZ) + dy + 12, text: String(s.geophones) }
+            ? {
+                x: view.x(mid),
+                y: view.y(midZ) + dy + 13,
+                text: `S${s.shot + 1}${s.side === "forward" ? "→" : "←"} ${s.geophones}`,
+              }
             : null,
       });
     }
@@ -101,7 +113,7 @@ export function rayPaths(view: SectionView, rays: SectionRay[]) {
       let d = "";
       for (let i = 0; i < r.points.length; i += 2)
         d += `${i === 0 ? "M" : "L"}${view.x(r.points[i]).toFixed(1)},${view.y(r.points[i + 1]).toFixed(1)}`;
-      return { geophone: r.geophone, via: r.via, path: d, colour: arrivalColour(r.via) };
+      return { geophone: r.geophone, via: r.via, path: d, colour: rayColour(r.via) };
     });
 }
 

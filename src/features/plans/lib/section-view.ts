@@ -179,6 +179,8 @@ export function buildSectionView(input: SectionViewInput): SectionView {
     const vs = layer.velocityAt?.length
       ? `${fmtV(Math.min(...layer.velocityAt.map((p) => p[1])), units)}–${fmtV(Math.max(...layer.velocityAt.map((p) => p[1])), units)}`
       : fmtV(layer.velocity, units);
+    // about 6.6 px per character at 11–12 px (name and velocity), half of it each side
+    const half = ((layerName(section, k).length + vs.length + 7) * 6.6) / 2;
     return {
       layer: k + 1,
       name: layerName(section, k),
@@ -188,7 +190,10 @@ export function buildSectionView(input: SectionViewInput): SectionView {
       label:
         best.px >= 16
           ? {
-              x: Math.min(Math.max(x(best.at), margin.left + 70), margin.left + plotWidth - 70),
+              x: Math.min(
+                Math.max(x(best.at), margin.left + half + 6),
+                margin.left + plotWidth - half - 6,
+              ),
               y: best.mid + 4,
               colour: dark ? palette.card : palette.inkDeep,
             }

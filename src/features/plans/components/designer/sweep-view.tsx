@@ -21,6 +21,7 @@ import {
 } from "../../lib/sweep-plan";
 import { mayCreatePlan } from "../plans-list";
 import { VERDICT_LABELS } from "../verdict-badge";
+import { SectionSweep } from "../section/section-sweep";
 
 /** Most steps along either side of the grid (a 200 × 200 sweep takes about a second). */
 const MAX_STEPS = 200;
@@ -89,7 +90,12 @@ export function SweepView({
       </Card>
     );
   }
-  return <SweepEditor plan={plan} detail={detail} units={units} />;
+  return (
+    <>
+      <SweepEditor plan={plan} detail={detail} units={units} />
+      <SectionSweep plan={plan} units={units} />
+    </>
+  );
 }
 
 function SweepEditor({

@@ -9,7 +9,7 @@ import type { Plan } from "../../lib/engine";
 import { modeller } from "../../lib/modeller-client";
 import { objectId } from "../../lib/object-id";
 import type { SectionDraft } from "../../lib/plan-form";
-import { arrivalsPlot, sideWord, STRETCH_STYLE } from "../../lib/section-answers";
+import { arrivalsPlot, rayColour, sideWord, STRETCH_STYLE } from "../../lib/section-answers";
 import { buildSectionView } from "../../lib/section-view";
 import { VerdictBadge } from "../verdict-badge";
 import { SectionFigure } from "./section-figure";
@@ -182,7 +182,14 @@ function Legend() {
         />,
         "as a crew would interpret it",
       )}
-      <span>numbers: geophones on the stretch (nearest branch row)</span>
+      {item(
+        <line x1="1" x2="25" y1="5" y2="5" stroke={rayColour(2)} strokeWidth="1.2" />,
+        "first-arrival rays (grey: direct wave)",
+      )}
+      <span>
+        S1→ 40: geophones on the stretch for shot 1 shooting forward (one row per shot branch, under
+        the interface)
+      </span>
     </p>
   );
 }

@@ -324,8 +324,8 @@ export function SectionFigure({
         >
           {view.yLabel}
         </text>
-        <text x={right} y={margin.top - 8} textAnchor="end" fontSize={11} fill={palette.inkSoft}>
-          {view.exaggeration === 1 ? "true scale" : `vertical ×${view.exaggeration}`}
+        <text x={right} y={height - 6} textAnchor="end" fontSize={11} fill={palette.inkSoft}>
+          {view.exaggeration === 1 ? "true scale" : `vertical scale ×${view.exaggeration}`}
         </text>
       </svg>
       {caption ? <figcaption className="mt-1 text-xs text-ink-soft">{caption}</figcaption> : null}

@@ -101,7 +101,7 @@ export function StretchOverlay({
             strokeDasharray={m.dash}
             strokeLinecap="butt"
           />
-          {m.label && m.row === 0 ? (
+          {m.label ? (
             <text
               x={m.label.x}
               y={m.label.y}
