@@ -282,6 +282,10 @@ describe("Field check in the browser", () => {
       .waitFor();
     await page.getByRole("img", { name: /Interpreted section/ }).scrollIntoViewIfNeeded();
     await screenshot(page, "field-interpretation");
+    // The card alone, readable at full size.
+    await heading
+      .locator("xpath=..")
+      .screenshot({ path: path.join(screenshotDir, "field-interpretation-card.png") });
 
     // The generalized reciprocal method gives the same depths within the same tolerance.
     await page.getByLabel("Method").selectOption("grm");
