@@ -150,3 +150,32 @@ describe("analyze command (as run by npm)", () => {
     expect(r.stderr).toContain("spread.spacing: spacing must be > 0");
   });
 });
+
+describe("analyze command: shot positions", () => {
+  it("reports where anchored shots stand on the spread, keeping every other field", async () => {
+    const plan = {
+      models: [{ name: "m", layers: [{ velocity: 500, thickness: 5 }, { velocity: 2000 }] }],
+      spread: {
+        spacing: 3,
+        channels: 48,
+        firstGeophone: 0,
+        shots: [
+          { position: -1.5, label: "end A", anchor: { to: "start", offset: -1.5 } },
+          { position: 70.5, label: "end B", anchor: { to: "end", offset: 1.5 } },
+          { position: 30 },
+        ],
+      },
+    };
+    const { io, out } = fakeIo({ "p.json": JSON.stringify(plan) });
+    expect(await runAnalyzeCli(["p.json"], io)).toBe(0);
+    const a = JSON.parse(out.join(""));
+    // 48 geophones at 3 m end at 47 × 3 = 141 m (by hand); end B is 1.5 m beyond.
+    expect(a.shots).toEqual([
+      { position: -1.5, label: "end A", anchor: { to: "start", offset: -1.5 } },
+      { position: 142.5, label: "end B", anchor: { to: "end", offset: 1.5 } },
+      { position: 30 },
+    ]);
+    for (const field of ["format", "plan", "criteria", "worstStatus", "models", "recommendation"])
+      expect(a).toHaveProperty(field);
+  });
+});

@@ -50,6 +50,7 @@ import {
   judgedBranches,
   primaryBranch,
 } from "./verdicts";
+import { resolveShotPositions, type ShotAnchor } from "./shot-anchors";
 import { layoutOf } from "./validate";
 
 /** An offset interval, m; `to` is null when unbounded. */
@@ -254,6 +255,11 @@ export interface PlanAnalysis {
     channels: number;
     text: string;
   };
+  /**
+   * Every shot where it stands on this spread (m, resolved through shot-anchors.ts), with its
+   * label and anchor (absent = fixed), in the plan's order.
+   */
+  shots: Array<{ position: number; label?: string; anchor?: ShotAnchor }>;
 }
 
 /** Options of analyzePlan. */
@@ -717,7 +723,8 @@ export function analyzePlan(plan: Plan, options: AnalyzeOptions = {}): PlanAnaly
   let text =
     `Across ${models.length} ground model${models.length === 1 ? "" : "s"}: use ${spacingPart} and shot ` +
     `branches reaching ${fmt(spreadLength)} m offset (${channels} channels at ` +
-    `${fmt(maxSpacing ?? spread.spacing, 2)} m).`;
+    `${fmt(maxSpacing ?? spread.spacing, 2)} m span ` +
+    `${fmt((channels - 1) * (maxSpacing ?? spread.spacing))} m).`;
   if (hidden.length > 0) text += ` Not revealed by any spread: ${hidden.join("; ")}.`;
   return {
     format: "spreadsight-analysis/1",
@@ -726,5 +733,15 @@ export function analyzePlan(plan: Plan, options: AnalyzeOptions = {}): PlanAnaly
     worstStatus: worstStatus(models.map((m) => m.worstStatus)),
     models,
     recommendation: { maxSpacing, spreadLength, channels, text },
+    shots: resolvedShots(spread),
   };
+}
+
+function resolvedShots(spread: Plan["spread"]): PlanAnalysis["shots"] {
+  const positions = resolveShotPositions(spread.shots, spread);
+  return spread.shots.map((s, i) => ({
+    position: positions[i],
+    ...(s.label ? { label: s.label } : {}),
+    ...(s.anchor ? { anchor: { to: s.anchor.to, offset: s.anchor.offset } } : {}),
+  }));
 }

@@ -363,3 +363,23 @@ describe("maxSpacing and spreadLength", () => {
     );
   });
 });
+
+describe("spreadLengthFor: channel count", () => {
+  it("counts intervals: N channels at Δx span (N − 1)·Δx, at least the spread length (issue 14's 24 m at 5.14 m)", () => {
+    // By hand: 24 m / 5.14 m = 4.67 intervals → 5 intervals → 6 channels (5 × 5.14 = 25.7 m).
+    const r = spreadLengthFor(24 - 2 * 5.14, 5.14, 2);
+    expect(r.spreadLength).toBeCloseTo(24, 9);
+    expect(r.channels).toBe(6);
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0, max: 500, noNaN: true }),
+        fc.double({ min: 0.1, max: 20, noNaN: true }),
+        (c, dx) => {
+          const { spreadLength, channels } = spreadLengthFor(c, dx, 2);
+          expect((channels - 1) * dx).toBeGreaterThanOrEqual(spreadLength - 1e-6);
+          expect((channels - 2) * dx).toBeLessThan(spreadLength);
+        },
+      ),
+    );
+  });
+});

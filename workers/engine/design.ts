@@ -374,7 +374,8 @@ export function spreadLengthFor(
   minGeophones: number,
 ): { spreadLength: number; channels: number } {
   const spreadLength = crossover + minGeophones * spacing;
-  return { spreadLength, channels: Math.floor(spreadLength / spacing + 1e-9) + 1 };
+  // N channels at Δx span (N − 1)·Δx: enough intervals to reach the length from offset 0.
+  return { spreadLength, channels: Math.ceil(spreadLength / spacing - 1e-9) + 1 };
 }
 
 /** Other evidence to seek for a layer no spread can reveal (design.md). */

@@ -42,6 +42,17 @@ export {
 } from "./sweep";
 export { followShots } from "./follow-shots";
 export {
+  anchorAt,
+  anchorPoint,
+  defaultAnchor,
+  resolveShotPosition,
+  resolveShotPositions,
+  type AnchoredShot,
+  type ShotAnchor,
+  type ShotAnchorPoint,
+  type SpreadGeometry,
+} from "./shot-anchors";
+export {
   STATUSES,
   STATUS_CODE,
   CELL_INVALID,

@@ -15,6 +15,7 @@
  */
 import { z } from "zod";
 import { sectionIssues, sectionModelShape } from "./section-schema";
+import { resolveShotPositions } from "./shot-anchors";
 
 export const MAX_LAYERS = 12;
 export const MAX_MODELS = 8;
@@ -114,24 +115,47 @@ export const shotSchema = z.strictObject({
     .refine((v) => v >= 0 && v <= 100, "shot depth must be between 0 and 100 m")
     .optional(),
   label: z.string().trim().max(40).optional(),
+  /**
+   * Anchor to the spread (shot-anchors.ts): `offset` m from the spread's start, end or centre.
+   * An anchored shot follows every spread change and its `position` is recomputed on parse;
+   * a shot without an anchor is fixed (plans written before anchors keep their positions).
+   */
+  anchor: z
+    .strictObject({
+      to: z.enum(["start", "end", "centre"], {
+        error: 'shot anchor must be "start", "end" or "centre"',
+      }),
+      offset: finite("shot anchor offset").refine(
+        (v) => Math.abs(v) <= 1e6,
+        "shot anchor offset must be within 1000 km",
+      ),
+    })
+    .optional(),
 });
 
-export const spreadSchema = z.strictObject({
-  /** Geophone spacing, m. */
-  spacing: positive("spacing").refine((v) => v <= 500, "spacing must be at most 500 m"),
-  /** Number of geophones (channels). */
-  channels: z
-    .number({ error: "channels must be a number" })
-    .int("channels must be a whole number")
-    .min(1, "channels must be at least 1")
-    .max(MAX_CHANNELS, `channels must be at most ${MAX_CHANNELS}`),
-  /** Position of the first geophone along the line, m. */
-  firstGeophone: finite("first geophone position"),
-  shots: z
-    .array(shotSchema)
-    .min(1, "a spread needs at least one shot")
-    .max(MAX_SHOTS, `a spread has at most ${MAX_SHOTS} shots`),
-});
+export const spreadSchema = z
+  .strictObject({
+    /** Geophone spacing, m. */
+    spacing: positive("spacing").refine((v) => v <= 500, "spacing must be at most 500 m"),
+    /** Number of geophones (channels). */
+    channels: z
+      .number({ error: "channels must be a number" })
+      .int("channels must be a whole number")
+      .min(1, "channels must be at least 1")
+      .max(MAX_CHANNELS, `channels must be at most ${MAX_CHANNELS}`),
+    /** Position of the first geophone along the line, m. */
+    firstGeophone: finite("first geophone position"),
+    shots: z
+      .array(shotSchema)
+      .min(1, "a spread needs at least one shot")
+      .max(MAX_SHOTS, `a spread has at most ${MAX_SHOTS} shots`),
+  })
+  .transform((spread) => {
+    // Anchored shots stand where their anchor puts them on this spread (shot-anchors.ts).
+    if (!spread.shots.some((s) => s.anchor)) return spread;
+    const positions = resolveShotPositions(spread.shots, spread);
+    return { ...spread, shots: spread.shots.map((s, i) => ({ ...s, position: positions[i] })) };
+  });
 
 export const criteriaSchema = z.strictObject({
   /** Fewest geophones a refractor's first-arrival segment must hold to count as resolved. */

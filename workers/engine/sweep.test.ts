@@ -35,7 +35,10 @@ const base = plan({
     spacing: 2,
     channels: 24,
     firstGeophone: 0,
-    shots: [{ position: -1 }, { position: 47 }],
+    shots: [
+      { position: -1, anchor: { to: "start", offset: -1 } },
+      { position: 47, anchor: { to: "end", offset: 1 } },
+    ],
   },
   criteria: { minGeophones: 3 },
 });

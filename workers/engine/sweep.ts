@@ -11,6 +11,7 @@
 import { z } from "zod";
 import { layoutExtent, type Layout } from "./branches";
 import { followShots } from "./follow-shots";
+import { resolveShotPositions } from "./shot-anchors";
 import {
   earthFromModel,
   findInterfaceProblem,
@@ -80,9 +81,9 @@ export const sweepSpecSchema = z
  * A sweep request. `axis` varies spacing (m) or channels; give its values as `axisValues`
  * or as `min`/`max`/`steps` (evenly spaced; channel counts are rounded). `parameter.layer` is
  * the 1-based layer whose thickness (m, not the half-space) or velocity (m/s) varies from
- * `min` to `max` in `steps`. `shotLayout` "follow" (default) keeps shots before the spread
- * at their distance from the first geophone, shots after it at their distance from the last,
- * and interior shots at their fraction of the spread; "fixed" keeps shot positions.
+ * `min` to `max` in `steps`. `shotLayout` "follow" (default) moves anchored shots with
+ * the spread exactly as the designer does (shot-anchors.ts: start, end or centre plus offset)
+ * and keeps fixed shots where they are; "fixed" keeps every shot's position.
  */
 export type SweepSpec = z.input<typeof sweepSpecSchema>;
 
@@ -189,7 +190,11 @@ export function createSweepRunner(plan: Plan, specInput: SweepSpec): SweepRunner
       channels,
       firstGeophone: baseLayout.firstGeophone,
       shots: follow
-        ? followShots(baseLayout, spacing, channels)
+        ? resolveShotPositions(plan.spread.shots, {
+            spacing,
+            channels,
+            firstGeophone: baseLayout.firstGeophone,
+          })
         : Float64Array.from(baseLayout.shots),
     });
   }
