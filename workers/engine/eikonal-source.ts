@@ -19,8 +19,10 @@ export interface GridSource {
 
 /** Slowness of the cell holding a point (a point on a cell edge belongs to the cell below). */
 export function slownessAt(grid: SectionGrid, x: number, z: number): number {
-  const { i, j } = cellOf(grid, x, z);
-  return grid.slowness[j * (grid.nx - 1) + i];
+  const { nx, nz, h } = grid;
+  const i = Math.min(nx - 2, Math.max(0, Math.floor((x - grid.x0) / h + 1e-9)));
+  const j = Math.min(nz - 2, Math.max(0, Math.floor((grid.zTop - z) / h + 1e-9)));
+  return grid.slowness[j * (nx - 1) + i];
 }
 
 /**
