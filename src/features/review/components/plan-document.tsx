@@ -9,7 +9,15 @@ export function PlanDocumentView({ document, units }: { document: Plan; units: U
       <div className="grid gap-4 md:grid-cols-2">
         {document.models.map((model) => (
           <div key={model.name}>
-            <h3 className="mb-1 text-sm font-semibold text-ink-deep">{model.name}</h3>
+            <h3 className="mb-1 text-sm font-semibold text-ink-deep">
+              {model.name}
+              {model.kind === "section" ? (
+                <span className="font-normal text-ink-soft">
+                  {" "}
+                  · section, surface of {model.surface.length} points
+                </span>
+              ) : null}
+            </h3>
             <table className="w-full" aria-label={`Layers of ${model.name}`}>
               <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
                 <tr className="border-b border-rule">
@@ -20,7 +28,7 @@ export function PlanDocumentView({ document, units }: { document: Plan; units: U
                     Velocity
                   </th>
                   <th scope="col" className="py-1 text-right font-semibold">
-                    Thickness
+                    {model.kind === "section" ? "Base" : "Thickness"}
                   </th>
                 </tr>
               </thead>
@@ -40,9 +48,13 @@ export function PlanDocumentView({ document, units }: { document: Plan; units: U
                       {formatQuantity("velocity", layer.velocity, units)}
                     </td>
                     <td className="py-1 text-right">
-                      {layer.thickness == null
-                        ? "half-space"
-                        : formatQuantity("length", layer.thickness, units, 2)}
+                      {model.kind === "section"
+                        ? "base" in layer && layer.base
+                          ? `${layer.base.length} points`
+                          : "half-space"
+                        : layer.thickness == null
+                          ? "half-space"
+                          : formatQuantity("length", layer.thickness, units, 2)}
                     </td>
                   </tr>
                 ))}
