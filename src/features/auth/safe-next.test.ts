@@ -7,7 +7,7 @@ describe("safeNext", () => {
     expect(safeNext("/plans/abc?tab=review#c1")).toBe("/plans/abc?tab=review#c1");
   });
 
-  it.each([
+  it.each<[string | null, string]>([
     ["/\\evil.test", "a backslash that browsers read as //"],
     ["/\\/evil.test", "backslash then slash"],
     ["//evil.test", "a protocol-relative URL"],
