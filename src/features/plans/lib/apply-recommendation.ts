@@ -1,13 +1,12 @@
 /**
  * Turning the engine's recommendation into a spread the crew can lay out: a practical
  * spacing no larger than the recommended maximum, enough channels for the recommended
- * branch length at that spacing, and the shots moved with the spread (the engine's
- * "follow" rule: shots before the spread keep their distance from the first geophone, shots
- * beyond it from the last, interior shots their fraction of the spread).
+ * branch length at that spacing, and the shots placed by their anchors (shot-anchors.ts:
+ * anchored shots follow the spread's start, end or centre; fixed shots stay where they are).
  */
 import { fromDisplay, toDisplay, type UnitSystem } from "@/lib/units";
-import { MAX_CHANNELS } from "@engine";
-import { followShots, type Spread } from "./engine";
+import { MAX_CHANNELS, resolveShotPositions } from "@engine";
+import type { Spread } from "./engine";
 
 /** A round spacing (in the user's units) at or below `shown`: steps of 0.1, 0.25, 0.5, 1 or 5. */
 export function practicalSpacing(shown: number): number {
@@ -48,16 +47,11 @@ export function applyRecommendation(
     Math.max(2, spread.channels, Math.floor(recommendation.spreadLength / spacing + 1e-9) + 1),
   );
   const shots = Array.from(
-    followShots(
-      {
-        spacing: spread.spacing,
-        channels: spread.channels,
-        firstGeophone: spread.firstGeophone,
-        shots: spread.shots.map((s) => s.position),
-      },
+    resolveShotPositions(spread.shots, {
       spacing,
       channels,
-    ),
+      firstGeophone: spread.firstGeophone,
+    }),
   );
   return { spacing, channels, shots };
 }

@@ -9,7 +9,7 @@
 import { z } from "zod";
 import type { Resolver } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { planSchema, type Plan } from "@engine";
+import { anchorPoint, planSchema, type Plan, type ShotAnchorPoint } from "@engine";
 import {
   formatInput,
   localiseMessage,
@@ -57,6 +57,13 @@ export interface ShotRow {
   label: string;
   /** Depth of a buried charge below the surface (section models), display units; "" = 0. */
   depth?: string;
+  /**
+   * Anchor to the spread (shot-anchors.ts); absent or "" = fixed at `position`. An anchored
+   * row's box is `offset` (display units) and its position is worked out from the spread.
+   */
+  anchor?: "" | ShotAnchorPoint;
+  /** Offset from the anchor point, display units (anchored rows only). */
+  offset?: string;
 }
 
 export interface PlanForm {
@@ -130,6 +137,9 @@ export function planToForm(plan: Plan, units: UnitSystem): PlanForm {
         position: formatInput("length", shot.position, units),
         label: shot.label ?? "",
         ...(shot.depth ? { depth: formatInput("length", shot.depth, units) } : {}),
+        ...(shot.anchor
+          ? { anchor: shot.anchor.to, offset: formatInput("length", shot.anchor.offset, units) }
+          : {}),
       })),
     },
     criteria: {
@@ -169,7 +179,10 @@ export function exactValues(
   }
   add("length", plan.spread.spacing);
   add("length", plan.spread.firstGeophone);
-  plan.spread.shots.forEach((s) => add("length", s.position));
+  plan.spread.shots.forEach((s) => {
+    add("length", s.position);
+    if (s.anchor) add("length", s.anchor.offset);
+  });
   add("time", plan.criteria.pickError);
   add("length", plan.criteria.depthTolerance);
   return map;
@@ -243,9 +256,22 @@ export function formToPlanInput(
       channels: required(parseInput("count", form.spread.channels, units)),
       firstGeophone: required(parseInput("length", form.spread.firstGeophone, units)),
       shots: form.spread.shots.map((shot) => {
-        const out: Record<string, unknown> = {
-          position: required(parseInput("length", shot.position, units)),
-        };
+        const out: Record<string, unknown> = {};
+        if (shot.anchor) {
+          // The schema puts an anchored shot at anchor point + offset (shot-anchors.ts); the
+          // position written here is that same point when the spread's numbers parse.
+          const offset = required(parseInput("length", shot.offset ?? "", units));
+          const geometry = {
+            spacing: parseInput("length", form.spread.spacing, units) ?? Number.NaN,
+            channels: parseInput("count", form.spread.channels, units) ?? Number.NaN,
+            firstGeophone: parseInput("length", form.spread.firstGeophone, units) ?? Number.NaN,
+          };
+          const at = anchorPoint(shot.anchor, geometry) + offset;
+          out.position = Number.isFinite(at) ? at : 0;
+          out.anchor = { to: shot.anchor, offset };
+        } else {
+          out.position = required(parseInput("length", shot.position, units));
+        }
         if (text(shot.label)) out.label = text(shot.label);
         const depth = sections ? parseInput("length", shot.depth ?? "", units) : undefined;
         if (depth !== undefined && depth !== 0) out.depth = depth;

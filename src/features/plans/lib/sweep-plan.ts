@@ -2,7 +2,8 @@
  * Design sweep helpers: the default ranges offered for a parameter, and the plan a clicked
  * cell stands for (the copy the user gets when applying a cell).
  */
-import { followShots, type Plan, type SweepResult, type SweepSpec } from "./engine";
+import { resolveShotPositions } from "@engine";
+import type { Plan, SweepResult, SweepSpec } from "./engine";
 
 export type SweepParameterKind = "thickness" | "velocity";
 
@@ -62,8 +63,8 @@ export function sweepSpec(input: {
 
 /**
  * The plan at one cell of a sweep: the swept model's layer takes the row's value, the spread
- * takes the column's spacing or channel count, and the shots follow the spread ends as the
- * sweep assumed. Other models are kept unchanged.
+ * takes the column's spacing or channel count, and anchored shots follow the spread as the
+ * sweep assumed (fixed shots stay). Other models are kept unchanged.
  */
 export function planAtCell(
   plan: Plan,
@@ -76,16 +77,11 @@ export function planAtCell(
   const axisValue = result.axis.values[col];
   const spacing = result.axis.kind === "spacing" ? axisValue : plan.spread.spacing;
   const channels = result.axis.kind === "channels" ? Math.round(axisValue) : plan.spread.channels;
-  const shots = followShots(
-    {
-      spacing: plan.spread.spacing,
-      channels: plan.spread.channels,
-      firstGeophone: plan.spread.firstGeophone,
-      shots: plan.spread.shots.map((s) => s.position),
-    },
+  const shots = resolveShotPositions(plan.spread.shots, {
     spacing,
     channels,
-  );
+    firstGeophone: plan.spread.firstGeophone,
+  });
   const layerIndex = result.parameter.layer - 1;
   return {
     ...plan,

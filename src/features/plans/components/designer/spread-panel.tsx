@@ -1,5 +1,5 @@
 import { useFieldArray, useFormContext, useFormState, useWatch } from "react-hook-form";
-import { MAX_SHOTS } from "@engine";
+import { MAX_SHOTS, defaultAnchor } from "@engine";
 import { Button } from "@/components/button";
 import { Field } from "@/components/field";
 import { formatInput, formatQuantity, parseInput, unitLabel, type UnitSystem } from "@/lib/units";
@@ -8,6 +8,7 @@ import { patternShots, spreadFigures, type ShotPattern } from "../../lib/spread-
 import { useDesignerSlots } from "../../designer-slots";
 import { AnchorCommentsChip } from "./anchor-comments";
 import { CellInput } from "./cell-input";
+import { ANCHOR_CHOICES, anchorChange, rowPosition } from "../../lib/shot-rows";
 import { errorAt } from "./ground-models-panel";
 
 const PATTERNS: Array<{ pattern: ShotPattern; label: string }> = [
@@ -19,7 +20,7 @@ const PATTERNS: Array<{ pattern: ShotPattern; label: string }> = [
 
 /** Spread: geophone spacing and count, where the line starts, the shots, and the criteria. */
 export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: boolean }) {
-  const { control, register } = useFormContext<PlanForm>();
+  const { control, register, setValue } = useFormContext<PlanForm>();
   const { errors } = useFormState({ control });
   const shots = useFieldArray({ control, name: "spread.shots" });
   const spread = useWatch({ control, name: "spread" });
@@ -39,7 +40,9 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
     geometry.channels >= 1 &&
     geometry.firstGeophone !== undefined &&
     Number.isFinite(geometry.firstGeophone);
-  const shotPositions = (spread?.shots ?? []).map((s) => parseInput("length", s.position, units));
+  const shotPositions = (spread?.shots ?? []).map((s) =>
+    rowPosition(s, sound ? (geometry as never) : null, units),
+  );
   const figures = sound
     ? spreadFigures(
         geometry as { spacing: number; channels: number; firstGeophone: number },
@@ -59,7 +62,18 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
       const position = key(shot.position);
       if (taken.has(position)) continue;
       if (shots.fields.length >= MAX_SHOTS) break;
-      shots.append({ position, label: shot.label });
+      // End, off-end and centre shots follow the spread (shot-anchors.ts).
+      const anchor = defaultAnchor(shot.position, geometry as never);
+      shots.append(
+        anchor
+          ? {
+              position,
+              label: shot.label,
+              anchor: anchor.to,
+              offset: formatInput("length", anchor.offset, units),
+            }
+          : { position, label: shot.label },
+      );
       taken.add(position);
     }
   };
@@ -133,8 +147,8 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
               <th scope="col" className="w-8 py-1.5 font-semibold">
                 #
               </th>
-              <th scope="col" className="w-32 py-1.5 pr-2 font-semibold">
-                Position ({m})
+              <th scope="col" className="w-44 py-1.5 pr-2 font-semibold">
+                Where ({m})
               </th>
               <th scope="col" className="py-1.5 pr-2 font-semibold">
                 Label
@@ -156,12 +170,55 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                 <tr key={field.id} className="border-b border-rule/60 align-top">
                   <td className="py-1.5 pt-2.5 font-mono text-xs text-ink-soft">{i + 1}</td>
                   <td className="py-1.5 pr-2">
-                    <CellInput
-                      label={`Shot ${i + 1} position (${m})`}
-                      inputMode="decimal"
-                      error={errorAt(errors, `spread.shots.${i}.position`)}
-                      {...register(`spread.shots.${i}.position`)}
-                    />
+                    <div className="flex items-start gap-1">
+                      <select
+                        aria-label={`Shot ${i + 1} placed`}
+                        title="Fixed, or following the spread's start, end or centre"
+                        className="field-input w-auto! px-1! py-1! text-xs!"
+                        disabled={readOnly}
+                        value={spread?.shots?.[i]?.anchor ?? ""}
+                        onChange={(e) => {
+                          const next = anchorChange(
+                            spread.shots[i],
+                            e.target.value as never,
+                            sound ? (geometry as never) : null,
+                            units,
+                          );
+                          setValue(`spread.shots.${i}`, next, { shouldDirty: true });
+                        }}
+                      >
+                        {ANCHOR_CHOICES.map((c) => (
+                          <option key={c.value} value={c.value}>
+                            {c.label}
+                          </option>
+                        ))}
+                      </select>
+                      {spread?.shots?.[i]?.anchor ? (
+                        <CellInput
+                          key="offset"
+                          label={`Shot ${i + 1} offset from the ${spread.shots[i].anchor} (${m})`}
+                          inputMode="decimal"
+                          error={
+                            errorAt(errors, `spread.shots.${i}.offset`) ??
+                            errorAt(errors, `spread.shots.${i}.anchor.offset`)
+                          }
+                          {...register(`spread.shots.${i}.offset`)}
+                        />
+                      ) : (
+                        <CellInput
+                          key="position"
+                          label={`Shot ${i + 1} position (${m})`}
+                          inputMode="decimal"
+                          error={errorAt(errors, `spread.shots.${i}.position`)}
+                          {...register(`spread.shots.${i}.position`)}
+                        />
+                      )}
+                    </div>
+                    {spread?.shots?.[i]?.anchor && f && Number.isFinite(f.position) ? (
+                      <span className="mt-0.5 block font-mono text-xs text-ink-soft">
+                        at {formatQuantity("length", f.position, units)}
+                      </span>
+                    ) : null}
                   </td>
                   <td className="py-1.5 pr-2">
                     <CellInput

@@ -306,7 +306,7 @@ function SweepEditor({
             onChange={([axisFrom, axisTo, axisSteps]) => update({ axisFrom, axisTo, axisSteps })}
           />
           <p className="text-xs text-ink-soft">
-            Shots follow the spread ends as it grows or shrinks. Other layers keep their values.
+            Anchored shots follow the spread as it grows or shrinks; fixed shots stay. Other layers keep their values.
           </p>
           {problems.length > 0 ? (
             <ul role="alert" className="text-xs font-medium text-brick">

@@ -28,8 +28,13 @@ describe("applying a recommendation", () => {
     expect(applied.channels).toBeGreaterThanOrEqual(plan.spread.channels);
   });
 
-  it("moves end shots with the spread ends (the engine's follow rule)", () => {
+  it("moves anchored end shots with the spread ends and leaves fixed shots (shot-anchors.ts)", () => {
     const plan = threeLayerPlan();
+    plan.spread.shots = [
+      { position: -2.5, anchor: { to: "start", offset: -2.5 } },
+      { position: 117.5, anchor: { to: "end", offset: 2.5 } },
+      { position: 50 },
+    ];
     const applied = applyRecommendation(
       plan.spread,
       { maxSpacing: 2.2, spreadLength: 40 },
@@ -39,6 +44,7 @@ describe("applying a recommendation", () => {
     expect(applied.spacing).toBe(2);
     expect(applied.shots[0]).toBeCloseTo(-2.5, 9);
     expect(applied.shots[1]).toBeCloseTo(last + 2.5, 9);
+    expect(applied.shots[2]).toBe(50);
   });
 
   it("rounds in feet for an imperial user", () => {

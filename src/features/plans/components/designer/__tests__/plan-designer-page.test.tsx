@@ -129,10 +129,8 @@ describe("PlanDesignerPage", () => {
     open();
     await upToDate();
     await userEvent.click(screen.getByRole("tab", { name: "Resolvability" }));
-    const apply = await screen.findByRole("button", { name: /^Apply: / });
-    const [, spacing, channels] = /Apply: ([\d.]+) m spacing, (\d+) channels/.exec(
-      apply.textContent ?? "",
-    )!;
+    const apply = await screen.findByRole("button", { name: /^Keep spread length: / });
+    const [, spacing, channels] = /: ([\d.]+) m × (\d+)/.exec(apply.textContent ?? "")!;
     await userEvent.click(apply);
     await userEvent.click(screen.getByRole("tab", { name: "Spread" }));
     expect(screen.getByLabelText("Spacing (m)")).toHaveValue(String(Number(spacing)));
@@ -145,7 +143,7 @@ describe("PlanDesignerPage", () => {
     open(planDetail(), testMe({ preferences: { units: "imperial" } }));
     await upToDate();
     await userEvent.click(screen.getByRole("tab", { name: "Spread" }));
-    const positions = () => screen.getAllByLabelText(/^Shot \d+ position \(ft\)$/);
+    const positions = () => screen.getAllByLabelText(/^Shot \d+ placed$/);
     expect(positions()).toHaveLength(2);
     await userEvent.click(screen.getByRole("button", { name: "+ End shots" }));
     expect(positions()).toHaveLength(2);
