@@ -1,7 +1,7 @@
-import { Button } from "@/components/button";
 import { formatQuantity, formatSigned, localiseMessage, type UnitSystem } from "@/lib/units";
 import type { ModelAnalysis, Plan, PlanAnalysis, Segment } from "../../lib/engine";
-import { applyRecommendation, type AppliedSpread } from "../../lib/apply-recommendation";
+import type { AppliedSpread } from "../../lib/apply-recommendation";
+import { ApplyChoicesPanel } from "./apply-choices-panel";
 import { VerdictBadge, VERDICT_MEANINGS } from "../verdict-badge";
 import { AnchorCommentsChip } from "./anchor-comments";
 
@@ -71,10 +71,6 @@ export function ResolvabilityPanel({
   const sigma = new Map((model.uncertainty?.refractors ?? []).map((r) => [r.layer, r] as const));
   const tolerance = plan.criteria.depthTolerance;
   const rec = analysis.recommendation;
-  const applied = applyRecommendation(plan.spread, rec, units);
-  const unchanged =
-    Math.abs(applied.spacing - plan.spread.spacing) < 1e-9 &&
-    applied.channels === plan.spread.channels;
 
   return (
     <div>
@@ -230,17 +226,13 @@ export function ResolvabilityPanel({
           channels
         </p>
         {!readOnly ? (
-          <div className="mt-2 flex flex-wrap items-center gap-3">
-            <Button onClick={() => onApply(applied)} disabled={!current || unchanged}>
-              Apply: {formatQuantity("length", applied.spacing, units)} spacing, {applied.channels}{" "}
-              channels
-            </Button>
-            <span className="text-xs text-ink-soft">
-              {unchanged
-                ? "The spread already follows the recommendation."
-                : "Spacing rounded down to a practical value; never fewer channels than now; shots move with the spread ends."}
-            </span>
-          </div>
+          <ApplyChoicesPanel
+            spread={plan.spread}
+            recommendation={rec}
+            units={units}
+            current={current}
+            onApply={onApply}
+          />
         ) : null}
       </section>
       <Cautions />

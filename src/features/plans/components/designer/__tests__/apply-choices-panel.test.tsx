@@ -1,0 +1,62 @@
+import { describe, expect, it, vi } from "vitest";
+import { render, screen } from "@testing-library/react";
+import userEvent from "@testing-library/user-event";
+import { ApplyChoicesPanel } from "../apply-choices-panel";
+
+const spread = {
+  spacing: 3,
+  channels: 24,
+  firstGeophone: 0,
+  shots: [
+    { position: -1.5, anchor: { to: "start" as const, offset: -1.5 } },
+    { position: 70.5, anchor: { to: "end" as const, offset: 1.5 } },
+  ],
+};
+
+describe("ApplyChoicesPanel", () => {
+  it("offers three ways with their consequences and applies the one chosen", async () => {
+    localStorage.clear();
+    const onApply = vi.fn();
+    render(
+      <ApplyChoicesPanel
+        spread={spread}
+        recommendation={{ maxSpacing: 5, spreadLength: 100 }}
+        units="metric"
+        current
+        onApply={onApply}
+      />,
+    );
+    // 100 m at 3 m = 34 intervals (33.3 rounded up) = 35 channels (by hand).
+    const keep = screen.getByRole("button", {
+      name: /^Keep spacing \(add channels\): 3\.00 m × 35/,
+    });
+    expect(keep).toHaveAccessibleDescription(
+      "11 more channels: 35 at 3.00 m span 102.00 m (100.00 m needed).",
+    );
+    expect(
+      screen.getByRole("button", { name: /^Keep spread length: 3\.00 m × 24/ }),
+    ).toBeDisabled();
+    await userEvent.click(keep);
+    // The end shot follows: 34 × 3 + 1.5 = 103.5 m.
+    expect(onApply).toHaveBeenCalledWith({ spacing: 3, channels: 35, shots: [-1.5, 103.5] });
+  });
+
+  it("flags more channels than the team's seismograph and takes a new channel count", async () => {
+    localStorage.clear();
+    render(
+      <ApplyChoicesPanel
+        spread={spread}
+        recommendation={{ maxSpacing: 5, spreadLength: 200 }}
+        units="metric"
+        current
+        onApply={() => {}}
+      />,
+    );
+    // 200 m at 3 m → 68 channels, more than 48 (common practice default).
+    expect(screen.getByText(/68 channels is more than the seismograph's 48/)).toBeVisible();
+    const box = screen.getByLabelText("Seismograph channels (team setting, this browser)");
+    await userEvent.clear(box);
+    await userEvent.type(box, "96");
+    expect(screen.queryByText(/more than the seismograph/)).toBeNull();
+  });
+});

@@ -1,0 +1,72 @@
+import { useState } from "react";
+import { Button } from "@/components/button";
+import type { UnitSystem } from "@/lib/units";
+import type { AppliedSpread } from "../../lib/apply-recommendation";
+import { applyChoices } from "../../lib/apply-choices";
+import type { Spread } from "../../lib/engine";
+import { useSeismographChannels } from "../../hooks/use-seismograph-channels";
+import { formatQuantity } from "@/lib/units";
+
+/**
+ * Apply the recommendation in one of three ways (keep spacing, keep spread length, keep
+ * channel count), each with its one-line consequence and any practical flags.
+ */
+export function ApplyChoicesPanel({
+  spread,
+  recommendation,
+  units,
+  current,
+  onApply,
+}: {
+  spread: Spread;
+  recommendation: { maxSpacing: number | null; spreadLength: number };
+  units: UnitSystem;
+  current: boolean;
+  onApply: (spread: AppliedSpread) => void;
+}) {
+  const [channels, setChannels] = useSeismographChannels();
+  const [typed, setTyped] = useState<string | null>(null);
+  const options = applyChoices(spread, recommendation, units, channels);
+  return (
+    <div className="mt-2">
+      <ul className="flex flex-col gap-2" aria-label="Ways to apply">
+        {options.map((o) => (
+          <li key={o.choice} className="flex flex-wrap items-start gap-x-3 gap-y-1">
+            <Button
+              variant="secondary"
+              className="px-2.5! py-1! text-xs!"
+              onClick={() => onApply({ spacing: o.spacing, channels: o.channels, shots: o.shots })}
+              disabled={!current || o.unchanged}
+              aria-describedby={`apply-${o.choice}`}
+            >
+              {o.title}: {formatQuantity("length", o.spacing, units)} × {o.channels}
+            </Button>
+            <span id={`apply-${o.choice}`} className="min-w-0 flex-1 text-xs text-ink-soft">
+              {o.unchanged ? "The spread already is this. " : ""}
+              {o.consequence}
+              {o.flags.map((f) => (
+                <span key={f} role="note" className="block font-medium text-brick">
+                  ⚠ {f}
+                </span>
+              ))}
+            </span>
+          </li>
+        ))}
+      </ul>
+      <label className="mt-2 flex items-center gap-2 text-xs text-ink-soft">
+        Seismograph channels (team setting, this browser)
+        <input
+          className="field-input w-20! px-2! py-0.5! font-mono text-xs!"
+          inputMode="numeric"
+          value={typed ?? String(channels)}
+          onChange={(e) => {
+            setTyped(e.target.value);
+            const n = Number(e.target.value);
+            if (Number.isInteger(n) && n >= 2) setChannels(n);
+          }}
+          onBlur={() => setTyped(null)}
+        />
+      </label>
+    </div>
+  );
+}
