@@ -54,7 +54,9 @@ export function InterpretedSection({
   const x0 = Math.min(...xs);
   const x1 = Math.max(...xs);
   const stations = ground.map((g) => g[0]);
-  const candidateLines = candidates.map((c) => ({
+  // Layered candidates only: a section model's interfaces are not a depth below a flat ground.
+  const layered = candidates.filter((c) => (c.model as { kind?: string }).kind !== "section");
+  const candidateLines = layered.map((c) => ({
     name: c.name,
     source: c.source,
     layers: refs.map((r) =>
