@@ -201,3 +201,35 @@ describe("assignments and elevations", () => {
     expect(candidateDepth(model, 3, 3)).toBeNull();
   });
 });
+
+describe("interpretPlanPicks (the one function of the screen, the CLI and the report)", () => {
+  it("takes elevations from the plan's section surface and suggests the assignment from the best layered candidate", async () => {
+    const { interpretPlanPicks } = await import("./plan-interpretation");
+    const { flatPicks } = await import("./__fixtures__/reversed-picks");
+    const picks = flatPicks([{ velocity: 500, thickness: 6 }, { velocity: 2200 }], [-1, 95]);
+    const models = [
+      { name: "far off", layers: [{ velocity: 500, thickness: 20 }, { velocity: 4000 }] },
+      { name: "six metres", layers: [{ velocity: 500, thickness: 6 }, { velocity: 2200 }] },
+      {
+        kind: "section",
+        name: "surveyed ground",
+        surface: [
+          [-10, 110],
+          [110, 110],
+        ],
+        layers: [],
+      },
+    ];
+    const r = interpretPlanPicks({ models, criteria: { pickError: 0.0005 } }, picks);
+    expect(r.suggestedFrom).toBe("six metres");
+    expect(r.elevationSource).toBe("plan");
+    expect(r.result.datum).toBe(110);
+    for (const d of r.result.refractors[0].depth) {
+      expect(d.elevation).toBeCloseTo(104, 1);
+      expect(d.depth).toBeCloseTo(6, 1);
+    }
+    expect(r.misfits.map((m) => m.name)).toEqual(["far off", "six metres"]);
+    expect(r.misfits[1].layers[0].rms).toBeLessThan(0.06);
+    expect(() => interpretPlanPicks({ models: [] }, picks)).toThrow(/no layered ground model/);
+  });
+});
