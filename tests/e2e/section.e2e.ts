@@ -55,7 +55,7 @@ describe("ground sections in the browser", () => {
 
     // One click: a section copy of the layered model (flat ground, straight base).
     await page.getByRole("button", { name: "Convert to section" }).click();
-    await page.getByRole("tab", { name: SECTION, selected: true }).waitFor();
+    await page.getByRole("tab", { name: SECTION, selected: true }).first().waitFor();
     await page.getByRole("img", { name: /^Section being edited/ }).waitFor();
     await upToDate(page);
 
@@ -119,6 +119,19 @@ describe("ground sections in the browser", () => {
     await upToDate(page);
     await page.getByRole("tab", { name: "Section", exact: true }).click();
     await page.getByRole("img", { name: /stretches sampled by head waves/ }).waitFor();
+
+    // Design sweep of the section: spacing × the channel floor's elevation (2 × 2 cells).
+    await page.getByRole("button", { name: "Design sweep" }).click();
+    await page.getByLabel("Point", { exact: true }).selectOption({ index: 1 });
+    await page.getByLabel("Spacing steps", { exact: true }).fill("2");
+    await page.getByLabel("Elevation steps", { exact: true }).fill("2");
+    await page.getByRole("button", { name: "Run section sweep" }).click();
+    const sweep = page.getByRole("table", { name: "Section sweep: worst verdict and depth error" });
+    await sweep.waitFor({ timeout: 60_000 });
+    expect(await sweep.getByRole("row").count()).toBe(3);
+    await screenshot(page, "section-sweep");
+    await page.getByRole("button", { name: "Design", exact: true }).click();
+
     await page.getByRole("button", { name: "Save" }).click();
     await page.getByText(/revision 2/).waitFor({ timeout: 20_000 });
 

@@ -122,10 +122,11 @@ export function SectionSweep({ plan, units }: { plan: Plan; units: UnitSystem })
     }
   };
 
-  const field = (key: keyof typeof text, label: string, placeholder?: string) => (
+  const field = (key: keyof typeof text, label: string, name: string, placeholder?: string) => (
     <label className="flex flex-col gap-0.5 text-xs text-ink-soft">
       {label}
       <input
+        aria-label={name}
         className="field-input w-24! px-2! py-1! font-mono text-sm!"
         value={text[key]}
         placeholder={placeholder}
@@ -145,6 +146,7 @@ export function SectionSweep({ plan, units }: { plan: Plan; units: UnitSystem })
         <label className="flex flex-col gap-0.5 text-xs text-ink-soft">
           Section
           <select
+            aria-label="Section swept"
             className="field-input w-auto! py-1! text-sm!"
             value={modelIndex}
             onChange={(e) => setModelIndex(Number(e.target.value))}
@@ -159,6 +161,7 @@ export function SectionSweep({ plan, units }: { plan: Plan; units: UnitSystem })
         <label className="flex flex-col gap-0.5 text-xs text-ink-soft">
           Vary
           <select
+            aria-label="Vary"
             className="field-input w-auto! py-1! text-sm!"
             value={kind}
             onChange={(e) => setKind(e.target.value as "elevation" | "velocity")}
@@ -201,16 +204,22 @@ export function SectionSweep({ plan, units }: { plan: Plan; units: UnitSystem })
         ) : null}
       </div>
       <div className="mt-3 flex flex-wrap items-end gap-3">
-        {field("sFrom", `Spacing from (${h})`)}
-        {field("sTo", `to (${h})`)}
-        {field("sN", "steps")}
+        {field("sFrom", `Spacing from (${h})`, `Spacing from (${h})`)}
+        {field("sTo", `to (${h})`, `Spacing to (${h})`)}
+        {field("sN", "steps", "Spacing steps")}
         {field(
           "pFrom",
           `${kind === "elevation" ? "Elevation" : "Velocity"} from (${kind === "elevation" ? h : v})`,
+          `${kind === "elevation" ? "Elevation" : "Velocity"} from (${kind === "elevation" ? h : v})`,
           defaultFrom,
         )}
-        {field("pTo", `to (${kind === "elevation" ? h : v})`, defaultTo)}
-        {field("pN", "steps")}
+        {field(
+          "pTo",
+          `to (${kind === "elevation" ? h : v})`,
+          `${kind === "elevation" ? "Elevation" : "Velocity"} to (${kind === "elevation" ? h : v})`,
+          defaultTo,
+        )}
+        {field("pN", "steps", `${kind === "elevation" ? "Elevation" : "Velocity"} steps`)}
         <Button onClick={() => void run()} disabled={running || problems.length > 0}>
           Run section sweep
         </Button>
