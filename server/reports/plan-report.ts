@@ -61,6 +61,26 @@ const statusCell = (status: string): Cell => ({
   bold: true,
 });
 
+/**
+ * fontkit faces parsed by the first report of this thread, reused by the next ones: pdfkit
+ * (0.20) accepts a parsed face in `registerFont`, and parsing the four faces again took about a
+ * fifth of every report. Each document still embeds its own subset. Read from pdfkit's font
+ * cache (`_fontFamilies`, keyed by the registered name); when that is missing nothing is kept
+ * and every report parses the files as before.
+ */
+const parsedFaces = new Map<string, unknown>();
+
+function rememberParsedFaces(doc: PDFKit.PDFDocument, names: string[]): void {
+  const families = (doc as unknown as { _fontFamilies?: Record<string, { font?: unknown }> })
+    ._fontFamilies;
+  for (const name of names) {
+    const face = families?.[name]?.font as { layout?: unknown } | undefined;
+    if (face && typeof face.layout === "function" && !parsedFaces.has(name)) {
+      parsedFaces.set(name, face);
+    }
+  }
+}
+
 /** Renders the report; resolves with the PDF bytes. `compress: false` keeps streams readable. */
 export function renderPlanReport(
   input: PlanReportInput,
@@ -83,11 +103,17 @@ export function renderPlanReport(
       CreationDate: input.generatedAt,
     },
   });
-  for (const [name, data] of Object.entries(fonts.files)) doc.registerFont(name, data);
+  for (const [name, data] of Object.entries(fonts.files)) {
+    // A face parsed by an earlier report of this thread, else the font file's bytes.
+    doc.registerFont(name, (parsedFaces.get(name) ?? data) as Buffer);
+  }
   const chunks: Buffer[] = [];
   const done = new Promise<Buffer>((resolve, reject) => {
     doc.on("data", (c: Buffer) => chunks.push(c));
-    doc.on("end", () => resolve(Buffer.concat(chunks)));
+    doc.on("end", () => {
+      rememberParsedFaces(doc, Object.keys(fonts.files));
+      resolve(Buffer.concat(chunks));
+    });
     doc.on("error", reject);
   });
 
