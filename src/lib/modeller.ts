@@ -124,6 +124,8 @@ const nextTask = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 type Engine = typeof import("./engine-here");
 let engine: Promise<Engine> | null = null;
 const loadEngine = (): Promise<Engine> => (engine ??= import("./engine-here"));
+// Without workers (jsdom) the engine will be needed: start loading it with this module.
+if (typeof Worker === "undefined") void loadEngine();
 
 /** Create a modeller facade. */
 export function createModeller(options: ModellerOptions = {}): Modeller {
@@ -144,14 +146,17 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
   };
   const quickApi = () => (quick ??= spawn()).api;
 
-  /** Run `work` as request `kind`, discarding its result if a newer one of the kind started. */
-  function latestOnly<T>(kind: string, work: () => Promise<T>): Promise<T> {
+  /**
+   * Run `work` as request `kind`, discarding its result if a newer one of the kind started.
+   * `work` may ask `stale()` to skip a computation whose answer would be discarded anyway.
+   */
+  function latestOnly<T>(kind: string, work: (stale: () => boolean) => Promise<T>): Promise<T> {
     const seq = (latest.get(kind) ?? 0) + 1;
     latest.set(kind, seq);
     return new Promise<T>((resolve, reject) => {
       const cancel = (reason: CancelReason) => reject(new ModellerCancelledError(reason));
       pending.add(cancel);
-      work().then(
+      work(() => latest.get(kind) !== seq).then(
         (value) => {
           pending.delete(cancel);
           if (latest.get(kind) !== seq) cancel("superseded");
@@ -166,9 +171,14 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
     });
   }
 
-  // On this thread: yield first so that a burst of requests resolves only the last one.
-  const local = async <T>(fn: (engine: Engine) => T): Promise<T> => {
+  // On this thread: yield a task first, so that of a burst of requests (typing) only the last
+  // one is computed; the others end as superseded without costing the page any work.
+  const local = async <T>(fn: (engine: Engine) => T, stale?: () => boolean): Promise<T> => {
     const loaded = await loadEngine();
+    if (stale) {
+      await nextTask();
+      if (stale()) throw new ModellerCancelledError("superseded");
+    }
     return fn(loaded);
   };
 
@@ -300,10 +310,10 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
       ),
     sectionSweep,
     analyze: (plan) =>
-      latestOnly("analyze", () =>
+      latestOnly("analyze", (stale) =>
         factory
           ? (quickApi().analyzePlan(plan) as Promise<PlanAnalysis>)
-          : local((e) => e.analyzePlan(plan)),
+          : local((e) => e.analyzePlan(plan), stale),
       ),
     analyzeOne: (plan) =>
       latestOnly(`analyze-one:${++oneSeq}`, () =>
@@ -312,13 +322,13 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
           : local((e) => e.analyzePlan(plan)),
       ),
     arrivals: (model, spread, shotIndex) =>
-      latestOnly("arrivals", () =>
+      latestOnly("arrivals", (stale) =>
         factory
           ? (quickApi().computeArrivals(model, spread, shotIndex) as Promise<ShotArrivals>)
-          : local((e) => e.computeArrivals(model, spread, shotIndex)),
+          : local((e) => e.computeArrivals(model, spread, shotIndex), stale),
       ),
     curves: (model, shotPosition, fromOffset, toOffset, samples, opts) =>
-      latestOnly("curves", () =>
+      latestOnly("curves", (stale) =>
         factory
           ? (quickApi().sampleCurves(
               model,
@@ -328,17 +338,20 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
               samples,
               opts,
             ) as Promise<ArrivalCurves>)
-          : local((e) => e.sampleCurves(model, shotPosition, fromOffset, toOffset, samples, opts)),
+          : local(
+              (e) => e.sampleCurves(model, shotPosition, fromOffset, toOffset, samples, opts),
+              stale,
+            ),
       ),
     rayPath: (model, shotPosition, geophonePosition) =>
-      latestOnly("rayPath", () =>
+      latestOnly("rayPath", (stale) =>
         factory
           ? (quickApi().firstArrivalRayPath(
               model,
               shotPosition,
               geophonePosition,
             ) as Promise<RayPath>)
-          : local((e) => e.firstArrivalRayPath(model, shotPosition, geophonePosition)),
+          : local((e) => e.firstArrivalRayPath(model, shotPosition, geophonePosition), stale),
       ),
     sweep,
     warm: () => {

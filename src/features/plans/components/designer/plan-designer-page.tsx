@@ -18,6 +18,8 @@ import { exactValues, planFormResolver, planToForm, type PlanForm } from "../../
 import type { AppliedSpread } from "../../lib/apply-recommendation";
 import { useLivePlan } from "../../hooks/use-live-plan";
 import { useSaveShortcut } from "../../hooks/use-save-shortcut";
+import { usePlanHistory } from "../../hooks/use-plan-history";
+import { HistoryButtons } from "./history-buttons";
 import { usePlanAnalysis, type PlanAnalysisState } from "../../hooks/use-plan-analysis";
 import { GroundModelsPanel } from "./ground-models-panel";
 import { MaterialSourceNote } from "./material-picker";
@@ -133,6 +135,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
     })();
   }, [readOnly, savePlan, form, baseline.revision, exact, units]);
   useSaveShortcut(save, !readOnly);
+  const history = usePlanHistory(form, !readOnly);
 
   const applyRecommendation = useCallback(
     (spread: AppliedSpread) => {
@@ -182,6 +185,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
             </p>
           </div>
           <div className="flex flex-wrap items-center gap-3">
+            {!readOnly ? <HistoryButtons history={history as never} /> : null}
             <AnalysisState
               control={form.control}
               valid={livePlan !== null}
@@ -322,7 +326,9 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
                 }}
               >
                 <fieldset disabled={readOnly} className="min-w-0">
-                  <div hidden={editor !== "models"}>
+                  {/* Only the chosen editor is mounted (the form keeps the other's values):
+                      half the boxes to lay out and re-render. */}
+                  {editor === "models" ? (
                     <ErrorBoundary title="The ground models panel failed to draw">
                       <MemoGroundModelsPanel
                         units={units}
@@ -332,12 +338,11 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
                       />
                       <MaterialSourceNote />
                     </ErrorBoundary>
-                  </div>
-                  <div hidden={editor !== "spread"}>
+                  ) : (
                     <ErrorBoundary title="The spread panel failed to draw">
                       <MemoSpreadPanel units={units} readOnly={readOnly} />
                     </ErrorBoundary>
-                  </div>
+                  )}
                 </fieldset>
               </form>
             </Card>
