@@ -125,7 +125,8 @@ export function solveEikonal(grid: EikonalGrid, initial: Float64Array): Float64A
   // slowness with a border of Infinity, so that cells off the grid need no test
   const px = cx + 2;
   const padded = new Float64Array(px * (cz + 2)).fill(Infinity);
-  for (let j = 0; j < cz; j++) padded.set(slowness.subarray(j * cx, (j + 1) * cx), (j + 1) * px + 1);
+  for (let j = 0; j < cz; j++)
+    padded.set(slowness.subarray(j * cx, (j + 1) * cx), (j + 1) * px + 1);
   const cell = (i: number, j: number): number => padded[(j + 1) * px + i + 1];
   const SQRT2 = Math.SQRT2;
   const INV_SQRT2 = Math.SQRT1_2;
