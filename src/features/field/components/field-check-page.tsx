@@ -523,6 +523,13 @@ function FieldCheck({
                 geophones.
               </p>
             ) : null}
+            {placements.some((p) => qualities.has(`${p.sourcePosition}|${p.receiverPosition}`)) ? (
+              <p className="mt-1 text-xs text-ink-soft">
+                Automatic picks: a solid mark is clear; dashed with an ochre ring is weak (faint, or
+                off its neighbours' trend — check it by eye); a brick × marks a trace without a
+                pick.
+              </p>
+            ) : null}
           </Card>
         </ErrorBoundary>
       ) : null}
