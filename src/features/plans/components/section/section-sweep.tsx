@@ -190,6 +190,7 @@ export function SectionSweep({ plan, units }: { plan: Plan; units: UnitSystem })
           <label className="flex flex-col gap-0.5 text-xs text-ink-soft">
             Point
             <select
+              aria-label="Point"
               className="field-input w-auto! py-1! text-sm!"
               value={point}
               onChange={(e) => setPoint(Number(e.target.value))}
