@@ -41,7 +41,7 @@ function arrivalsOf(solved: SolvedSection, spread: Spread): SectionShotArrivals[
     geophones: Array.from(solved.geophoneX, (x, k) => ({
       position: x,
       elevation: solved.geophoneZ[k],
-      time: finiteOrNull(s.geophoneTimes[k]),
+      time: s.geophoneTimes[k],
       via: s.via[k] + 1,
     })),
   }));

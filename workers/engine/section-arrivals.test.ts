@@ -19,7 +19,6 @@ function worstMisfit(layered: GroundModel, spread: Spread, section: SectionModel
     const exact = computeArrivals(layered, spread, s);
     exact.geophones.forEach((g, k) => {
       const t = shot.geophoneTimes[k];
-      if (Number.isNaN(t)) return; // the geophone at the shot itself
       const tol = Math.max(0.005 * g.first.time, 0.0002);
       worst = Math.max(worst, Math.abs(t - g.first.time) / tol);
       count++;
@@ -137,7 +136,6 @@ describe("a homogeneous half-space under an uneven surface", () => {
       for (const shot of solved.shots) {
         for (let k = 0; k < solved.geophoneX.length; k++) {
           const t = shot.geophoneTimes[k];
-          if (Number.isNaN(t)) continue;
           const exact = Math.hypot(solved.geophoneX[k] - shot.x, solved.geophoneZ[k] - shot.z) / v;
           expect(Math.abs(t - exact) / exact).toBeLessThanOrEqual(0.003);
         }

@@ -19,7 +19,7 @@ export interface SolvedShot {
   readonly source: GridSource;
   /** Node times, s. */
   readonly times: Float64Array;
-  /** Per geophone: time s (NaN at the shot itself), elevation m. */
+  /** Per geophone: first-arrival time, s (0 for a geophone at a surface shot). */
   readonly geophoneTimes: Float64Array;
   /** Per geophone: 0-based layer along whose top the ray travelled (0 = direct wave). */
   readonly via: Int32Array;
@@ -129,7 +129,7 @@ export function solveShot(
     const gx = geophoneX[k];
     const gz = geophoneZ[k];
     if (Math.abs(gx - x) < 1e-9 && depth === 0) {
-      geophoneTimes[k] = NaN;
+      geophoneTimes[k] = 0; // the geophone at the shot point
       rays.push(new Float64Array(0));
       continue;
     }

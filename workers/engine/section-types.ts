@@ -15,8 +15,8 @@ export interface SectionGeophoneArrival {
   position: number;
   /** Geophone elevation (on the surface), m. */
   elevation: number;
-  /** First-arrival time, s (null only when the geophone stands exactly at the shot). */
-  time: number | null;
+  /** First-arrival time, s (0 for a geophone standing at a surface shot). */
+  time: number;
   /** Layer (1-based) along whose top the first-arrival ray travelled; 1 = direct wave. */
   via: number;
 }
