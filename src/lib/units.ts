@@ -78,6 +78,26 @@ export function defaultDigits(quantity: Quantity): number {
 }
 
 /**
+ * Decimal places a box shows for a quantity: lengths to the millimetre in metres and to the
+ * hundredth of a foot in feet, velocities to 1 m/s or 1 ft/s, times to 0.001 ms, angles to
+ * 0.01°, counts whole (common practice for a field layout).
+ */
+export function inputDigits(quantity: Quantity, system: UnitSystem): number {
+  switch (quantity) {
+    case "length":
+      return system === "imperial" ? 2 : 3;
+    case "velocity":
+    case "count":
+      return 0;
+    case "time":
+      return 3;
+    case "angle":
+    case "percent":
+      return 2;
+  }
+}
+
+/**
  * A number for an input box: converted, rounded to a sensible precision without trailing
  * zeros ("12.5", not "12.500"). Returns "" for null/undefined/non-finite so the box is empty.
  */
@@ -88,8 +108,10 @@ export function formatInput(
 ): string {
   if (si === null || si === undefined || !Number.isFinite(si)) return "";
   const shown = toDisplay(quantity, si, system);
-  // Six significant digits keep a round trip through feet within 1e-6 relative.
-  return String(Number(shown.toPrecision(6)));
+  // Precision fit for the unit (inputDigits): a stored value the user leaves alone is saved
+  // exactly as stored (plan-form.ts keeps the SI value behind each shown text).
+  const rounded = Number(shown.toFixed(inputDigits(quantity, system)));
+  return String(rounded === 0 ? 0 : rounded);
 }
 
 /**
@@ -161,7 +183,7 @@ export function localiseMessage(message: string, system: UnitSystem): string {
   return timed.replace(/(-?\d+(?:\.\d+)?) (m\/s|m)\b/g, (whole, value: string, unit: string) => {
     const quantity: Quantity = unit === "m/s" ? "velocity" : "length";
     const shown = toDisplay(quantity, Number(value), system);
-    return `${whole} (${Number(shown.toPrecision(5))} ${unitLabel(quantity, system)})`;
+    return `${whole} (${Number(shown.toFixed(inputDigits(quantity, system)))} ${unitLabel(quantity, system)})`;
   });
 }
 

@@ -95,6 +95,17 @@ describe("units", () => {
     expect(formatInput("time", 0.0005, "metric")).toBe("0.5");
   });
 
+  it("shows precision fit for the unit in feet (issue 14: 7.87402, 1640.42, 10826.8)", () => {
+    // 1 ft = 0.3048 m exactly (1959 international yard and pound agreement).
+    expect(formatInput("length", 2.4, "imperial")).toBe("7.87"); // 7.874015… ft
+    expect(formatInput("velocity", 500, "imperial")).toBe("1640"); // 1640.42 ft/s
+    expect(formatInput("velocity", 3300, "imperial")).toBe("10827"); // 10826.77 ft/s
+    expect(formatInput("length", 26.4375, "metric")).toBe("26.438"); // to the millimetre
+    expect(formatInput("length", -0.0001, "metric")).toBe("0"); // no "-0"
+    // A message keeps the same precision as the boxes: 2.47 m = 8.1037 ft → 8.1 ft.
+    expect(localiseMessage("at least 2.47 m", "imperial")).toBe("at least 2.47 m (8.1 ft)");
+  });
+
   it("adds the ms figure to a limit in seconds for every user (times are typed in ms)", () => {
     expect(localiseMessage("pick error must be between 0 and 0.1 s", "metric")).toBe(
       "pick error must be between 0 and 0.1 s (100 ms)",
@@ -110,7 +121,7 @@ describe("units", () => {
       "velocity must be at most 10000 m/s (32808 ft/s)",
     );
     expect(localiseMessage("thickness must be at most 1000 m", "imperial")).toBe(
-      "thickness must be at most 1000 m (3280.8 ft)",
+      "thickness must be at most 1000 m (3280.84 ft)",
     );
     expect(localiseMessage("velocity must be at most 10000 m/s", "metric")).toBe(
       "velocity must be at most 10000 m/s",

@@ -52,15 +52,14 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
 
   const addPattern = (pattern: ShotPattern) => {
     if (!sound) return;
-    // Compare positions as the boxes show them: a value typed or shown in feet comes back in
-    // metres with rounding noise (154.199 ft → 46.99985 m), so 6-decimal metres would differ.
+    // A shot within a tenth of a spacing of one already there is the same shot: boxes in
+    // feet round to 0.01 ft, so positions worked out from them differ by a few millimetres.
     const key = (p: number) => formatInput("length", p, units);
-    const taken = new Set(
-      shotPositions.filter((p): p is number => p !== undefined && Number.isFinite(p)).map(key),
-    );
+    const near = (geometry.spacing as number) / 10;
+    const taken = shotPositions.filter((p): p is number => p !== undefined && Number.isFinite(p));
     for (const shot of patternShots(geometry as never, pattern)) {
       const position = key(shot.position);
-      if (taken.has(position)) continue;
+      if (taken.some((p) => Math.abs(p - shot.position) < near)) continue;
       if (shots.fields.length >= MAX_SHOTS) break;
       // End, off-end and centre shots follow the spread (shot-anchors.ts).
       const anchor = defaultAnchor(shot.position, geometry as never);
@@ -74,7 +73,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
             }
           : { position, label: shot.label },
       );
-      taken.add(position);
+      taken.push(shot.position);
     }
   };
 

@@ -34,8 +34,8 @@ describe("PlanDesignerPage", () => {
   it("converts to feet for an imperial user and states limits in feet too", async () => {
     open(planDetail(), testMe({ preferences: { units: "imperial" } }));
     const velocity = await screen.findByLabelText("Layer 2 velocity (ft/s)");
-    expect(velocity).toHaveValue("5249.34");
-    expect(screen.getByLabelText("Layer 1 thickness (ft)")).toHaveValue("9.84252");
+    expect(velocity).toHaveValue("5249");
+    expect(screen.getByLabelText("Layer 1 thickness (ft)")).toHaveValue("9.84");
     await userEvent.clear(velocity);
     await userEvent.type(velocity, "40000");
     expect(
