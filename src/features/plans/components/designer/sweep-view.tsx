@@ -22,6 +22,7 @@ import {
 import { mayCreatePlan } from "../plans-list";
 import { VERDICT_LABELS } from "../verdict-badge";
 import { SectionSweep } from "../section/section-sweep";
+import { SweepReading } from "./sweep-reading";
 
 /** Most steps along either side of the grid (a 200 × 200 sweep takes about a second). */
 const MAX_STEPS = 200;
@@ -306,7 +307,8 @@ function SweepEditor({
             onChange={([axisFrom, axisTo, axisSteps]) => update({ axisFrom, axisTo, axisSteps })}
           />
           <p className="text-xs text-ink-soft">
-            Anchored shots follow the spread as it grows or shrinks; fixed shots stay. Other layers keep their values.
+            Anchored shots follow the spread as it grows or shrinks; fixed shots stay. Other layers
+            keep their values.
           </p>
           {problems.length > 0 ? (
             <ul role="alert" className="text-xs font-medium text-brick">
@@ -603,6 +605,15 @@ function Heatmap({
         >
           {heatmap.xLabel}
         </text>
+        <text
+          data-role="y-title"
+          transform={`translate(14 ${(heatmap.plot.y + heatmap.plot.y + heatmap.plot.height) / 2}) rotate(-90)`}
+          textAnchor="middle"
+          fontSize={12}
+          fill={palette.ink}
+        >
+          {heatmap.yLabel}
+        </text>
       </svg>
       <p className="mt-1 min-h-5 font-mono text-xs text-ink-deep" aria-live="polite">
         {active
@@ -633,6 +644,12 @@ function Heatmap({
           </li>
         ) : null}
       </ul>
+      <SweepReading
+        axis={result.axis.kind}
+        channels={plan.spread.channels}
+        spacing={plan.spread.spacing}
+        units={units}
+      />
       {createPlan.isPending ? <p className="mt-2 text-sm text-ink-soft">Making a copy…</p> : null}
       {createPlan.isError ? (
         <ErrorNotice error={createPlan.error} title="Could not make the copy" />
