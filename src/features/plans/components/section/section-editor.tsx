@@ -13,6 +13,9 @@ import { SectionFigure, type PointRef } from "./section-figure";
 import { SectionImport } from "./section-import-box";
 import { BoreholeLogs } from "./section-overlays";
 
+/** Least time between two models sent to the modeller while a point is dragged, ms. */
+const DRAG_SEND_MS = 150;
+
 /** A problem the plan schema found in a section, with the point it names. */
 export interface SectionProblem {
   where: string;
@@ -114,6 +117,7 @@ export function SectionEditor({
   const [boreholes, setBoreholes] = useState<Borehole[]>([]);
   const { ref, width } = useElementWidth<HTMLDivElement>(640);
   const frame = useRef(0);
+  const lastSent = useRef(0);
   useEffect(() => () => cancelAnimationFrame(frame.current), []);
 
   const commit = useCallback(
@@ -173,9 +177,16 @@ export function SectionEditor({
             return;
           }
           setDragged(next);
-          // the modeller hears of the drag once per frame; stale answers are dropped
+          // The chart follows every move; the modeller hears of the drag at most every
+          // DRAG_SEND_MS (a 2-D analysis takes about a tenth of a second and a worker cannot
+          // drop a request once sent, so sending every frame would queue stale work).
           cancelAnimationFrame(frame.current);
-          frame.current = requestAnimationFrame(() => commit(next, false));
+          frame.current = requestAnimationFrame(() => {
+            const now = performance.now();
+            if (now - lastSent.current < DRAG_SEND_MS) return;
+            lastSent.current = now;
+            commit(next, false);
+          });
         },
         onInsert: (l: number, x: number) => {
           const { draft: next, index: at } = insertPoint(current, l, x);
