@@ -113,7 +113,7 @@ describe("plan designer in the browser", () => {
 
     // One click on the recommendation, and the engine says it is resolved.
     await page.getByRole("tab", { name: "Resolvability" }).click();
-    await page.getByRole("button", { name: /^Apply: / }).click();
+    await page.getByRole("button", { name: /^Follow the recommendation: / }).click();
     await upToDate(page);
     expect(await verdictOf(page, 2)).toContain("Resolved");
     const verdicts = page.getByLabel("Verdicts");

@@ -11,7 +11,7 @@ import { practicalSpacing } from "./apply-recommendation";
 import type { Spread } from "./engine";
 
 /** What an Apply keeps as it is. */
-export type ApplyChoice = "keep-spacing" | "keep-length" | "keep-channels";
+export type ApplyChoice = "recommended" | "keep-spacing" | "keep-length" | "keep-channels";
 
 /** Smallest spacing a crew lays out by tape on the ground, m (common practice). */
 export const MIN_PRACTICAL_SPACING = 0.25;
@@ -37,7 +37,7 @@ export interface ApplyOption {
 }
 
 /**
- * The three ways to apply `recommendation` to `spread` (SI). `maxSpacing` null means any
+ * The recommendation as it stands, then the three ways to apply `recommendation` to `spread` (SI). `maxSpacing` null means any
  * spacing resolves the bounded segments. `seismographChannels` is the team's channel count.
  */
 export function applyChoices(
@@ -94,6 +94,23 @@ export function applyChoices(
   };
 
   const options: ApplyOption[] = [];
+
+  // The recommendation itself: the finer spacing and enough channels to reach the offset.
+  {
+    const dx = fine;
+    const n = Math.max(spread.channels, channelsFor(needed, dx));
+    options.push(
+      build(
+        "recommended",
+        "Follow the recommendation",
+        dx,
+        n,
+        `${n} channels at ${len(dx)} span ${len((n - 1) * dx)} (${len(needed)} needed)${
+          n > spread.channels ? `: ${n - spread.channels} more channels than now` : ""
+        }.`,
+      ),
+    );
+  }
 
   // Keep spacing: add channels until the branches reach the needed offset.
   {

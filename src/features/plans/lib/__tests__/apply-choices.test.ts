@@ -30,7 +30,18 @@ describe("applyChoices", () => {
     expect(o["keep-spacing"].spacing).toBe(3);
     expect(o["keep-length"].spacing).toBe(3);
     expect(o["keep-channels"].spacing).toBe(3);
+    expect(o.recommended.spacing).toBe(3);
     for (const option of Object.values(o)) expect(option.flags.join(" ")).not.toMatch(/Coarser/);
+  });
+
+  it("follows the recommendation: the finer spacing and channels reaching the needed offset", () => {
+    const o = byChoice(
+      applyChoices(spread(5, 24), { maxSpacing: 2.6, spreadLength: 140 }, "metric"),
+    );
+    // 2.6 m rounds down to 2.5 m; 140 m / 2.5 m = 56 intervals = 57 channels (by hand).
+    expect(o.recommended.spacing).toBe(2.5);
+    expect(o.recommended.channels).toBe(57);
+    expect(o.recommended.flags.some((f) => /more than the seismograph's 48/.test(f))).toBe(true);
   });
 
   it("keeps the spacing by adding channels that reach the needed offset", () => {
