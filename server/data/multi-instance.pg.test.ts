@@ -2,8 +2,9 @@
  * Two app servers on one PostgreSQL database behave as one (project `server-pg` only: on
  * SQLite, Spreadsight is one process on one machine). Both start at once on an empty database:
  * the migrations and the demo seed run once. Then: a session made on one works on the other,
- * sign-in rate limits count across both, racing saves sent to both give one winner, and a
- * comment's e-mail notice goes out once.
+ * sign-in rate limits count across both, racing saves sent to both give one winner, a
+ * password-reset link used on both at once works once, and a comment's e-mail notice goes out
+ * once.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createTestDatabase, testDatabaseKind, type TestDatabase } from "../testing/database";
@@ -117,6 +118,41 @@ describe("two app servers on one PostgreSQL database", () => {
       [planId],
     )) as { number: number }[];
     expect(revisions.map((r) => r.number)).toEqual([1, 2]);
+  });
+
+  it("let a password-reset link be used once when both servers receive it at the same time", async () => {
+    const email = "admin@spreadsight.test";
+    expect((await call(a, "POST", "/api/auth/password-reset", { body: { email } })).status).toBe(
+      202,
+    );
+    const mailText = async () =>
+      (
+        (await b.dataSource.query(
+          `SELECT "text" FROM "mail_messages" WHERE "to" LIKE $1 ORDER BY "receivedAt" DESC`,
+          [`%${email}%`],
+        )) as { text: string }[]
+      )[0]?.text;
+    const deadline = Date.now() + 10_000;
+    while (!(await mailText()) && Date.now() < deadline) {
+      await new Promise((resolve) => setTimeout(resolve, 100));
+    }
+    const token = /\/reset\/([a-z2-7]{32})/.exec((await mailText()) ?? "")?.[1];
+    expect(token).toBeDefined();
+    const use = (server: RunningServer, password: string) =>
+      call(server, "POST", `/api/auth/password-reset/${token}`, { body: { password } });
+    const results = await Promise.all([
+      use(a, "Quarry-lantern-58-heron"),
+      use(b, "Basalt-orchard-73-wren"),
+    ]);
+    const statuses = results.map((r) => r.status).sort();
+    expect(statuses[0]).toBe(204);
+    expect(statuses[1]).toBeGreaterThanOrEqual(400);
+    // Exactly one of the two passwords now works.
+    const signIns = await Promise.all([
+      signIn(b, email, "Quarry-lantern-58-heron"),
+      signIn(a, email, "Basalt-orchard-73-wren"),
+    ]);
+    expect(signIns.map((r) => r.status).sort()).toEqual([200, 401]);
   });
 
   it("send a comment's e-mail notice once", async () => {
