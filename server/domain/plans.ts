@@ -83,8 +83,9 @@ export function defaultDocument(name: string): PlanDocument {
       channels: 24,
       firstGeophone: 0,
       shots: [
-        { position: -1.5, label: "end A" },
-        { position: 70.5, label: "end B" },
+        // End shots follow the spread (shot-anchors.ts) as a crew would keep them.
+        { position: -1.5, label: "end A", anchor: { to: "start", offset: -1.5 } },
+        { position: 70.5, label: "end B", anchor: { to: "end", offset: 1.5 } },
       ],
     },
     criteria: { minGeophones: 2, pickError: 0.0005, depthTolerance: 1 },
