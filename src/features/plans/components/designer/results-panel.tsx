@@ -87,10 +87,11 @@ export function ResultsPanel({
         <div className="mb-3 flex flex-wrap items-center gap-x-3 gap-y-2" aria-label="Verdicts">
           <span className="text-sm font-semibold text-ink-deep">Plan verdict</span>
           <VerdictBadge verdict={result.worstStatus} />
-          <span className="text-ink-faint" aria-hidden>
-            |
-          </span>
-          <div role="tablist" aria-label="Ground model shown" className="flex flex-wrap gap-1">
+          <div
+            role="tablist"
+            aria-label="Ground model shown"
+            className="flex flex-wrap gap-1 border-l border-rule pl-3"
+          >
             {result.models.map((m, i) => (
               <button
                 key={i}
