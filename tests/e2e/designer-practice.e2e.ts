@@ -56,6 +56,8 @@ describe("designer practice", () => {
     expect(await row.innerText()).toContain("at 142.50 m");
     expect(await row.innerText()).toContain("beyond the last geophone");
     await screenshot(page, "designer-practice-anchored-shots");
+    // Nit (issue 14 item 11): no stray "|" in the plan verdict row.
+    expect(await page.getByLabel("Verdicts").innerText()).not.toContain("|");
 
     // Undo brings 24 channels (and the end shot at 70.5 m) back; redo returns to 48.
     await page.locator("body").click({ position: { x: 5, y: 5 } });
