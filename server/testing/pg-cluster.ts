@@ -69,8 +69,10 @@ export async function startPgCluster(): Promise<PgCluster> {
         "TEST_DATABASE_URL to an existing server (see docs/api.md, Database)",
     );
   }
-  const dir = mkdtempSync(join(tmpdir(), "spreadsight-pg-"));
   const ids = postgresIds();
+  // As root the server runs as `postgres`, which must reach the folder: /tmp always lets it
+  // (a TMPDIR under /root would not).
+  const dir = mkdtempSync(join(ids ? "/tmp" : tmpdir(), "spreadsight-pg-"));
   if (ids) chownSync(dir, ids.uid, ids.gid);
   const data = join(dir, "data");
   const port = await freePort();
