@@ -10,6 +10,8 @@ import { planQueryOptions } from "../../api/get-plan";
 import { useElementWidth } from "@/hooks/use-element-width";
 import { useModellerQuery } from "../../hooks/use-modeller-query";
 import { layeredModel, type Plan } from "../../lib/engine";
+import { isSectionAnalysis } from "@engine";
+import { sectionOverlayData } from "../../lib/section-compare";
 import { privateModeller, type ModellerClient } from "../../lib/modeller-client";
 import {
   buildOverlay,
@@ -36,8 +38,14 @@ async function runScenarios(
   const results: ScenarioResult[] = [];
   for (const s of scenarios) {
     const [from, to] = wholeDomain(s.plan, 0);
-    const model = layeredModel(s.plan.models[0]);
     const analysis = await client.analyze(s.plan);
+    const first = analysis.models[0];
+    if (isSectionAnalysis(first)) {
+      // a section's arrivals come from its 2-D analysis
+      results.push({ analysis, ...sectionOverlayData(first, 0) });
+      continue;
+    }
+    const model = layeredModel(s.plan.models[0]);
     const curves = await client.curves(model, s.plan.spread.shots[0].position, from, to, 600, {
       reflections: false,
     });
