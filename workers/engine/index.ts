@@ -53,6 +53,18 @@ export {
   type SpreadGeometry,
 } from "./shot-anchors";
 export {
+  MAX_STACK,
+  SITE_NOISE_LEVELS,
+  SOURCE_REACH,
+  SOURCE_TYPES,
+  reachFlags,
+  sourceReach,
+  stacksToReach,
+  type ReachFlag,
+  type SiteNoise,
+  type SourceType,
+} from "./source-reach";
+export {
   STATUSES,
   STATUS_CODE,
   CELL_INVALID,

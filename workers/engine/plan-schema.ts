@@ -131,6 +131,12 @@ export const shotSchema = z.strictObject({
       ),
     })
     .optional(),
+  /** Source used at this shot (source-reach.ts); absent = not stated (no reach check). */
+  source: z
+    .enum(["sledgehammer", "weight-drop", "seismic-gun", "buried-charge"], {
+      error: 'shot source must be "sledgehammer", "weight-drop", "seismic-gun" or "buried-charge"',
+    })
+    .optional(),
 });
 
 export const spreadSchema = z
@@ -145,6 +151,12 @@ export const spreadSchema = z
       .max(MAX_CHANNELS, `channels must be at most ${MAX_CHANNELS}`),
     /** Position of the first geophone along the line, m. */
     firstGeophone: finite("first geophone position"),
+    /** Site noise for the sources' reach (source-reach.ts); absent = not stated. */
+    noise: z
+      .enum(["quiet", "moderate", "noisy"], {
+        error: 'site noise must be "quiet", "moderate" or "noisy"',
+      })
+      .optional(),
     shots: z
       .array(shotSchema)
       .min(1, "a spread needs at least one shot")
