@@ -64,6 +64,8 @@ export interface ShotRow {
   anchor?: "" | ShotAnchorPoint;
   /** Offset from the anchor point, display units (anchored rows only). */
   offset?: string;
+  /** Source used at this shot (source-reach.ts); "" or absent = not stated. */
+  source?: string;
 }
 
 export interface PlanForm {
@@ -72,6 +74,8 @@ export interface PlanForm {
     spacing: string;
     channels: string;
     firstGeophone: string;
+    /** Site noise for the sources' reach; "" or absent = not stated. */
+    noise?: string;
     shots: ShotRow[];
   };
   criteria: {
@@ -133,6 +137,7 @@ export function planToForm(plan: Plan, units: UnitSystem): PlanForm {
       spacing: formatInput("length", plan.spread.spacing, units),
       channels: String(plan.spread.channels),
       firstGeophone: formatInput("length", plan.spread.firstGeophone, units),
+      ...(plan.spread.noise ? { noise: plan.spread.noise } : {}),
       shots: plan.spread.shots.map((shot) => ({
         position: formatInput("length", shot.position, units),
         label: shot.label ?? "",
@@ -140,6 +145,7 @@ export function planToForm(plan: Plan, units: UnitSystem): PlanForm {
         ...(shot.anchor
           ? { anchor: shot.anchor.to, offset: formatInput("length", shot.anchor.offset, units) }
           : {}),
+        ...(shot.source ? { source: shot.source } : {}),
       })),
     },
     criteria: {
@@ -255,6 +261,7 @@ export function formToPlanInput(
       spacing: required(parseInput("length", form.spread.spacing, units)),
       channels: required(parseInput("count", form.spread.channels, units)),
       firstGeophone: required(parseInput("length", form.spread.firstGeophone, units)),
+      ...(form.spread.noise ? { noise: form.spread.noise } : {}),
       shots: form.spread.shots.map((shot) => {
         const out: Record<string, unknown> = {};
         if (shot.anchor) {
@@ -273,6 +280,7 @@ export function formToPlanInput(
           out.position = required(parseInput("length", shot.position, units));
         }
         if (text(shot.label)) out.label = text(shot.label);
+        if (shot.source) out.source = shot.source;
         const depth = sections ? parseInput("length", shot.depth ?? "", units) : undefined;
         if (depth !== undefined && depth !== 0) out.depth = depth;
         return out;

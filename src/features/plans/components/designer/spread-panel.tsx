@@ -8,6 +8,7 @@ import { patternShots, spreadFigures, type ShotPattern } from "../../lib/spread-
 import { useDesignerSlots } from "../../designer-slots";
 import { AnchorCommentsChip } from "./anchor-comments";
 import { CellInput } from "./cell-input";
+import { SourceReachPanel } from "./source-reach-panel";
 import { ANCHOR_CHOICES, anchorChange, rowPosition } from "../../lib/shot-rows";
 import { errorAt } from "./ground-models-panel";
 
@@ -273,6 +274,8 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
           </p>
         ) : null}
       </fieldset>
+
+      <SourceReachPanel units={units} readOnly={readOnly} />
 
       <fieldset>
         <legend className="mb-2 text-sm font-semibold text-ink">What counts as resolved</legend>
