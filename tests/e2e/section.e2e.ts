@@ -130,6 +130,14 @@ describe("ground sections in the browser", () => {
     await sweep.waitFor({ timeout: 60_000 });
     expect(await sweep.getByRole("row").count()).toBe(3);
     await screenshot(page, "section-sweep");
+
+    // Side by side: the layered model and its section, overlaid.
+    await page.getByRole("button", { name: "Side by side" }).click();
+    await page
+      .getByRole("table", { name: "Verdicts and depth errors side by side" })
+      .waitFor({ timeout: 30_000 });
+    await page.getByRole("img", { name: "First arrivals of the scenarios, overlaid" }).waitFor();
+    await screenshot(page, "section-side-by-side");
     await page.getByRole("button", { name: "Design", exact: true }).click();
 
     await page.getByRole("button", { name: "Save" }).click();
