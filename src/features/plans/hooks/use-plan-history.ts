@@ -105,7 +105,7 @@ export function historyKey(event: KeyboardEvent): "undo" | "redo" | null {
  * re-render on edits; `useHistoryState` gives the buttons their state.
  */
 export function usePlanHistory<T extends FieldValues>(
-  form: UseFormReturn<T>,
+  form: Pick<UseFormReturn<T>, "getValues" | "reset" | "watch">,
   enabled: boolean,
 ): PlanHistory<T> {
   const [history] = useState(() => new PlanHistory<T>(form));

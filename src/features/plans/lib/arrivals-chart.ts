@@ -123,10 +123,11 @@ export function flagReason(
   switch (verdict.status) {
     case "inverted":
       return layerAbove
-        ? `no head wave: not faster than layer ${layerAbove.layer} (${formatQuantity("velocity", layerAbove.velocity, units)}) above it — a velocity inversion`
-        : "no head wave: not faster than a layer above it — a velocity inversion";
+        ? `no head wave: not faster than layer ${layerAbove.layer} (${formatQuantity("velocity", layerAbove.velocity, units)}) above it`
+        : "no head wave: not faster than a layer above it";
     case "blind":
-      return "its head wave is never the first arrival — a blind layer";
+      // The flag already names the verdict ("blind: …"): say why, not the word again.
+      return "its head wave is never the first arrival";
     case "under-sampled":
       return `only ${verdict.geophones} geophone${verdict.geophones === 1 ? "" : "s"} on its segment (minimum ${minGeophones})`;
     case "resolved":

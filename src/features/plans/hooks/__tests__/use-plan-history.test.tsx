@@ -59,7 +59,7 @@ describe("usePlanHistory", () => {
     press("Z", { shiftKey: true });
     expect(result.current.form.getValues("spacing")).toBe("5");
     press("y");
-    expect(result.current.form.getValues("models.1.section.surface")[1]).toEqual([50, 97]);
+    expect(result.current.form.getValues("models.1.section.surface")?.[1]).toEqual([50, 97]);
     expect(result.current.history.getState()).toEqual({ canUndo: true, canRedo: false });
   });
 

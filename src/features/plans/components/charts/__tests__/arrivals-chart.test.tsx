@@ -44,6 +44,8 @@ describe("ArrivalsChart", () => {
     const flag = within(flags).getByText(/Layer 2 \(silty lens\)/);
     expect(flag).toHaveTextContent("blind");
     expect(flag).toHaveTextContent("never the first arrival");
+    // Issue 14 nit: the verdict word is said once, not "blind: … — a blind layer".
+    expect(flag.textContent?.match(/blind/g)).toHaveLength(1);
     expect(flag.closest("li")?.className).toContain("text-brick");
   });
 
