@@ -242,7 +242,8 @@ function SweepEditor({
               </select>
             </div>
           ) : null}
-          <div className="grid grid-cols-2 gap-2">
+          {/* One column: a layer's full name fits its box (issue 14: no truncated names). */}
+          <div className="grid grid-cols-1 gap-2">
             <div className="flex flex-col gap-1">
               <label htmlFor={ids.layer} className="font-medium text-ink">
                 Layer
