@@ -69,6 +69,19 @@ describe("designer practice", () => {
     await page.getByRole("button", { name: "↷ Redo" }).click();
     expect(await page.getByLabel("Channels", { exact: true }).inputValue()).toBe("48");
 
+    // Source reach: a hammer on a moderate site does not reach 142.5 m; stacking is offered.
+    await page.getByLabel("Site noise").selectOption("moderate");
+    await page.getByLabel("Shot 1 source").selectOption("sledgehammer");
+    const reach = page.getByRole("list", { name: "Reach flags" });
+    await reach.waitFor();
+    expect(await reach.innerText()).toMatch(/Shot 1 must record out to 142\.50 m.*stack 6 shots/);
+    expect(await page.getByRole("list", { name: "Source cautions" }).innerText()).toContain(
+      "Defer to local codes and licensed practice",
+    );
+    await page.getByRole("group", { name: "Source reach" }).screenshot({
+      path: "tests/e2e/screenshots/designer-practice-source-reach.png",
+    });
+
     // Apply offers what to keep, each with its consequence.
     await page.getByRole("tab", { name: "Resolvability" }).click();
     const ways = page.getByRole("list", { name: "Ways to apply" });
