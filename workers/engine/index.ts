@@ -92,7 +92,8 @@ export {
 } from "./materials";
 export { polylineAt } from "./section-schema";
 export { sectionFromLayered } from "./section-convert";
-export { analyzeSection, isSectionAnalysis, sectionShotField } from "./section-analysis";
+export { analyzeSection, sectionShotField } from "./section-analysis";
+export { isSectionAnalysis } from "./section-kind";
 export { runSectionSweep, MAX_SECTION_SWEEP_CELLS } from "./section-sweep";
 export type * from "./section-types";
 export { modellerApi, type ModellerApi } from "./worker-api";

@@ -6,13 +6,7 @@
  * ModelAnalysis are filled from the same numbers so lists, reports and revisions keep
  * working. Units: m, s, m/s.
  */
-import type {
-  BranchVerdict,
-  DirectWaveAnalysis,
-  ModelAnalysis,
-  RefractorAnalysis,
-  Segment,
-} from "./analysis";
+import type { BranchVerdict, DirectWaveAnalysis, RefractorAnalysis, Segment } from "./analysis";
 import { layoutOf } from "./validate";
 import type { Criteria, Plan, SectionModel, Spread } from "./plan-schema";
 import { solveSection, type SolvedSection, type SolvedShot } from "./section-arrivals";
@@ -28,10 +22,8 @@ import type {
 import { worstStatus, type Status } from "./statuses";
 import { finiteOrNull } from "./numbers";
 
-/** True when a model analysis comes from a section model (it carries arrivals and coverage). */
-export function isSectionAnalysis(model: ModelAnalysis): model is SectionModelAnalysis {
-  return (model as Partial<SectionModelAnalysis>).kind === "section";
-}
+/** True when a model analysis comes from a section model (section-kind.ts). */
+export { isSectionAnalysis } from "./section-kind";
 
 function arrivalsOf(solved: SolvedSection, spread: Spread): SectionShotArrivals[] {
   return solved.shots.map((s) => ({
