@@ -1,5 +1,5 @@
 import { useState, type RefObject } from "react";
-import { downloadPng, downloadSvg } from "@/lib/chart/export";
+import { downloadPng, downloadSvg, type ExportLegendItem } from "@/lib/chart/export";
 import { errorMessage } from "@/lib/api-client";
 
 /** "Export SVG" and "Export PNG" for a chart drawn as SVG. */
@@ -16,8 +16,10 @@ export function ExportButtons({
     if (!svg) return;
     setError(null);
     try {
-      if (kind === "svg") downloadSvg(svg, title);
-      else await downloadPng(svg, title);
+      // The chart's own legend (the list beside it) goes into the file under the title.
+      const legend = legendNear(svg);
+      if (kind === "svg") downloadSvg(svg, title, legend);
+      else await downloadPng(svg, title, legend);
     } catch (e) {
       setError(errorMessage(e));
     }
@@ -39,4 +41,21 @@ export function ExportButtons({
       ) : null}
     </div>
   );
+}
+
+/**
+ * The legend entries shown with a chart: the items of the nearest `ul[aria-label="Legend"]`
+ * in the chart's figure, each with the colour of its swatch.
+ */
+export function legendNear(svg: SVGSVGElement): ExportLegendItem[] {
+  const list = (svg.closest("figure") ?? svg.closest("section"))?.querySelector(
+    'ul[aria-label="Legend"]',
+  );
+  if (!list) return [];
+  return Array.from(list.querySelectorAll(":scope > li")).map((li) => {
+    const swatch = li.querySelector("span") as HTMLElement | null;
+    const colour =
+      swatch?.style.background || swatch?.style.borderColor || swatch?.style.backgroundColor;
+    return { label: (li.textContent ?? "").trim(), colour: colour || "#4a5a5e" };
+  });
 }
