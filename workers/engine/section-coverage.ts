@@ -20,6 +20,13 @@
 import type { Side } from "./branches";
 import { branchOf, type Branch, type Layout } from "./branches";
 import type { SolvedSection } from "./section-arrivals";
+import {
+  exitPoint,
+  featureName,
+  interfaceFeatures,
+  practicalSpacing,
+  type InterfaceFeature,
+} from "./section-features";
 import { topAt, velocityAt, type SectionGeometry } from "./section-geometry";
 import type { CoverageStretch, InterfaceCoverage, StretchRecommendation } from "./section-types";
 import { worstStatus, type Status } from "./statuses";
@@ -115,6 +122,76 @@ function presentAt(g: SectionGeometry, m: number, x: number): boolean {
   return m === g.layerCount - 1 || topAt(g, m, x) - topAt(g, m + 1, x) > 1e-9;
 }
 
+/** The most exit points one branch puts on a feature, and which branch. */
+interface FeatureBest {
+  count: number;
+  shot: number;
+  side: Side | null;
+}
+
+/**
+ * Under-sampled features of one branch run: each feature lying strictly inside the span of
+ * the run's exit points (the branch spans it, as the layered rule for segments) with fewer
+ * than minGeophones exit points on it gives a stretch (judged for now; the caller clears
+ * `judged` when another branch resolves the feature). Updates `best` for every feature.
+ */
+export function featureStretches(
+  features: readonly InterfaceFeature[],
+  geophones: readonly number[],
+  shot: { readonly shot: number; readonly from: Float64Array; readonly to: Float64Array },
+  gx: Float64Array,
+  b: SectionBranch,
+  minGeophones: number,
+  best: FeatureBest[],
+): [CoverageStretch, number][] {
+  const out: [CoverageStretch, number][] = [];
+  if (features.length < 2) {
+    // a planar interface is one feature, never strictly inside a run: count only
+    if (features.length === 1) {
+      const f = features[0];
+      let count = 0;
+      for (const k of geophones) {
+        const e = exitPoint(shot.from[k], shot.to[k], gx[k]);
+        if (e >= f.from && e <= f.to) count++;
+      }
+      if (count > best[0].count) best[0] = { count, shot: b.shot, side: b.side };
+    }
+    return out;
+  }
+  const exits = geophones.map((k) => exitPoint(shot.from[k], shot.to[k], gx[k]));
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const e of exits) {
+    if (e < lo) lo = e;
+    if (e > hi) hi = e;
+  }
+  features.forEach((f, index) => {
+    const on: number[] = [];
+    exits.forEach((e, i) => {
+      if (e >= f.from && e <= f.to) on.push(geophones[i]);
+    });
+    if (on.length > best[index].count)
+      best[index] = { count: on.length, shot: b.shot, side: b.side };
+    if (!(f.to > f.from) || !(f.from > lo && f.to < hi) || on.length >= minGeophones) return;
+    on.sort((p, q) => gx[p] - gx[q]);
+    out.push([
+      {
+        from: f.from,
+        to: f.to,
+        geophones: on.length,
+        status: "under-sampled",
+        shot: b.shot,
+        side: b.side,
+        judged: true,
+        geophonePositions: on.map((k) => gx[k]),
+        feature: featureName(features, index),
+      },
+      index,
+    ]);
+  });
+  return out;
+}
+
 /** Coverage of every interface (layers 2..n) and a recommendation per weak stretch. */
 export function sectionCoverage(
   solved: SolvedSection,
@@ -135,6 +212,10 @@ export function sectionCoverage(
   for (let m = 1; m < n; m++) {
     const stretches: CoverageStretch[] = [];
     const criticalOffsets: number[] = [];
+    const features = interfaceFeatures(g.bases[m - 1]);
+    // per feature, the most exit points any branch puts on it, and that branch
+    const best: FeatureBest[] = features.map(() => ({ count: 0, shot: -1, side: null }));
+    const featureOf = new Map<CoverageStretch, number>();
     for (const b of branches) {
       const shot = byShot.get(b.shot);
       if (!shot) continue;
@@ -159,6 +240,11 @@ export function sectionCoverage(
           geophonePositions: run.geophones.map((k) => gx[k]),
         });
         criticalOffsets.push(Math.abs(gx[run.geophones[0]] - shot.x));
+        const found = featureStretches(features, run.geophones, shot, gx, b, minGeophones, best);
+        for (const [stretch, index] of found) {
+          stretches.push(stretch);
+          featureOf.set(stretch, index);
+        }
       }
       // first between two geophones of the branch but on none: a segment holding no
       // geophone, spanned by the branch (the layered under-sampled case with 0 geophones)
@@ -179,7 +265,10 @@ export function sectionCoverage(
         });
       }
     }
-    const sampled = stretches.slice();
+    // a feature is resolved when ANY branch puts minGeophones exit points on it (reversed
+    // shots image the same refractor): then a weaker branch's feature stretch is not judged
+    for (const [s, index] of featureOf) s.judged = best[index].count < minGeophones;
+    const sampled = stretches.filter((s) => !featureOf.has(s));
     const inverted = intervalsWhere(
       g.from,
       g.to,
@@ -234,9 +323,35 @@ export function sectionCoverage(
     const median = criticalOffsets.length
       ? criticalOffsets.slice().sort((a, b) => a - b)[criticalOffsets.length >> 1]
       : 2 * Math.max(0, topAt(g, 0, spreadFrom) - topAt(g, m, spreadFrom));
+    const recommended = new Set<number>();
     for (const s of stretches) {
       if (s.status === "resolved") continue;
       const where = `from ${fmt(s.from)} to ${fmt(s.to)} m`;
+      const index = featureOf.get(s);
+      if (index !== undefined) {
+        // an under-sampled feature: named, with the exit points on it
+        const other = best[index];
+        const by = `by shot ${(s.shot ?? 0) + 1} ${s.side}`;
+        parts.push(
+          `the ${s.feature} ${where} is seen on ${s.geophones} geophone${s.geophones === 1 ? "" : "s"} ${by}: ` +
+            (s.judged
+              ? "under-sampled"
+              : `under-sampled on this branch (resolved by shot ${other.shot + 1} ${other.side})`),
+        );
+        if (!s.judged || recommended.has(index)) continue;
+        recommended.add(index);
+        const spacing = practicalSpacing(s.to - s.from, minGeophones);
+        const shots = [Math.max(g.from, s.from - median), Math.min(g.to, s.to + median)].map(
+          (x) => Math.round(x * 10) / 10,
+        );
+        const text =
+          `Layer ${m + 1} top, the ${s.feature} ${where}: use geophone spacing at most ` +
+          `${fmt(spacing, 2)} m over ${fmt(s.from)}–${fmt(s.to)} m and a few metres beyond each end ` +
+          `(so that ${minGeophones} head-wave rays leave the interface on it), and shots near ` +
+          `${fmt(shots[0])} m (shooting forward) and ${fmt(shots[1])} m (shooting back).`;
+        recommendations.push({ layer: m + 1, from: s.from, to: s.to, spacing, shots, text });
+        continue;
+      }
       if (s.status === "under-sampled") {
         parts.push(
           `${where} is seen on ${s.geophones} geophone${s.geophones === 1 ? "" : "s"} by shot ${(s.shot ?? 0) + 1} ${s.side}: under-sampled${s.judged ? "" : " (at the end of the branch)"}`,

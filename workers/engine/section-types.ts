@@ -60,6 +60,16 @@ export interface CoverageStretch {
   judged: boolean;
   /** Positions of the geophones, m (the first and last bound the receiving window). */
   geophonePositions: number[];
+  /**
+   * Present only on a FEATURE stretch: the plain name of an interface feature (e.g. "channel
+   * floor", "slope dipping 30°"; section-features.ts) that lies strictly inside a branch's
+   * run but on which fewer than minGeophones of the run's rays leave the interface (their
+   * exit points, where a geophone images the refractor). `from`/`to` are the feature's ends,
+   * `geophones` the exit points on it, `geophonePositions` those geophones; the status is
+   * under-sampled, placed after its branch's run stretch. `judged` is false when another
+   * branch puts minGeophones exit points on the same feature (it is then resolved).
+   */
+  feature?: string;
 }
 
 /** Coverage of one interface (the top of `layer`). */
