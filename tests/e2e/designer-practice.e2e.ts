@@ -4,6 +4,7 @@
  * and the design sweep says how to read it (feet precision is checked in src/lib units tests). Screenshots go to
  * tests/e2e/screenshots/designer-practice-*.png.
  */
+import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
 import { demoAccounts, openBrowser, screenshot, signIn, startApp, type E2eApp } from "./harness";
@@ -81,6 +82,17 @@ describe("designer practice", () => {
     await page.getByRole("group", { name: "Source reach" }).screenshot({
       path: "tests/e2e/screenshots/designer-practice-source-reach.png",
     });
+
+    // An exported chart says what it shows: its title and legend are in the file.
+    await page.getByRole("tab", { name: "Arrivals" }).click();
+    await page.getByRole("img", { name: /Arrivals,/ }).waitFor();
+    const [download] = await Promise.all([
+      page.waitForEvent("download"),
+      page.getByRole("button", { name: "Export SVG" }).first().click(),
+    ]);
+    const svgText = readFileSync(await download.path(), "utf8");
+    expect(svgText).toMatch(/<text[^>]*font-weight="600"[^>]*>Arrivals/);
+    expect(svgText).toContain(">first arrival</text>");
 
     // Apply offers what to keep, each with its consequence.
     await page.getByRole("tab", { name: "Resolvability" }).click();
