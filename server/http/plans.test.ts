@@ -114,7 +114,8 @@ describe("creating plans", () => {
   it("puts a trainee's plan in their sandbox", async () => {
     const plan = await createPlan(api.trainee, team.sites.active, "My first scenario");
     expect(plan.sandbox).toBe(true);
-    expect(plan.permissions).toMatchObject({ edit: true, submit: false, comment: false });
+    // A trainee may write notes on their own sandbox scenario (to ask a reviewer), not submit it.
+    expect(plan.permissions).toMatchObject({ edit: true, submit: false, comment: true });
   });
 
   it("refuses a plan on another team's or an unknown site (404) and on an archived site (409)", async () => {
