@@ -72,10 +72,11 @@ export function recoverDipLayered(
   }
   const v1 = velocities[0];
   const trace = (p: number, sign: 1 | -1): [number, number] | null => {
-    // emerging ray in the top layer: horizontal component sign·p, going up (z decreasing)
+    // emerging ray in the top layer: horizontal component sign·p, going up (z decreasing).
+    // p may be 0 or negative: steep up-dip, the apparent velocity is infinite or reversed.
     const sx = sign * p;
     const sz2 = 1 / (v1 * v1) - sx * sx;
-    if (!(p > 0) || !(sz2 > 0)) return null;
+    if (!Number.isFinite(p) || !(sz2 > 0)) return null;
     let s: [number, number] | null = [sx, -Math.sqrt(sz2)];
     for (let k = 1; k < m && s; k++) {
       s = refractDown(s[0], s[1], Math.tan(dips[k - 1] * DEG), velocities[k]);
