@@ -380,3 +380,23 @@ describe("planar sections keep the layered verdicts (no feature stretches)", () 
     },
   );
 });
+
+describe("docs/examples/section-buried-channel.json", () => {
+  it("flags the channel floor of rockhead with its spread", () => {
+    const plan = planOf(
+      JSON.parse(readFileSync(`${root}docs/examples/section-buried-channel.json`, "utf8")),
+    );
+    const a = analyzePlan(plan).models[0];
+    if (!isSectionAnalysis(a)) throw new Error("not a section analysis");
+    const rock = a.coverage[1];
+    // the mudstone's top drawn in the example: walls 44–50 m and 58–64 m, floor 50–58 m
+    const floor = rock.stretches.filter((s) => s.feature === "channel floor" && s.judged);
+    expect(floor.length).toBeGreaterThan(0);
+    for (const s of floor) {
+      expect([s.from, s.to, s.status]).toEqual([50, 58, "under-sampled"]);
+      expect(s.geophones).toBeLessThan(plan.criteria.minGeophones);
+    }
+    expect(rock.status).toBe("under-sampled");
+    expect(rock.summary).toMatch(/the channel floor from 50 to 58 m is seen on \d geophone/);
+  });
+});

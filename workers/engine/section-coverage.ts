@@ -16,6 +16,15 @@
  *  - inverted: the layer is not faster than a layer above there (no head wave).
  * The interface's verdict is the worst over the stretches that count; under-sampled when
  * none counts.
+ *
+ * Features (section-features.ts): a geophone images the refractor where its ray leaves it
+ * (the exit point; delay-time concept, Barry 1967), so each interface is split into
+ * features (runs of segments whose dip changes by less than FEATURE_DIP_TOLERANCE_DEG) and
+ * every feature lying strictly inside the span of a branch run's exit points with fewer
+ * than minGeophones exit points on it adds an under-sampled stretch (`feature` set) after
+ * that run's stretch. A feature is resolved when ANY branch puts minGeophones exit points
+ * on it (reversed shots image the same refractor): the weaker branches' feature stretches
+ * are then not judged. A planar interface is one feature and never adds a stretch.
  */
 import type { Side } from "./branches";
 import { branchOf, type Branch, type Layout } from "./branches";
