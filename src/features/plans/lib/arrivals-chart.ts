@@ -69,7 +69,10 @@ export interface SegmentLabel {
   count: number;
   status: Status;
   x: number;
+  /** Baseline of the text, px (already clear of the curve). */
   y: number;
+  /** Which end of the text sits at x: "end" left of the curve, "start" right of it. */
+  anchor: "start" | "end";
   text: string;
 }
 
@@ -274,16 +277,22 @@ export function buildArrivalsChart(input: ArrivalsChartInput): ArrivalsChartMode
               ? b.interceptTime + mid / b.apparentVelocity
               : mid / analysis.direct.velocity;
           const name = layer === 1 ? "direct" : `L${layer}`;
+          // The label ends just left of the curve (which rises to the right, so the text stays
+          // above it). Near the plot's left edge there is no room (labels are about 120 px
+          // wide): it starts right of the curve and sits below it instead, off the line.
+          const px = x(signed);
+          const left = px - 8 >= margin.left + 140;
           segmentLabels.push({
             key: `${layer}-${b.side}`,
             layer,
             side: b.side,
             count: b.geophones,
             status: b.status,
-            // The label ends just left of the curve (which rises to the right, so the text
-            // stays above it) and never leaves the plot (labels are about 120 px wide).
-            x: Math.min(Math.max(x(signed) - 8, margin.left + 140), width - margin.right),
-            y: y(t),
+            x: left
+              ? Math.min(px - 8, width - margin.right)
+              : Math.min(px + 10, width - margin.right - 120),
+            y: left ? y(t) - 6 : y(t) + 16,
+            anchor: left ? "end" : "start",
             text: `${name}: ${b.geophones} geophone${b.geophones === 1 ? "" : "s"}`,
           });
         }

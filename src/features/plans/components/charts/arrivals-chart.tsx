@@ -162,8 +162,8 @@ export function ArrivalsChart({
           <g key={s.key} data-segment-layer={s.layer} data-segment-side={s.side}>
             <text
               x={s.x}
-              y={s.y - 6}
-              textAnchor="end"
+              y={s.y}
+              textAnchor={s.anchor}
               fontSize={11}
               fontFamily={chartMono}
               fill={s.status === "resolved" ? palette.inkDeep : palette.brick}

@@ -89,6 +89,9 @@ describe("ArrivalsChart", () => {
       for (const label of chart.segmentLabels) {
         expect(label.text).toContain(`${label.count} geophone`);
         expect(Number.isFinite(label.x) && Number.isFinite(label.y)).toBe(true);
+        // About 120 px of text stays inside the plot on the side its anchor leaves it.
+        if (label.anchor === "end") expect(label.x - 120).toBeGreaterThanOrEqual(chart.margin.left);
+        else expect(label.x + 120).toBeLessThanOrEqual(chart.width - chart.margin.right);
       }
     }
   });
