@@ -131,8 +131,8 @@ function presentAt(g: SectionGeometry, m: number, x: number): boolean {
   return m === g.layerCount - 1 || topAt(g, m, x) - topAt(g, m + 1, x) > 1e-9;
 }
 
-/** The most exit points one branch puts on a feature, and which branch. */
-interface FeatureBest {
+/** The most exit points one branch puts on a feature (count of geophones), and which branch. */
+export interface FeatureBest {
   count: number;
   shot: number;
   side: Side | null;
