@@ -155,7 +155,10 @@ function fieldChanges<T extends object>(from: T, to: T, keys: (keyof T & string)
 }
 
 function shotChanges(from: Shot[], to: Shot[]): { added: Shot[]; removed: Shot[] } {
-  const key = (s: Shot) => `${s.position}\u0000${s.label ?? ""}`;
+  // An anchored shot that followed a spread edit is the same shot (the spread diff says why it
+  // moved); a fixed shot is known by its position.
+  const key = (s: Shot) =>
+    `${s.anchor ? `${s.anchor.to}${s.anchor.offset}` : s.position}\u0000${s.label ?? ""}`;
   const remaining = new Map<string, number>();
   for (const s of from) remaining.set(key(s), (remaining.get(key(s)) ?? 0) + 1);
   const added: Shot[] = [];
