@@ -65,6 +65,9 @@ export function stretchMarks(
     if (!base) continue;
     const rows = new Map<string, number>();
     for (const s of c.stretches) {
+      // feature stretches lie inside their branch's run: drawn on the interface instead
+      // (featureBands), never as another mark on the branch row
+      if (s.feature !== undefined) continue;
       const key = s.shot === null ? "none" : `${s.shot}:${s.side}`;
       if (!rows.has(key)) rows.set(key, s.shot === null ? -1 : rows.size);
       const row = rows.get(key) as number;
@@ -101,6 +104,134 @@ export function stretchMarks(
             : null,
       });
     }
+  }
+  return out;
+}
+
+/** Plain words for a count of geophones ("1 geophone", "3 geophones"). */
+export const geophoneWord = (n: number) => `${n} geophone${n === 1 ? "" : "s"}`;
+
+/**
+ * What a feature stretch means in words: under-sampled when it counts towards the verdict,
+ * "resolved by another branch" when another shot branch puts enough exit points on the same
+ * feature (`judged` false, section-types.ts). Null for a stretch without `feature`.
+ */
+export function featureVerdict(s: CoverageStretch): string | null {
+  if (s.feature === undefined) return null;
+  return s.judged ? "under-sampled" : "resolved by another branch";
+}
+
+/**
+ * The stretches of one interface in reading order: under-sampled (judged) feature stretches
+ * first, so a lead sees at once which stretch the spread misses, then the other stretches as
+ * they came (feature stretches resolved by another branch stay beside their run).
+ */
+export function orderStretches(stretches: CoverageStretch[]): CoverageStretch[] {
+  const weak = stretches.filter((s) => s.feature !== undefined && s.judged);
+  return [...weak, ...stretches.filter((s) => !weak.includes(s))];
+}
+
+/** The recommendation for a stretch of interface `layer` (same ends within 1 mm), or null. */
+export function recommendationFor<R extends { layer: number; from: number; to: number }>(
+  recommendations: R[],
+  layer: number,
+  s: CoverageStretch,
+): R | null {
+  return (
+    recommendations.find(
+      (r) => r.layer === layer && Math.abs(r.from - s.from) < 1e-3 && Math.abs(r.to - s.to) < 1e-3,
+    ) ?? null
+  );
+}
+
+export interface FeatureBand {
+  layer: number;
+  feature: string;
+  from: number;
+  to: number;
+  /** Most exit points any branch puts on the feature (all fewer than minGeophones). */
+  geophones: number;
+  /** The band along the interface between from and to (SVG path, px). */
+  path: string;
+  /** Label above the interface, lifted a line per neighbour it would overlap. */
+  label: { x: number; y: number; text: string; anchor: "start" | "middle" | "end" };
+  /** Leader from the label down to the band. */
+  leader: { x: number; y1: number; y2: number };
+}
+
+/**
+ * Under-sampled interface features (judged feature stretches) as bands on the interface
+ * itself, exactly from `from` to `to`, one per feature (branches that flag the same feature
+ * share it), labelled "<feature>: <n> geophone(s)" above the interface; labels that would
+ * overlap are stacked a line higher. Features resolved by another branch are not drawn.
+ */
+export function featureBands(
+  view: SectionView,
+  section: SectionDraft,
+  coverage: InterfaceCoverage[],
+): FeatureBand[] {
+  const out: FeatureBand[] = [];
+  const charPx = 6.1; // 10.5 px sans-serif, semibold: a generous average glyph width
+  const placed: Array<{ x0: number; x1: number; line: number }> = [];
+  const left = view.margin.left;
+  const right = view.width - view.margin.right;
+  for (const c of coverage) {
+    const base = section.layers[c.layer - 2]?.base;
+    if (!base) continue;
+    const seen = new Map<string, FeatureBand>();
+    for (const s of c.stretches) {
+      if (s.feature === undefined || !s.judged || s.status !== "under-sampled") continue;
+      const a = Math.min(s.from, s.to);
+      const b = Math.max(s.from, s.to);
+      const key = `${s.feature}:${a.toFixed(3)}:${b.toFixed(3)}`;
+      const had = seen.get(key);
+      if (had) {
+        had.geophones = Math.max(had.geophones, s.geophones);
+        had.label.text = `${had.feature}: ${geophoneWord(had.geophones)}`;
+        continue;
+      }
+      const from = Math.max(view.from, a);
+      const to = Math.min(view.to, b);
+      if (!(to >= from)) continue;
+      const pts = clipLine(base, from, to);
+      const path = pts
+        .map(([x, z], i) => `${i === 0 ? "M" : "L"}${view.x(x).toFixed(1)},${view.y(z).toFixed(1)}`)
+        .join("");
+      const mid = (from + to) / 2;
+      const px = view.x(mid);
+      const py = Math.min(...pts.map(([, z]) => view.y(z)));
+      const band: FeatureBand = {
+        layer: c.layer,
+        feature: s.feature,
+        from: a,
+        to: b,
+        geophones: s.geophones,
+        path,
+        label: {
+          x: px,
+          y: py,
+          text: `${s.feature}: ${geophoneWord(s.geophones)}`,
+          anchor: "middle",
+        },
+        leader: { x: px, y1: py, y2: py },
+      };
+      seen.set(key, band);
+      out.push(band);
+    }
+  }
+  // place the labels once their final text is known
+  for (const band of out) {
+    const w = band.label.text.length * charPx;
+    let x0 = band.label.x - w / 2;
+    if (x0 < left + 2) x0 = left + 2;
+    if (x0 + w > right - 2) x0 = right - 2 - w;
+    let line = 0;
+    while (placed.some((p) => p.line === line && p.x0 < x0 + w + 6 && x0 < p.x1 + 6)) line++;
+    placed.push({ x0, x1: x0 + w, line });
+    const base = band.leader.y1;
+    const y = base - 14 - line * 14;
+    band.label = { x: x0, y, text: band.label.text, anchor: "start" };
+    band.leader = { x: band.leader.x, y1: y + 3, y2: base - 4 };
   }
   return out;
 }

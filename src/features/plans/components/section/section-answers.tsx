@@ -3,17 +3,31 @@ import { ErrorNotice, Notice } from "@/components/feedback";
 import { useElementWidth } from "@/hooks/use-element-width";
 import { chartFont, chartMono, palette } from "@/lib/chart/palette";
 import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
-import type { SectionModelAnalysis } from "@engine";
+import type { CoverageStretch, InterfaceCoverage, SectionModelAnalysis } from "@engine";
 import { useLatestResult } from "../../hooks/use-latest-result";
 import type { Plan } from "../../lib/engine";
 import { modeller } from "../../lib/modeller-client";
 import { objectId } from "../../lib/object-id";
 import type { SectionDraft } from "../../lib/plan-form";
-import { arrivalsPlot, rayColour, sideWord, STRETCH_STYLE } from "../../lib/section-answers";
+import {
+  arrivalsPlot,
+  featureVerdict,
+  geophoneWord,
+  orderStretches,
+  rayColour,
+  recommendationFor,
+  sideWord,
+  STRETCH_STYLE,
+} from "../../lib/section-answers";
 import { buildSectionView } from "../../lib/section-view";
 import { VerdictBadge } from "../verdict-badge";
 import { SectionFigure } from "./section-figure";
-import { InterpretationOverlay, RayOverlay, StretchOverlay } from "./section-overlays";
+import {
+  FeatureOverlay,
+  InterpretationOverlay,
+  RayOverlay,
+  StretchOverlay,
+} from "./section-overlays";
 
 export type SectionTab = "arrivals" | "section" | "resolvability";
 
@@ -68,6 +82,61 @@ function worstSentence(analysis: SectionModelAnalysis, section: SectionDraft, un
   return `Interpreted by the intercept-time method under each shot, the top of ${name} is off by ${formatSigned("length", w.error, units)} at worst, at ${formatQuantity("length", w.position, units)} (positive: interpreted too deep).`;
 }
 
+/** "S2 (far) reverse" for a stretch's shot branch, "—" for none. */
+function branchText(plan: Plan, s: CoverageStretch) {
+  if (s.shot === null) return "—";
+  const label = plan.spread.shots[s.shot]?.label;
+  return `S${s.shot + 1} ${label ? `(${label}) ` : ""}${sideWord(s.side)}`;
+}
+
+/**
+ * The interface features the spread misses (judged feature stretches), highlighted above the
+ * interface's table: feature, where, exit-point geophones and branch, and beside it the
+ * recommendation that would sample it.
+ */
+function WeakFeatures({
+  coverage,
+  analysis,
+  plan,
+  units,
+}: {
+  coverage: InterfaceCoverage;
+  analysis: SectionModelAnalysis;
+  plan: Plan;
+  units: UnitSystem;
+}) {
+  const weak = coverage.stretches.filter((s) => s.feature !== undefined && s.judged);
+  if (weak.length === 0) return null;
+  const name = coverage.name || `layer ${coverage.layer}`;
+  return (
+    <div
+      role="group"
+      aria-label={`Features of the top of ${name} the spread misses`}
+      className="mt-1 rounded-md border-2 border-ochre bg-ochre-soft px-3 py-2"
+    >
+      <p className="font-semibold text-ink-deep">Missed by this spread</p>
+      <ul className="mt-1 space-y-1">
+        {weak.map((s, i) => {
+          const rec = recommendationFor(analysis.section.recommendations, coverage.layer, s);
+          return (
+            <li key={i} className="grid gap-x-4 sm:grid-cols-2">
+              <span className="text-ink-deep">
+                <span className="font-semibold">{s.feature}</span>{" "}
+                <span className="font-mono">
+                  {formatQuantity("length", s.from, units)} –{" "}
+                  {formatQuantity("length", s.to, units)}
+                </span>
+                : {geophoneWord(s.geophones)} ({branchText(plan, s)}), under-sampled
+              </span>
+              {rec ? <span className="text-ink">{rec.text}</span> : null}
+            </li>
+          );
+        })}
+      </ul>
+    </div>
+  );
+}
+
 /**
  * Per interface: its summary sentence, then the stretches sampled by each shot branch with
  * their geophone counts and verdicts, and the recommendations for weak stretches.
@@ -91,6 +160,7 @@ export function CoverageDetails({
             Top of {c.name || `layer ${c.layer}`} <VerdictBadge verdict={c.status} />
           </h4>
           <p className="mt-0.5 text-ink">{c.summary}</p>
+          <WeakFeatures coverage={c} analysis={analysis} plan={plan} units={units} />
           {table && c.stretches.length > 0 ? (
             <table
               className="mt-1 w-full text-xs"
@@ -105,26 +175,48 @@ export function CoverageDetails({
                 </tr>
               </thead>
               <tbody>
-                {c.stretches.map((s, i) => (
-                  <tr key={i} className="border-b border-rule/50">
-                    <td className="py-1 pr-2">
-                      {s.shot === null
-                        ? "—"
-                        : `S${s.shot + 1} ${plan.spread.shots[s.shot]?.label ? `(${plan.spread.shots[s.shot].label}) ` : ""}${sideWord(s.side)}`}
-                    </td>
-                    <td className="py-1 pr-2 font-mono">
-                      {formatQuantity("length", s.from, units)} –{" "}
-                      {formatQuantity("length", s.to, units)}
-                    </td>
-                    <td className="py-1 pr-2 text-right font-mono">{s.geophones}</td>
-                    <td className="py-1">
-                      <VerdictBadge verdict={s.status} />
-                      {!s.judged ? (
-                        <span className="ml-1 text-ink-soft">not judged (runs off the spread)</span>
-                      ) : null}
-                    </td>
-                  </tr>
-                ))}
+                {orderStretches(c.stretches).map((s, i) => {
+                  const weak = s.feature !== undefined && s.judged;
+                  return (
+                    <tr
+                      key={i}
+                      className={
+                        weak ? "border-b border-rule/50 bg-ochre-soft" : "border-b border-rule/50"
+                      }
+                    >
+                      <td className="py-1 pr-2">{branchText(plan, s)}</td>
+                      <td className="py-1 pr-2">
+                        {s.feature !== undefined ? (
+                          <span className={weak ? "font-semibold text-ink-deep" : "text-ink"}>
+                            {s.feature}{" "}
+                          </span>
+                        ) : null}
+                        <span className="font-mono">
+                          {formatQuantity("length", s.from, units)} –{" "}
+                          {formatQuantity("length", s.to, units)}
+                        </span>
+                      </td>
+                      <td className="py-1 pr-2 text-right font-mono">
+                        {s.geophones}
+                        {s.feature !== undefined ? (
+                          <span className="font-sans text-ink-soft"> exit points</span>
+                        ) : null}
+                      </td>
+                      <td className="py-1">
+                        {s.feature !== undefined && !s.judged ? (
+                          <span className="text-ink">{featureVerdict(s)}</span>
+                        ) : (
+                          <VerdictBadge verdict={s.status} />
+                        )}
+                        {!s.judged && s.feature === undefined ? (
+                          <span className="ml-1 text-ink-soft">
+                            not judged (runs off the spread)
+                          </span>
+                        ) : null}
+                      </td>
+                    </tr>
+                  );
+                })}
               </tbody>
             </table>
           ) : null}
@@ -170,6 +262,21 @@ function Legend() {
       {item(band("resolved"), "stretch resolved")}
       {item(band("under-sampled"), "under-sampled")}
       {item(band("blind"), "blind")}
+      {item(
+        <>
+          <line x1="1" x2="25" y1="5" y2="5" stroke={palette.ochre} strokeWidth="8" />
+          <line
+            x1="1"
+            x2="25"
+            y1="5"
+            y2="5"
+            stroke={palette.inkDeep}
+            strokeWidth="8"
+            strokeDasharray="1.5 3"
+          />
+        </>,
+        "hatched band on the interface: a feature under-sampled by every shot branch",
+      )}
       {item(
         <line
           x1="1"
@@ -271,6 +378,7 @@ export function SectionAnswerFigure({
           <RayOverlay view={view} rays={field.result.rays} />
         ) : null}
         <StretchOverlay view={view} section={section} coverage={analysis.coverage} />
+        <FeatureOverlay view={view} section={section} coverage={analysis.coverage} units={units} />
         {interpreted ? (
           <InterpretationOverlay
             view={view}

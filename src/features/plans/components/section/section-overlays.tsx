@@ -1,9 +1,15 @@
-import { chartMono, palette } from "@/lib/chart/palette";
+import { useId } from "react";
+import { chartFont, chartMono, palette } from "@/lib/chart/palette";
 import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
 import type { SectionInterpretation, SectionRay } from "@engine";
 import type { InterfaceCoverage } from "@engine";
 import type { SectionDraft } from "../../lib/plan-form";
-import { interpretationMarks, rayPaths, stretchMarks } from "../../lib/section-answers";
+import {
+  featureBands,
+  interpretationMarks,
+  rayPaths,
+  stretchMarks,
+} from "../../lib/section-answers";
 import type { Borehole } from "../../lib/section-import";
 import { lineAt, type SectionView } from "../../lib/section-view";
 
@@ -117,6 +123,88 @@ export function StretchOverlay({
               {m.label.text}
             </text>
           ) : null}
+        </g>
+      ))}
+    </g>
+  );
+}
+
+/**
+ * Under-sampled interface features (e.g. a channel floor) as a thick hatched ochre band on
+ * the interface itself, exactly between the feature's ends, with a label
+ * ("channel floor: 1 geophone") above the interface on a leader; labels never overlap.
+ */
+export function FeatureOverlay({
+  view,
+  section,
+  coverage,
+  units,
+}: {
+  view: SectionView;
+  section: SectionDraft;
+  coverage: InterfaceCoverage[];
+  units: UnitSystem;
+}) {
+  const id = useId().replace(/:/g, "");
+  const bands = featureBands(view, section, coverage);
+  if (bands.length === 0) return null;
+  const hatch = `feature-hatch-${id}`;
+  return (
+    <g aria-label="Under-sampled features" pointerEvents="none">
+      <defs>
+        <pattern
+          id={hatch}
+          patternUnits="userSpaceOnUse"
+          width={6}
+          height={6}
+          patternTransform="rotate(45)"
+        >
+          <rect width={6} height={6} fill={palette.ochre} />
+          <line x1={0} y1={0} x2={0} y2={6} stroke={palette.inkDeep} strokeWidth={2.2} />
+        </pattern>
+      </defs>
+      {bands.map((b) => (
+        <g
+          key={`${b.layer}:${b.from}:${b.to}`}
+          role="img"
+          aria-label={`${b.feature} from ${formatQuantity("length", b.from, units)} to ${formatQuantity("length", b.to, units)}: ${b.label.text.slice(b.feature.length + 2)}, under-sampled`}
+        >
+          <path
+            d={b.path}
+            fill="none"
+            stroke={palette.card}
+            strokeWidth={13}
+            strokeLinecap="butt"
+          />
+          <path
+            d={b.path}
+            fill="none"
+            stroke={`url(#${hatch})`}
+            strokeWidth={10}
+            strokeLinecap="butt"
+          />
+          <line
+            x1={b.leader.x}
+            x2={b.leader.x}
+            y1={b.leader.y1}
+            y2={b.leader.y2}
+            stroke={palette.inkDeep}
+            strokeWidth={1}
+          />
+          <text
+            x={b.label.x}
+            y={b.label.y}
+            textAnchor={b.label.anchor}
+            fontSize={10.5}
+            fontFamily={chartFont}
+            fontWeight={600}
+            fill={palette.inkDeep}
+            stroke={palette.card}
+            strokeWidth={3}
+            paintOrder="stroke"
+          >
+            {b.label.text}
+          </text>
         </g>
       ))}
     </g>

@@ -96,6 +96,83 @@ const analysis = {
   },
 } as unknown as SectionModelAnalysis;
 
+/**
+ * The same plan's analysis with feature stretches (hand-made, not the engine's): the channel
+ * floor (30–40 m) is seen on 1 geophone by S1 forward and is under-sampled (judged); the
+ * west wall (20–30 m) gets 1 exit point on S1 forward but another branch resolves it
+ * (judged false). minGeophones is 2 in the plan's criteria.
+ */
+const withFeatures = {
+  ...analysis,
+  coverage: [
+    {
+      layer: 2,
+      name: "rockhead",
+      status: "under-sampled",
+      summary:
+        "rockhead sampled from 12 to 60 m; the channel floor from 30 to 40 m is seen on 1 geophone by shot 1 forward: under-sampled.",
+      stretches: [
+        {
+          from: 12,
+          to: 60,
+          geophones: 17,
+          status: "resolved",
+          shot: 0,
+          side: "forward",
+          judged: true,
+          geophonePositions: [],
+        },
+        {
+          from: 20,
+          to: 30,
+          geophones: 1,
+          status: "under-sampled",
+          shot: 0,
+          side: "forward",
+          judged: false,
+          geophonePositions: [45],
+          feature: "west wall",
+        },
+        {
+          from: 30,
+          to: 40,
+          geophones: 1,
+          status: "under-sampled",
+          shot: 0,
+          side: "forward",
+          judged: true,
+          geophonePositions: [54],
+          feature: "channel floor",
+        },
+        {
+          from: 62,
+          to: 69,
+          geophones: 1,
+          status: "under-sampled",
+          shot: 0,
+          side: "forward",
+          judged: false,
+          geophonePositions: [69],
+        },
+      ],
+    },
+  ],
+  section: {
+    ...analysis.section,
+    warnings: [],
+    recommendations: [
+      {
+        layer: 2,
+        from: 30,
+        to: 40,
+        spacing: 1.5,
+        shots: [10],
+        text: "Use a spacing of at most 1.5 m and a shot near 10 m to sample the channel floor.",
+      },
+    ],
+  },
+} as unknown as SectionModelAnalysis;
+
 afterEach(() => setModeller(null));
 
 describe("SectionAnswers", () => {
@@ -156,5 +233,61 @@ describe("SectionAnswers", () => {
     ).toBeInTheDocument();
     expect(asked).toEqual([0]);
     expect(screen.getByText(/No interface could be interpreted/)).toBeInTheDocument();
+  });
+
+  it("lists the under-sampled channel floor first with its exit points and recommendation, and a resolved feature as such", () => {
+    render(
+      <SectionAnswers
+        plan={plan}
+        analysis={withFeatures}
+        modelIndex={0}
+        shotIndex={0}
+        units="metric"
+        tab="resolvability"
+      />,
+    );
+    const missed = screen.getByRole("group", {
+      name: "Features of the top of rockhead the spread misses",
+    });
+    expect(missed.textContent).toMatch(
+      /channel floor\s*30\.00 m – 40\.00 m: 1 geophone \(S1 forward\)/,
+    );
+    expect(within(missed).getByText(/at most 1\.5 m and a shot near 10 m/)).toBeInTheDocument();
+    // the resolved west wall is not listed as missed
+    expect(missed.textContent).not.toMatch(/west wall/);
+
+    const table = screen.getByRole("table", { name: "Stretches of the top of layer 2" });
+    const rows = within(table).getAllByRole("row");
+    // weak feature first (row 0 is the header)
+    expect(rows[1].textContent).toMatch(
+      /channel floor.*30\.00 m – 40\.00 m.*1 exit points.*Under-sampled/,
+    );
+    const wall = rows.find((r) => /west wall/.test(r.textContent ?? ""));
+    expect(wall?.textContent).toMatch(/resolved by another branch/);
+    expect(wall?.textContent).not.toMatch(/runs off the spread/);
+    // an ordinary unjudged stretch at the end of the spread keeps its reason
+    const edge = rows.find((r) => /62\.00 m – 69\.00 m/.test(r.textContent ?? ""));
+    expect(edge?.textContent).toMatch(/runs off the spread/);
+  });
+
+  it("marks the under-sampled feature on the section's interface, not the resolved one", () => {
+    setModeller({
+      sectionField: () => new Promise(() => {}),
+    } as unknown as ModellerClient);
+    render(
+      <SectionAnswers
+        plan={plan}
+        analysis={withFeatures}
+        modelIndex={0}
+        shotIndex={0}
+        units="metric"
+        tab="section"
+      />,
+    );
+    const band = screen.getByRole("img", {
+      name: "channel floor from 30.00 m to 40.00 m: 1 geophone, under-sampled",
+    });
+    expect(within(band).getByText("channel floor: 1 geophone")).toBeInTheDocument();
+    expect(screen.queryByRole("img", { name: /^west wall/ })).toBeNull();
   });
 });
