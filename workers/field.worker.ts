@@ -1,5 +1,7 @@
 /**
- * Field worker entry: exposes the SEG-2 reader and the first-break pickers through comlink.
+ * Field worker entry: exposes the field API (SEG-2 reader, first-break pickers, comparison with
+ * the candidate models, modelled curves and times, suggested segments, interpretation) through
+ * comlink.
  * The samples of a read record are transferred, not copied.
  */
 import "./zod-jitless";

@@ -6,7 +6,9 @@ import { useElementWidth } from "@/hooks/use-element-width";
 import type { Candidate, Comparison } from "../lib/comparison";
 import { metres, ms, signedMs } from "../lib/format";
 import { shotPositions } from "../lib/picks";
-import { maxModelledTime, modelledCurve, residualDomain, tdScales } from "../lib/td-chart";
+import { fieldWorker } from "../lib/field-worker";
+import { curvePath, residualDomain, tdScales } from "../lib/td-chart";
+import { useFieldResult } from "../lib/use-field-result";
 import { PICK_COLOURS } from "./record-section";
 
 /** Colours of candidate models on the chart (our own sequence). */
@@ -114,25 +116,30 @@ export function TimeDistanceChart({
   spreadExtent: [number, number];
 }) {
   const { ref, width } = useElementWidth<HTMLDivElement>(760);
-  const chart = useMemo(() => {
+  const span = useMemo(() => {
     const shots = shotPositions(picks);
     const positions = picks.flatMap((p) => [p.receiverPosition, p.sourcePosition]);
     const from = Math.min(spreadExtent[0], ...positions);
     const to = Math.max(spreadExtent[1], ...positions);
-    let maxTime = 0;
-    for (const c of candidates)
-      for (const s of shots) maxTime = Math.max(maxTime, maxModelledTime(c.model, s, from, to));
+    return { shots, from, to, models: candidates.map((c) => c.model) };
+  }, [picks, candidates, spreadExtent]);
+  // The curves are sampled in the field worker; until they arrive the picks are drawn alone.
+  const modelled = useFieldResult("curves", span, (s) =>
+    fieldWorker().modelledCurves(s.models, s.shots, s.from, s.to),
+  ).data;
+  const chart = useMemo(() => {
+    const { shots, from, to } = span;
     const frame = { ...FRAME, width };
-    const scales = tdScales(frame, picks, [from, to], maxTime);
-    const curves = candidates.flatMap((c, ci) =>
-      shots.map((s) => ({
-        key: `${ci}-${s}`,
+    const scales = tdScales(frame, picks, [from, to], modelled?.maxTime ?? 0);
+    const curves = (modelled?.curves ?? []).flatMap((perShot, ci) =>
+      perShot.map((c) => ({
+        key: `${ci}-${c.sourcePosition}`,
         index: ci,
-        path: modelledCurve(c.model, s, from, to, scales).path,
+        path: curvePath(c, scales),
       })),
     );
     return { frame, scales, curves, shots };
-  }, [picks, candidates, width, spreadExtent]);
+  }, [span, modelled, picks, width]);
   const { frame, scales, curves, shots } = chart;
   const xTicks = scales.x.ticks(10);
   const yTicks = scales.y.ticks(6);

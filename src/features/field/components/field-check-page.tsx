@@ -1,4 +1,4 @@
-import { useCallback, useEffect, useMemo, useState } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { Link, useParams } from "react-router-dom";
 import type {
   AttachmentSummary,
@@ -14,7 +14,6 @@ import { Card, EmptyState, ErrorNotice, Loading, Notice, PageHeader } from "@/co
 import { useMe } from "@/features/auth/api/me";
 import { errorMessage } from "@/lib/api-client";
 import {
-  modelFirstArrival,
   parsePicksCsv,
   type PickQuality,
   type PickerChoice,
@@ -28,9 +27,10 @@ import { useFieldPlan } from "../api/get-plan";
 import { usePicks } from "../api/get-picks";
 import { useAttachments } from "../api/list-attachments";
 import { useSavePicks } from "../api/save-picks";
-import { compareCandidates, warningsFor, type Candidate } from "../lib/comparison";
+import type { Candidate, Comparison } from "../lib/comparison";
 import { fieldWorker } from "../lib/field-worker";
 import { metres } from "../lib/format";
+import { useFieldResult } from "../lib/use-field-result";
 import {
   adjustPick,
   countByOrigin,
@@ -164,37 +164,71 @@ function FieldCheck({
     );
     return [...fromPlan, ...fromLogs];
   }, [doc.models, attachments]);
-  const comparison = useMemo(() => compareCandidates(picks, candidates), [picks, candidates]);
-  const shown = selected ?? comparison.best ?? 0;
-  const shownCandidate = candidates[shown];
-  const warnings = useMemo(
-    () => warningsFor(picks, shownCandidate, doc.criteria.pickError),
-    [picks, shownCandidate, doc.criteria.pickError],
+  // Fits, misfit warnings and modelled times are computed in the field worker; an answer for
+  // older picks or models is never shown as current.
+  const compared = useFieldResult(
+    "compare",
+    useMemo(
+      () => ({
+        picks: picks.map((p) => ({
+          sourcePosition: p.sourcePosition,
+          receiverPosition: p.receiverPosition,
+          time: p.time,
+        })),
+        candidates: candidates.map((c) => ({ name: c.name, model: c.model })),
+        selected,
+        pickError: doc.criteria.pickError,
+      }),
+      [picks, candidates, selected, doc.criteria.pickError],
+    ),
+    (i) => fieldWorker().compare(i.picks, i.candidates, i.selected, i.pickError),
   );
+  const comparison: Comparison | null = compared.data
+    ? { fits: compared.data.fits, best: compared.data.best }
+    : null;
+  const shown = compared.data?.shown ?? selected ?? 0;
+  const shownCandidate = candidates[shown];
+  const warnings = compared.data?.warnings ?? [];
 
   const placements = useMemo(
     () => (open ? placeTraces(open.record.traces, doc.spread, open.sourcePosition) : []),
     [open, doc.spread],
   );
-  const modelled = useMemo(() => {
-    if (!open || !shownCandidate) return null;
-    const f = modelFirstArrival(shownCandidate.model);
-    return placements.map((p) => {
-      const t = f(p.sourcePosition, p.receiverPosition);
-      return Number.isFinite(t) ? t : null;
-    });
-  }, [open, placements, shownCandidate]);
+  const modelledRun = useFieldResult(
+    "modelled-times",
+    useMemo(
+      () =>
+        open && shownCandidate
+          ? {
+              model: shownCandidate.model,
+              pairs: placements.map((p) => [p.sourcePosition, p.receiverPosition]) as [
+                number,
+                number,
+              ][],
+            }
+          : null,
+      [open, placements, shownCandidate],
+    ),
+    (i) => fieldWorker().modelledTimes(i.model, i.pairs),
+  );
+  const modelled = open && shownCandidate ? (modelledRun.data ?? null) : null;
+  // The record's first window waits for the modelled times (when there is a model to wait for).
+  const modelledReady = !open || !shownCandidate || modelledRun.current;
 
   // A newly opened record starts with a window that shows its first breaks well.
+  const windowFor = useRef<string | null>(null);
   useEffect(() => {
-    if (!open) return;
+    if (!open || !modelledReady) return;
+    const openKey = `${open.attachment.id}|${open.sourcePosition}`;
+    if (windowFor.current === openKey) return;
+    windowFor.current = openKey;
     const span = recordSpan(open.record);
     const latest = Math.max(0, ...(modelled ?? []).map((t) => t ?? 0));
     const end = latest > 0 ? Math.min(span[1], Math.max(0.05, latest * 2.2)) : span[1];
     setView({ mode: "both", gain: 1.5, clip: 1, scaling: "trace", window: [span[0], end] });
     // Only when another record (or shot) is opened, not when the model shown changes.
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [open?.attachment.id, open?.sourcePosition]);
+  }, [open?.attachment.id, open?.sourcePosition, modelledReady]);
 
   const openRecord = useCallback(
     async (attachment: AttachmentSummary, bytes?: ArrayBuffer) => {
@@ -586,19 +620,26 @@ function FieldCheck({
                 for the same shots and geophones. The best fit has the lowest RMS residual among the
                 models that give a time for the most picks.
               </p>
-              <FitTable
-                comparison={comparison}
-                candidates={candidates}
-                selected={shown}
-                onSelect={setSelected}
-              />
+              {comparison === null ? (
+                <p className="text-sm text-ink-soft" role="status">
+                  Comparing the picks with the models…
+                </p>
+              ) : null}
+              {comparison ? (
+                <FitTable
+                  comparison={comparison}
+                  candidates={candidates}
+                  selected={shown}
+                  onSelect={setSelected}
+                />
+              ) : null}
               <TimeDistanceChart
                 picks={picks}
                 candidates={candidates}
                 selected={shown}
                 spreadExtent={spreadExtent}
               />
-              {comparison.fits[shown] ? (
+              {comparison?.fits[shown] ? (
                 <div>
                   <h3 className="mb-1 text-sm font-semibold text-ink">
                     Residuals per geophone — {comparison.fits[shown].name}
@@ -607,13 +648,15 @@ function FieldCheck({
                   <ResidualTable fit={comparison.fits[shown]} />
                 </div>
               ) : null}
-              <div>
-                <h3 className="mb-2 text-sm font-semibold text-ink">Misfit patterns</h3>
-                <MisfitWarnings
-                  warnings={warnings}
-                  modelName={shownCandidate?.name ?? "the model"}
-                />
-              </div>
+              {comparison ? (
+                <div>
+                  <h3 className="mb-2 text-sm font-semibold text-ink">Misfit patterns</h3>
+                  <MisfitWarnings
+                    warnings={warnings}
+                    modelName={shownCandidate?.name ?? "the model"}
+                  />
+                </div>
+              ) : null}
             </div>
           )}
         </Card>

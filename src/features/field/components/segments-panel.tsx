@@ -1,14 +1,9 @@
-import { useMemo, useState } from "react";
+import { useMemo, useRef, useState } from "react";
 import type { FirstBreakPick } from "@/contracts/field";
 import { Button } from "@/components/button";
 import type { SpreadSide } from "../../../../workers/field/index";
-import {
-  readSegments,
-  shotSides,
-  suggestSegments,
-  type Candidate,
-  type SegmentRange,
-} from "../lib/comparison";
+import { readSegments, shotSides, type Candidate, type SegmentRange } from "../lib/comparison";
+import { fieldWorker } from "../lib/field-worker";
 import { metres, ms, speed } from "../lib/format";
 
 const sideLabel = (side: SpreadSide) =>
@@ -32,6 +27,7 @@ export function SegmentsPanel({
   const sides = useMemo(() => shotSides(picks).filter((s) => s.count >= 2), [picks]);
   const [choice, setChoice] = useState(0);
   const [ranges, setRanges] = useState<SegmentRange[]>([]);
+  const suggestion = useRef(0);
   const current = sides[Math.min(choice, sides.length - 1)];
   const reading = useMemo(
     () =>
@@ -59,6 +55,7 @@ export function SegmentsPanel({
             className="field-input"
             value={Math.min(choice, sides.length - 1)}
             onChange={(e) => {
+              suggestion.current++;
               setChoice(Number(e.target.value));
               setRanges([]);
             }}
@@ -85,11 +82,25 @@ export function SegmentsPanel({
         {candidate ? (
           <Button
             variant="quiet"
-            onClick={() =>
-              setRanges(
-                suggestSegments(picks, current.sourcePosition, current.side, candidate.model),
-              )
-            }
+            onClick={() => {
+              // The model's arrivals are computed in the field worker; an answer that comes back
+              // after another shot, side or suggestion was asked for is dropped.
+              const ticket = ++suggestion.current;
+              void fieldWorker()
+                .suggestSegments(
+                  picks.map((p) => ({
+                    sourcePosition: p.sourcePosition,
+                    receiverPosition: p.receiverPosition,
+                    time: p.time,
+                  })),
+                  current.sourcePosition,
+                  current.side,
+                  candidate.model,
+                )
+                .then((ranges) => {
+                  if (ticket === suggestion.current) setRanges(ranges);
+                });
+            }}
           >
             Suggest from {candidate.name}
           </Button>

@@ -1,21 +1,18 @@
 /**
- * The Field check's comparison of observed picks with the plan (pure functions over the field
- * core in workers/field and the engine): fit of every candidate ground model, residuals per
- * geophone, misfit warnings, and user-chosen segments read by the intercept-time method.
+ * The Field check's comparison of observed picks with the plan: the candidate ground models and
+ * user-chosen segments read by the intercept-time method (pure functions over the field core's
+ * line fits). The fit of every candidate, the misfit warnings, the modelled curves and the
+ * suggested segments need the engine and run in the field worker (lib/field-worker.ts).
  */
 import type { FirstBreakPick } from "@/contracts/field";
-import { sampleCurves, type GroundModel } from "@engine";
+import type { GroundModel } from "@engine";
 import {
-  compareModels,
   fitSegment,
   groupByShotSide,
   interceptTimeDepths,
   localOutliers,
-  misfitWarnings,
-  modelFirstArrival,
   shotSidePoints,
   type InterceptTimeResult,
-  type MisfitWarning,
   type ModelFit,
   type SegmentFit,
   type SpreadSide,
@@ -33,30 +30,6 @@ export interface Comparison {
   fits: ModelFit[];
   /** Index of the best-fitting candidate (lowest RMS among those modelling the most picks). */
   best: number | null;
-}
-
-/** Fits every candidate model to the picks. */
-export function compareCandidates(
-  picks: readonly FirstBreakPick[],
-  candidates: readonly Candidate[],
-): Comparison {
-  if (picks.length === 0 || candidates.length === 0) return { fits: [], best: null };
-  return compareModels(
-    picks,
-    candidates.map((c) => ({ name: c.name, firstArrival: modelFirstArrival(c.model) })),
-  );
-}
-
-/** Misfit-pattern warnings of the picks against one candidate. */
-export function warningsFor(
-  picks: readonly FirstBreakPick[],
-  candidate: Candidate | undefined,
-  pickError: number,
-): MisfitWarning[] {
-  if (!candidate || picks.length === 0) return [];
-  return misfitWarnings(picks, modelFirstArrival(candidate.model), {
-    pickError: Math.max(pickError, 0.0002),
-  });
 }
 
 /** The shots and sides that hold picks, with how many. */
@@ -123,35 +96,4 @@ export function readSegments(
     excluded: all.filter((_, i) => outliers.has(i)).map((p) => p.offset),
     interpretation,
   };
-}
-
-/**
- * Segments suggested from a model: consecutive picks whose modelled first arrival is the same
- * wave (direct, or the head wave of one layer) form one offset range.
- */
-export function suggestSegments(
-  picks: readonly FirstBreakPick[],
-  sourcePosition: number,
-  side: SpreadSide,
-  model: GroundModel,
-): SegmentRange[] {
-  const points = shotSidePoints(picks, sourcePosition, side);
-  const sign = side === "forward" ? 1 : -1;
-  const ranges: SegmentRange[] = [];
-  let layer = -1;
-  for (const p of points) {
-    let l: number;
-    try {
-      const offset = sign * p.offset;
-      l = sampleCurves(model, sourcePosition, offset, offset, 1, { reflections: false }).first
-        .layer[0];
-    } catch {
-      continue;
-    }
-    if (l !== layer || ranges.length === 0) {
-      ranges.push([p.offset, p.offset]);
-      layer = l;
-    } else ranges[ranges.length - 1][1] = p.offset;
-  }
-  return ranges.filter(([a, b]) => b > a);
 }

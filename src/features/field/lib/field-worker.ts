@@ -1,20 +1,31 @@
 /**
- * The field feature's door to the field worker (workers/field.worker.ts): SEG-2 reading and
- * first-break picking run off the main thread through comlink. Where no Worker exists (jsdom
- * tests) the same functions run on this thread.
+ * The field feature's door to the field worker (workers/field.worker.ts): SEG-2 reading,
+ * first-break picking, the comparison with the candidate models, the modelled curves and the
+ * interpretation run off the main thread through comlink. Where no Worker exists (jsdom tests)
+ * the same functions run on this thread, loaded with a dynamic import so that the field core
+ * and the engine never sit in the Field check's own chunk.
  */
 import * as Comlink from "comlink";
-import {
-  fieldApi,
-  type ObservedPick,
-  type PickerChoice,
-  type PickableTrace,
-  type PlanForInterpretation,
-  type PlanInterpretation,
-  type PlanInterpretationOptions,
-  type RecordPick,
-  type Seg2Record,
+import type {
+  CandidateComparison,
+  FieldApi,
+  ModelledCurve,
+  NamedModel,
+} from "../../../../workers/field/worker-api";
+import type {
+  ObservedPick,
+  PickerChoice,
+  PickableTrace,
+  PlanForInterpretation,
+  PlanInterpretation,
+  PlanInterpretationOptions,
+  RecordPick,
+  Seg2Record,
+  SpreadSide,
 } from "../../../../workers/field/index";
+import type { GroundModel } from "@engine";
+
+export type { CandidateComparison, ModelledCurve, NamedModel };
 
 export interface FieldWorker {
   /** Reads a SEG-2 file; rejects with the reader's message (byte offset and what was expected). */
@@ -27,32 +38,61 @@ export interface FieldWorker {
     picks: ObservedPick[],
     options: PlanInterpretationOptions,
   ): Promise<PlanInterpretation>;
+  /** Fit of every candidate and the misfit warnings against the chosen one (or the best). */
+  compare(
+    picks: ObservedPick[],
+    candidates: NamedModel[],
+    selected: number | null,
+    pickError: number,
+  ): Promise<CandidateComparison>;
+  /** Modelled first-arrival times (s, null where none) for [source, receiver] positions (m). */
+  modelledTimes(model: GroundModel, pairs: [number, number][]): Promise<(number | null)[]>;
+  /** Modelled first-arrival curves, `curves[model][shot]`, over positions [from, to] (m). */
+  modelledCurves(
+    models: GroundModel[],
+    shots: number[],
+    from: number,
+    to: number,
+    samples?: number,
+  ): Promise<{ curves: ModelledCurve[][]; maxTime: number }>;
+  /** Offset ranges (m) of one shot and side suggested from a model. */
+  suggestSegments(
+    picks: ObservedPick[],
+    sourcePosition: number,
+    side: SpreadSide,
+    model: GroundModel,
+  ): Promise<[number, number][]>;
 }
 
-type Remote = Comlink.Remote<typeof fieldApi>;
+let core: Promise<FieldApi> | null = null;
+/** The field core on this thread, loaded on first use (a chunk of its own). */
+const loadCore = (): Promise<FieldApi> =>
+  (core ??= import("../../../../workers/field/worker-api").then((m) => m.fieldApi));
 
 const direct: FieldWorker = {
-  async readSeg2(bytes) {
-    return fieldApi.readSeg2(bytes);
-  },
-  async pickRecord(traces, picker) {
-    return fieldApi.pickRecord({ traces }, picker);
-  },
-  async interpret(plan, picks, options) {
-    return fieldApi.interpretPlanPicks(plan, picks, options);
-  },
+  readSeg2: async (bytes) => (await loadCore()).readSeg2(bytes),
+  pickRecord: async (traces, picker) => (await loadCore()).pickRecord({ traces }, picker),
+  interpret: async (plan, picks, options) =>
+    (await loadCore()).interpretPlanPicks(plan, picks, options),
+  compare: async (picks, candidates, selected, pickError) =>
+    (await loadCore()).compareCandidates(picks, candidates, selected, pickError),
+  modelledTimes: async (model, pairs) => (await loadCore()).modelledTimes(model, pairs),
+  modelledCurves: async (models, shots, from, to, samples) =>
+    (await loadCore()).modelledCurves(models, shots, from, to, samples),
+  suggestSegments: async (picks, sourcePosition, side, model) =>
+    (await loadCore()).suggestSegments(picks, sourcePosition, side, model),
 };
 
 let current: FieldWorker | null = null;
 
 function create(): FieldWorker {
   if (typeof Worker === "undefined") return direct;
-  let remote: Remote;
+  let remote: Comlink.Remote<FieldApi>;
   try {
     const worker = new Worker(new URL("../../../../workers/field.worker.ts", import.meta.url), {
       type: "module",
     });
-    remote = Comlink.wrap<typeof fieldApi>(worker);
+    remote = Comlink.wrap<FieldApi>(worker);
   } catch {
     return direct;
   }
@@ -61,6 +101,13 @@ function create(): FieldWorker {
     readSeg2: (bytes) => remote.readSeg2(Comlink.transfer(bytes, [bytes])),
     pickRecord: (traces, picker) => remote.pickRecord({ traces }, picker),
     interpret: (plan, picks, options) => remote.interpretPlanPicks(plan, picks, options),
+    compare: (picks, candidates, selected, pickError) =>
+      remote.compareCandidates(picks, candidates, selected, pickError),
+    modelledTimes: (model, pairs) => remote.modelledTimes(model, pairs),
+    modelledCurves: (models, shots, from, to, samples) =>
+      remote.modelledCurves(models, shots, from, to, samples),
+    suggestSegments: (picks, sourcePosition, side, model) =>
+      remote.suggestSegments(picks, sourcePosition, side, model),
   };
 }
 

@@ -1,11 +1,10 @@
 /**
  * Scales and paths of the Field check's time–distance chart (observed picks over the modelled
- * first arrivals) and of the residual chart, as pure functions; the components only bind them
- * to SVG. Times are drawn in ms, positions in m.
+ * first arrivals, sampled in the field worker) and of the residual chart, as pure functions; the
+ * components only bind them to SVG. Times are drawn in ms, positions in m.
  */
 import { scaleLinear, type ScaleLinear } from "d3-scale";
 import { line } from "d3-shape";
-import { sampleCurves, type GroundModel } from "@engine";
 import type { FirstBreakPick } from "@/contracts/field";
 
 export interface ChartFrame {
@@ -46,64 +45,19 @@ export function tdScales(
 }
 
 /**
- * The modelled first-arrival curve of one shot over [from, to] (positions, m) as an SVG path,
- * with the largest time on it (s). Stretches without an arrival are left out.
+ * A modelled first-arrival curve (positions m, times s, as the field worker samples them) as an
+ * SVG path; "" when it has no point.
  */
-export function modelledCurve(
-  model: GroundModel,
-  sourcePosition: number,
-  from: number,
-  to: number,
+export function curvePath(
+  curve: { positions: readonly number[]; times: readonly number[] },
   scales: TdScales,
-  samples = 161,
-): { path: string; maxTime: number } {
-  let curves;
-  try {
-    curves = sampleCurves(
-      model,
-      sourcePosition,
-      from - sourcePosition,
-      to - sourcePosition,
-      samples,
-      {
-        reflections: false,
-      },
-    );
-  } catch {
-    return { path: "", maxTime: 0 };
-  }
-  const points: [number, number][] = [];
-  let maxTime = 0;
-  for (let i = 0; i < samples; i++) {
-    const t = curves.first.times[i];
-    if (!Number.isFinite(t)) continue;
-    points.push([curves.positions[i], t]);
-    maxTime = Math.max(maxTime, t);
-  }
-  const path =
+): string {
+  const points = curve.positions.map((x, i) => [x, curve.times[i]] as [number, number]);
+  return (
     line<[number, number]>()
       .x((d) => scales.x(d[0]))
-      .y((d) => scales.y(d[1]))(points) ?? "";
-  return { path, maxTime };
-}
-
-/** Largest modelled first-arrival time over [from, to] for a shot, s (0 when none). */
-export function maxModelledTime(
-  model: GroundModel,
-  sourcePosition: number,
-  from: number,
-  to: number,
-): number {
-  try {
-    const c = sampleCurves(model, sourcePosition, from - sourcePosition, to - sourcePosition, 41, {
-      reflections: false,
-    });
-    let m = 0;
-    for (const t of c.first.times) if (Number.isFinite(t)) m = Math.max(m, t);
-    return m;
-  } catch {
-    return 0;
-  }
+      .y((d) => scales.y(d[1]))(points) ?? ""
+  );
 }
 
 /** Symmetric residual scale (s) covering every residual, at least ±`floor` s. */

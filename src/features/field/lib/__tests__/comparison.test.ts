@@ -1,8 +1,13 @@
 import { describe, expect, it } from "vitest";
 import type { FirstBreakPick } from "@/contracts/field";
 import type { GroundModel } from "@engine";
-import { compareCandidates, readSegments, suggestSegments, warningsFor } from "../comparison";
-import { modelledCurve, residualDomain, tdScales } from "../td-chart";
+import { fieldApi } from "../../../../../workers/field/worker-api";
+import { readSegments } from "../comparison";
+import { curvePath, residualDomain, tdScales } from "../td-chart";
+
+// The comparison, the suggested segments and the modelled curves run in the field worker: the
+// same functions are called here directly.
+const { compareCandidates, modelledCurves, suggestSegments } = fieldApi;
 
 // Two-layer flat model; picks from its closed form (Telford, Geldart & Sheriff 1990 §4.3):
 // t = min(x/v1, x/v2 + 2h·cos θ / v1), sin θ = v1/v2.
@@ -32,8 +37,9 @@ const candidates = [
 
 describe("comparing the picks with the candidates", () => {
   it("names the model the picks were made from as the best fit, with zero RMS", () => {
-    const c = compareCandidates(picks, candidates);
+    const c = compareCandidates(picks, candidates, null, 0.0005);
     expect(c.best).toBe(1);
+    expect(c.shown).toBe(1);
     expect(c.fits[1].rms).toBeCloseTo(0, 9);
     expect(c.fits[0].rms).toBeGreaterThan(0.002);
     // Thicker cover delays the head wave: the picks come early against it.
@@ -41,13 +47,19 @@ describe("comparing the picks with the candidates", () => {
   });
 
   it("warns of early picks against the thicker model, none against the true one", () => {
-    expect(warningsFor(picks, candidates[1], 0.0005)).toEqual([]);
-    const w = warningsFor(picks, candidates[0], 0.0005);
-    expect(w.some((x) => x.kind === "early")).toBe(true);
+    expect(compareCandidates(picks, candidates, 1, 0.0005).warnings).toEqual([]);
+    const w = compareCandidates(picks, candidates, 0, 0.0005);
+    expect(w.shown).toBe(0);
+    expect(w.warnings.some((x) => x.kind === "early")).toBe(true);
   });
 
   it("has nothing to compare without picks", () => {
-    expect(compareCandidates([], candidates)).toEqual({ fits: [], best: null });
+    expect(compareCandidates([], candidates, null, 0.0005)).toEqual({
+      fits: [],
+      best: null,
+      shown: 0,
+      warnings: [],
+    });
   });
 });
 
@@ -100,9 +112,16 @@ describe("time–distance chart transforms", () => {
 
   it("draws the modelled curve as a path through the model's times", () => {
     const s = tdScales(frame, picks);
-    const curve = modelledCurve(truth, -1, -1, 46, s, 48);
-    expect(curve.path.startsWith("M")).toBe(true);
-    expect(curve.maxTime).toBeCloseTo(time(47), 9);
+    const { curves, maxTime } = modelledCurves([truth], [-1], -1, 46, 48);
+    expect(curves[0][0].times).toHaveLength(48);
+    // Closed-form two-layer times (Telford et al. 1990 §4.3) at every sampled position.
+    curves[0][0].positions.forEach((x, i) =>
+      expect(curves[0][0].times[i]).toBeCloseTo(time(x + 1), 9),
+    );
+    expect(maxTime).toBeCloseTo(time(47), 9);
+    const path = curvePath(curves[0][0], s);
+    expect(path.startsWith("M")).toBe(true);
+    expect(path.split("L")).toHaveLength(48);
   });
 
   it("makes a symmetric residual scale with a floor", () => {
