@@ -52,7 +52,8 @@ export const sideWord = (side: string | null) =>
 /**
  * Each stretch drawn along its interface between `from` and `to`, 5 px under it per branch
  * row (one row per shot branch, in the order they come), blind and inverted stretches on
- * the interface itself.
+ * the interface itself. Feature stretches are left to featureBands; geophone-count labels
+ * never overlap (one that would is moved along its stretch or left out).
  */
 export function stretchMarks(
   view: SectionView,
@@ -60,6 +61,7 @@ export function stretchMarks(
   coverage: InterfaceCoverage[],
 ): StretchMark[] {
   const out: StretchMark[] = [];
+  const placed: Array<{ x0: number; x1: number; y0: number; y1: number }> = [];
   for (const c of coverage) {
     const base = section.layers[c.layer - 2]?.base;
     if (!base) continue;
@@ -84,9 +86,27 @@ export function stretchMarks(
         .join("");
       const style = STRETCH_STYLE[s.status];
       const wide = view.x(to) - view.x(from) >= 44;
-      // branch rows write their counts at different places along the stretch
-      const mid = from + (to - from) * [0.3, 0.7, 0.5, 0.15, 0.85][Math.max(0, row) % 5];
-      const midZ = clipLine(base, mid, mid)[0][1];
+      const text = `S${(s.shot ?? 0) + 1}${s.side === "forward" ? "→" : "←"} ${s.geophones}`;
+      const w = text.length * 6.2; // 10 px monospace, semibold
+      // branch rows write their counts at different places along the stretch; a count that
+      // would overlap one already written moves to another place, or is left out
+      const fractions = [0.3, 0.7, 0.5, 0.15, 0.85];
+      const first = Math.max(0, row) % fractions.length;
+      let label: StretchMark["label"] = null;
+      for (let k = 0; wide && s.shot !== null && k < fractions.length; k++) {
+        const mid = from + (to - from) * fractions[(first + k) % fractions.length];
+        const midZ = clipLine(base, mid, mid)[0][1];
+        const x = view.x(mid);
+        const y = view.y(midZ) + dy + 13;
+        const box = { x0: x - w / 2, x1: x + w / 2, y0: y - 10, y1: y + 2 };
+        const clash = placed.some(
+          (p) => p.x0 < box.x1 + 3 && box.x0 < p.x1 + 3 && p.y0 < box.y1 && box.y0 < p.y1,
+        );
+        if (clash) continue;
+        placed.push(box);
+        label = { x, y, text };
+        break;
+      }
       out.push({
         layer: c.layer,
         stretch: s,
@@ -94,14 +114,7 @@ export function stretchMarks(
         colour: style.colour,
         dash: style.dash,
         row,
-        label:
-          wide && s.shot !== null
-            ? {
-                x: view.x(mid),
-                y: view.y(midZ) + dy + 13,
-                text: `S${s.shot + 1}${s.side === "forward" ? "→" : "←"} ${s.geophones}`,
-              }
-            : null,
+        label,
       });
     }
   }
@@ -162,17 +175,28 @@ export interface FeatureBand {
 /**
  * Under-sampled interface features (judged feature stretches) as bands on the interface
  * itself, exactly from `from` to `to`, one per feature (branches that flag the same feature
- * share it), labelled "<feature>: <n> geophone(s)" above the interface; labels that would
- * overlap are stacked a line higher. Features resolved by another branch are not drawn.
+ * share it), labelled "<feature>: <n> geophone(s)" above the interface; a label that would
+ * overlap another, or one of the `avoid` marks' labels (stretchMarks), goes a line higher. Features resolved by another branch are not drawn.
  */
 export function featureBands(
   view: SectionView,
   section: SectionDraft,
   coverage: InterfaceCoverage[],
+  avoid: StretchMark[] = [],
 ): FeatureBand[] {
   const out: FeatureBand[] = [];
   const charPx = 6.1; // 10.5 px sans-serif, semibold: a generous average glyph width
-  const placed: Array<{ x0: number; x1: number; line: number }> = [];
+  const placed: Array<{ x0: number; x1: number; y: number }> = avoid.flatMap((m) =>
+    m.label
+      ? [
+          {
+            x0: m.label.x - m.label.text.length * 3.1,
+            x1: m.label.x + m.label.text.length * 3.1,
+            y: m.label.y,
+          },
+        ]
+      : [],
+  );
   const left = view.margin.left;
   const right = view.width - view.margin.right;
   for (const c of coverage) {
@@ -225,11 +249,11 @@ export function featureBands(
     let x0 = band.label.x - w / 2;
     if (x0 < left + 2) x0 = left + 2;
     if (x0 + w > right - 2) x0 = right - 2 - w;
-    let line = 0;
-    while (placed.some((p) => p.line === line && p.x0 < x0 + w + 6 && x0 < p.x1 + 6)) line++;
-    placed.push({ x0, x1: x0 + w, line });
     const base = band.leader.y1;
-    const y = base - 14 - line * 14;
+    let y = base - 14;
+    while (placed.some((p) => Math.abs(p.y - y) < 12 && p.x0 < x0 + w + 6 && x0 < p.x1 + 6))
+      y -= 14;
+    placed.push({ x0, x1: x0 + w, y });
     band.label = { x: x0, y, text: band.label.text, anchor: "start" };
     band.leader = { x: band.leader.x, y1: y + 3, y2: base - 4 };
   }

@@ -107,6 +107,18 @@ function WeakFeatures({
 }) {
   const weak = coverage.stretches.filter((s) => s.feature !== undefined && s.judged);
   if (weak.length === 0) return null;
+  // one entry per feature: the branches that flag the same feature share it
+  const groups: CoverageStretch[][] = [];
+  for (const s of weak) {
+    const g = groups.find(
+      (h) =>
+        h[0].feature === s.feature &&
+        Math.abs(h[0].from - s.from) < 1e-3 &&
+        Math.abs(h[0].to - s.to) < 1e-3,
+    );
+    if (g) g.push(s);
+    else groups.push([s]);
+  }
   const name = coverage.name || `layer ${coverage.layer}`;
   return (
     <div
@@ -116,7 +128,8 @@ function WeakFeatures({
     >
       <p className="font-semibold text-ink-deep">Missed by this spread</p>
       <ul className="mt-1 space-y-1">
-        {weak.map((s, i) => {
+        {groups.map((g, i) => {
+          const s = g[0];
           const rec = recommendationFor(analysis.section.recommendations, coverage.layer, s);
           return (
             <li key={i} className="grid gap-x-4 sm:grid-cols-2">
@@ -126,7 +139,8 @@ function WeakFeatures({
                   {formatQuantity("length", s.from, units)} –{" "}
                   {formatQuantity("length", s.to, units)}
                 </span>
-                : {geophoneWord(s.geophones)} ({branchText(plan, s)}), under-sampled
+                : {g.map((b) => `${geophoneWord(b.geophones)} (${branchText(plan, b)})`).join(", ")}
+                , under-sampled
               </span>
               {rec ? <span className="text-ink">{rec.text}</span> : null}
             </li>

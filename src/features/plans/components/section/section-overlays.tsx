@@ -146,7 +146,7 @@ export function FeatureOverlay({
   units: UnitSystem;
 }) {
   const id = useId().replace(/:/g, "");
-  const bands = featureBands(view, section, coverage);
+  const bands = featureBands(view, section, coverage, stretchMarks(view, section, coverage));
   if (bands.length === 0) return null;
   const hatch = `feature-hatch-${id}`;
   return (

@@ -114,4 +114,47 @@ describe("feature stretches on the section", () => {
       "level stretch",
     ]);
   });
+
+  it("never writes two branch counts over each other, nor a feature label over a count", () => {
+    // branches whose first-choice count places coincide: 30 % along 12–100 m and 70 % along
+    // 10–50 m are both at 38 m, on rows 5 px apart
+    const runs: InterfaceCoverage[] = [
+      {
+        ...coverage[0],
+        stretches: [
+          stretch({ from: 12, to: 100, geophones: 20, status: "resolved", shot: 0 }),
+          stretch({ from: 10, to: 50, geophones: 9, status: "resolved", shot: 1 }),
+          stretch({ from: 12, to: 96, geophones: 21, status: "resolved", shot: 2 }),
+          stretch({ from: 20, to: 90, geophones: 22, status: "resolved", shot: 3 }),
+          stretch({ from: 50, to: 58, feature: "channel floor" }),
+        ],
+      },
+    ];
+    const marks = stretchMarks(view, section, runs);
+    const boxes = [
+      ...marks.flatMap((m) =>
+        m.label
+          ? [
+              {
+                x0: m.label.x - m.label.text.length * 3.1,
+                x1: m.label.x + m.label.text.length * 3.1,
+                y: m.label.y,
+              },
+            ]
+          : [],
+      ),
+      ...featureBands(view, section, runs, marks).map((b) => ({
+        x0: b.label.x,
+        x1: b.label.x + b.label.text.length * 6.1,
+        y: b.label.y,
+      })),
+    ];
+    expect(boxes.length).toBeGreaterThan(3);
+    for (let i = 0; i < boxes.length; i++)
+      for (let j = i + 1; j < boxes.length; j++) {
+        const a = boxes[i];
+        const b = boxes[j];
+        expect(a.x0 < b.x1 && b.x0 < a.x1 && Math.abs(a.y - b.y) < 11).toBe(false);
+      }
+  });
 });
