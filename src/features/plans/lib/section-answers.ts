@@ -53,7 +53,8 @@ export const sideWord = (side: string | null) =>
  * Each stretch drawn along its interface between `from` and `to`, 5 px under it per branch
  * row (one row per shot branch, in the order they come), blind and inverted stretches on
  * the interface itself. Feature stretches are left to featureBands; geophone-count labels
- * never overlap (one that would is moved along its stretch or left out).
+ * never overlap each other or a layer's name (one that would is moved along its stretch or
+ * left out).
  */
 export function stretchMarks(
   view: SectionView,
@@ -61,7 +62,16 @@ export function stretchMarks(
   coverage: InterfaceCoverage[],
 ): StretchMark[] {
   const out: StretchMark[] = [];
-  const placed: Array<{ x0: number; x1: number; y0: number; y1: number }> = [];
+  // the layers' name labels are there already (12 px sans name, 11 px monospace velocity)
+  const placed: Array<{ x0: number; x1: number; y0: number; y1: number }> = view.layers.flatMap(
+    (l) => {
+      if (!l.label) return [];
+      const w = l.name.length * 6.8 + (l.velocityText.length + 2) * 6.7;
+      return [
+        { x0: l.label.x - w / 2, x1: l.label.x + w / 2, y0: l.label.y - 11, y1: l.label.y + 3 },
+      ];
+    },
+  );
   for (const c of coverage) {
     const base = section.layers[c.layer - 2]?.base;
     if (!base) continue;
@@ -100,7 +110,7 @@ export function stretchMarks(
         const y = view.y(midZ) + dy + 13;
         const box = { x0: x - w / 2, x1: x + w / 2, y0: y - 10, y1: y + 2 };
         const clash = placed.some(
-          (p) => p.x0 < box.x1 + 3 && box.x0 < p.x1 + 3 && p.y0 < box.y1 && box.y0 < p.y1,
+          (p) => p.x0 < box.x1 + 3 && box.x0 < p.x1 + 3 && p.y0 < box.y1 + 2 && box.y0 < p.y1 + 2,
         );
         if (clash) continue;
         placed.push(box);

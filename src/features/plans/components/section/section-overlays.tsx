@@ -87,6 +87,7 @@ export function StretchOverlay({
   coverage: InterfaceCoverage[];
 }) {
   const marks = stretchMarks(view, section, coverage);
+  // every band first, then every count, so no band is drawn over a count
   return (
     <g aria-label="Stretches sampled by head waves" pointerEvents="none">
       {marks.map((m, i) => (
@@ -107,24 +108,27 @@ export function StretchOverlay({
             strokeDasharray={m.dash}
             strokeLinecap="butt"
           />
-          {m.label ? (
-            <text
-              x={m.label.x}
-              y={m.label.y}
-              textAnchor="middle"
-              fontSize={10}
-              fontFamily={chartMono}
-              fontWeight={600}
-              fill={m.colour}
-              stroke={palette.card}
-              strokeWidth={2.5}
-              paintOrder="stroke"
-            >
-              {m.label.text}
-            </text>
-          ) : null}
         </g>
       ))}
+      {marks.map((m, i) =>
+        m.label ? (
+          <text
+            key={`t${i}`}
+            x={m.label.x}
+            y={m.label.y}
+            textAnchor="middle"
+            fontSize={10}
+            fontFamily={chartMono}
+            fontWeight={600}
+            fill={m.colour}
+            stroke={palette.card}
+            strokeWidth={2.5}
+            paintOrder="stroke"
+          >
+            {m.label.text}
+          </text>
+        ) : null,
+      )}
     </g>
   );
 }
