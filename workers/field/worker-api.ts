@@ -4,10 +4,15 @@
  */
 import { sampleCurves, type GroundModel } from "@engine";
 import { pickAic } from "./aic-picker";
-import { shotSidePoints, type ObservedPick, type SpreadSide } from "./field-picks";
-import { misfitWarnings, type MisfitWarning } from "./misfit-pattern";
+import { groupByShotSide, shotSidePoints, type ObservedPick, type SpreadSide } from "./field-picks";
+import { localOutliers, misfitWarnings, type MisfitWarning } from "./misfit-pattern";
 import { modelFirstArrival } from "./modelled-arrivals";
 import { compareModels, type ModelFit } from "./residuals";
+import { candidateDepth } from "./plan-interpretation";
+import { parsePicksCsv } from "./picks-csv";
+import { fitSegment, type SegmentFit } from "./segment-fit";
+import { interceptTimeDepths, type InterceptTimeResult } from "./intercept-time";
+import { parseElevationCsv } from "./station-elevations";
 import { pickEnergyRatio } from "./energy-ratio-picker";
 import { pickOnset } from "./onset-picker";
 import { interpretPlanPicks } from "./plan-interpretation";
@@ -150,6 +155,89 @@ export function suggestSegments(
   return ranges.filter(([a, b]) => b > a);
 }
 
+/** A shot (position, m) and side that holds picks, with how many. */
+export interface ShotSideCount {
+  sourcePosition: number;
+  side: SpreadSide;
+  count: number;
+}
+
+/** The shots and sides that hold picks, with how many. */
+export function shotSides(picks: readonly ObservedPick[]): ShotSideCount[] {
+  return groupByShotSide(picks).map((g) => ({
+    sourcePosition: g.sourcePosition,
+    side: g.side,
+    count: g.picks.length,
+  }));
+}
+
+/** A segment as the user chose it: an offset range, m. */
+export type SegmentRange = [number, number];
+
+export interface SegmentReading {
+  fits: SegmentFit[];
+  /** Offsets of picks left out as outliers (far off the trend of their neighbours), m. */
+  excluded: number[];
+  /** Intercept-time interpretation of the fitted segments, when two or more fitted. */
+  interpretation: InterceptTimeResult | null;
+}
+
+/**
+ * Fits each segment of one shot and side and, when at least two fitted, interprets them as flat
+ * layers with the intercept-time method (Telford et al. 1990 §4.3): segment 1 the direct wave,
+ * segment k the head wave from the top of layer k.
+ */
+export function readSegments(
+  picks: readonly ObservedPick[],
+  sourcePosition: number,
+  side: SpreadSide,
+  ranges: readonly SegmentRange[],
+  pickError = 0.0005,
+): SegmentReading {
+  const all = shotSidePoints(picks, sourcePosition, side);
+  // A single mis-pick would bend a segment's line: leave out picks far off their neighbours'
+  // trend (the same local check as the misfit warnings, on the times themselves).
+  const outliers = new Set(
+    localOutliers(
+      all.map((p) => p.offset),
+      all.map((p) => p.time),
+      Math.max(pickError, 0.0002),
+    ).map((o) => o.index),
+  );
+  const points = all.filter((_, i) => !outliers.has(i));
+  const fits = ranges.map((r) => fitSegment(points, r));
+  const ok = fits.filter((f): f is Extract<SegmentFit, { ok: true }> => f.ok);
+  const interpretation =
+    ok.length >= 2 && ok.length === fits.length
+      ? interceptTimeDepths(
+          ok.map((f) => ({
+            velocity: f.velocity,
+            intercept: f.intercept,
+            velocityError: f.velocityError,
+            interceptError: f.interceptError,
+            velocityInterceptCovariance: f.velocityInterceptCovariance,
+          })),
+        )
+      : null;
+  return {
+    fits,
+    excluded: all.filter((_, i) => outliers.has(i)).map((p) => p.offset),
+    interpretation,
+  };
+}
+
+/**
+ * Depth (m below the ground) of the top of `layer` (1-based, from 2) of each model at each
+ * position (m); `depths[model][position]`, null where the model has no such interface.
+ */
+export function candidateDepths(
+  models: readonly Pick<GroundModel, "layers">[],
+  layer: number,
+  positions: readonly number[],
+): (number | null)[][] {
+  return models.map((m) => positions.map((x) => candidateDepth(m, layer, x)));
+}
+
 /** SEG-2 reading, first-break picking and the interpretation under the line offered by the field worker. */
 export const fieldApi = {
   readSeg2,
@@ -164,6 +252,11 @@ export const fieldApi = {
   modelledTimes,
   modelledCurves,
   suggestSegments,
+  shotSides,
+  readSegments,
+  candidateDepths,
+  parsePicksCsv,
+  parseElevationCsv,
 };
 
 /** Type of the field worker's API (wrap it with comlink's Remote<>). */

@@ -13,12 +13,7 @@ import { ErrorBoundary } from "@/components/error-boundary";
 import { Card, EmptyState, ErrorNotice, Loading, Notice, PageHeader } from "@/components/feedback";
 import { useMe } from "@/features/auth/api/me";
 import { errorMessage } from "@/lib/api-client";
-import {
-  parsePicksCsv,
-  type PickQuality,
-  type PickerChoice,
-  type Seg2Record,
-} from "../../../../workers/field/index";
+import type { PickQuality, PickerChoice, Seg2Record } from "../../../../workers/field/index";
 import { isLayeredModel } from "@engine";
 import { useAddCandidateModel } from "../api/add-model";
 import { fetchAttachmentBytes, attachmentContentUrl } from "../api/attachment-content";
@@ -261,7 +256,7 @@ function FieldCheck({
       if (!incoming) {
         const text = new TextDecoder().decode(await fetchAttachmentBytes(attachment.id));
         const unit = attachment.facts.kind === "picks" ? attachment.facts.timeUnit : "ms";
-        const result = parsePicksCsv(text, { timeUnit: unit });
+        const result = await fieldWorker().parsePicksCsv(text, { timeUnit: unit });
         if (!result.ok) throw new Error(result.errors.map((e) => e.message).join("; "));
         incoming = result.rows.map((r) => ({
           sourcePosition: r.shotPosition,

@@ -12,16 +12,15 @@ import { Button } from "@/components/button";
 import { Notice } from "@/components/feedback";
 import { errorMessage } from "@/lib/api-client";
 import { formatQuantity, fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
-import {
-  LINE_METHODS,
-  parseElevationCsv,
-  type ElevationPoint,
-  type LayerAssignment,
-  type LineMethod,
-  type PlanInterpretation,
+import type {
+  ElevationPoint,
+  LayerAssignment,
+  LineMethod,
+  PlanInterpretation,
 } from "../../../../workers/field/index";
 import type { Candidate } from "../lib/comparison";
 import { fieldWorker } from "../lib/field-worker";
+import { LINE_METHODS } from "../lib/format";
 import { InterpretedSection } from "./interpreted-section";
 
 const length = (v: number | null | undefined, units: UnitSystem, digits?: number) =>
@@ -99,7 +98,7 @@ export function InterpretationPanel({
 
   const loadElevations = async (file: File | undefined) => {
     if (!file) return;
-    const read = parseElevationCsv(await file.text());
+    const read = await fieldWorker().parseElevationCsv(await file.text());
     if (!read.ok) {
       setElevationNote(`${file.name}: ${read.errors.map((e) => e.message).join("; ")}`);
       return;

@@ -5,8 +5,11 @@
  */
 import { palette, chartFont } from "@/lib/chart/palette";
 import { formatQuantity, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
-import { candidateDepth, type PlanInterpretation } from "../../../../workers/field/index";
+import { useMemo } from "react";
+import type { PlanInterpretation } from "../../../../workers/field/index";
 import type { Candidate } from "../lib/comparison";
+import { fieldWorker } from "../lib/field-worker";
+import { useFieldResult } from "../lib/use-field-result";
 
 const W = 820;
 const H = 280;
@@ -56,16 +59,32 @@ export function InterpretedSection({
   const stations = ground.map((g) => g[0]);
   // Layered candidates only: a section model's interfaces are not a depth below a flat ground.
   const layered = candidates.filter((c) => (c.model as { kind?: string }).kind !== "section");
-  const candidateLines = layered.map((c) => ({
-    name: c.name,
-    source: c.source,
-    layers: refs.map((r) =>
-      stations.flatMap((x) => {
-        const d = candidateDepth(c.model, r.layer, x);
-        return d === null ? [] : [[x, groundAt(x) - d] as [number, number]];
-      }),
-    ),
-  }));
+  // The candidates' interface depths come from the field worker (depths[refractor][model][station]).
+  const depthInput = useMemo(
+    () => ({
+      models: layered.map((c) => c.model),
+      layers: refs.map((r) => r.layer),
+      stations,
+    }),
+    // The inputs are derived from `result` and `candidates` only.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [result, candidates],
+  );
+  const depths = useFieldResult("candidate-depths", depthInput, (i) =>
+    Promise.all(i.layers.map((l) => fieldWorker().candidateDepths(i.models, l, i.stations))),
+  ).data;
+  const candidateLines = depths
+    ? layered.map((c, ci) => ({
+        name: c.name,
+        source: c.source,
+        layers: refs.map((_, ri) =>
+          stations.flatMap((x, si) => {
+            const d = depths[ri]?.[ci]?.[si] ?? null;
+            return d === null ? [] : [[x, groundAt(x) - d] as [number, number]];
+          }),
+        ),
+      }))
+    : [];
   const ys = [
     ...ground.map((g) => g[1]),
     ...refs.flatMap((r) => r.depth.flatMap((d) => [d.elevation - d.sigma, d.elevation + d.sigma])),

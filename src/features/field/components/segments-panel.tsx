@@ -2,8 +2,9 @@ import { useMemo, useRef, useState } from "react";
 import type { FirstBreakPick } from "@/contracts/field";
 import { Button } from "@/components/button";
 import type { SpreadSide } from "../../../../workers/field/index";
-import { readSegments, shotSides, type Candidate, type SegmentRange } from "../lib/comparison";
+import type { Candidate, SegmentRange } from "../lib/comparison";
 import { fieldWorker } from "../lib/field-worker";
+import { useFieldResult } from "../lib/use-field-result";
 import { metres, ms, speed } from "../lib/format";
 
 const sideLabel = (side: SpreadSide) =>
@@ -24,16 +25,42 @@ export function SegmentsPanel({
   /** The plan's pick error, s (scales the outlier check). */
   pickError: number;
 }) {
-  const sides = useMemo(() => shotSides(picks).filter((s) => s.count >= 2), [picks]);
+  // Grouping, line fits and the intercept-time reading run in the field worker.
+  const observed = useMemo(
+    () =>
+      picks.map((p) => ({
+        sourcePosition: p.sourcePosition,
+        receiverPosition: p.receiverPosition,
+        time: p.time,
+      })),
+    [picks],
+  );
+  const grouped = useFieldResult("shot-sides", observed, (o) => fieldWorker().shotSides(o)).data;
+  const sides = useMemo(() => (grouped ?? []).filter((s) => s.count >= 2), [grouped]);
   const [choice, setChoice] = useState(0);
   const [ranges, setRanges] = useState<SegmentRange[]>([]);
   const suggestion = useRef(0);
   const current = sides[Math.min(choice, sides.length - 1)];
-  const reading = useMemo(
-    () =>
-      current ? readSegments(picks, current.sourcePosition, current.side, ranges, pickError) : null,
-    [picks, current, ranges, pickError],
-  );
+  const reading =
+    useFieldResult(
+      "segments",
+      useMemo(
+        () =>
+          current && ranges.length > 0
+            ? {
+                observed,
+                sourcePosition: current.sourcePosition,
+                side: current.side,
+                ranges,
+                pickError,
+              }
+            : null,
+        [observed, current, ranges, pickError],
+      ),
+      (i) =>
+        fieldWorker().readSegments(i.observed, i.sourcePosition, i.side, i.ranges, i.pickError),
+    ).data ?? null;
+  if (!grouped) return null;
   if (!current) {
     return (
       <p className="text-sm text-ink-soft">
@@ -41,10 +68,12 @@ export function SegmentsPanel({
       </p>
     );
   }
-  const setRange = (i: number, k: 0 | 1, value: number) =>
+  const setRange = (i: number, k: 0 | 1, value: number) => {
+    suggestion.current++; // a suggestion still on its way must not undo this edit
     setRanges((rs) =>
       rs.map((r, j) => (j === i ? ((k === 0 ? [value, r[1]] : [r[0], value]) as SegmentRange) : r)),
     );
+  };
 
   return (
     <div className="flex flex-col gap-3">
@@ -87,16 +116,7 @@ export function SegmentsPanel({
               // after another shot, side or suggestion was asked for is dropped.
               const ticket = ++suggestion.current;
               void fieldWorker()
-                .suggestSegments(
-                  picks.map((p) => ({
-                    sourcePosition: p.sourcePosition,
-                    receiverPosition: p.receiverPosition,
-                    time: p.time,
-                  })),
-                  current.sourcePosition,
-                  current.side,
-                  candidate.model,
-                )
+                .suggestSegments(observed, current.sourcePosition, current.side, candidate.model)
                 .then((ranges) => {
                   if (ticket === suggestion.current) setRanges(ranges);
                 });

@@ -11,6 +11,8 @@ import type {
   FieldApi,
   ModelledCurve,
   NamedModel,
+  SegmentReading,
+  ShotSideCount,
 } from "../../../../workers/field/worker-api";
 import type {
   ObservedPick,
@@ -20,6 +22,8 @@ import type {
   PlanInterpretation,
   PlanInterpretationOptions,
   RecordPick,
+  ElevationCsvResult,
+  PicksCsvResult,
   Seg2Record,
   SpreadSide,
 } from "../../../../workers/field/index";
@@ -62,6 +66,26 @@ export interface FieldWorker {
     side: SpreadSide,
     model: GroundModel,
   ): Promise<[number, number][]>;
+  /** The shots and sides that hold picks, with how many. */
+  shotSides(picks: ObservedPick[]): Promise<ShotSideCount[]>;
+  /** Line fits of offset ranges (m) of one shot and side, and their intercept-time reading. */
+  readSegments(
+    picks: ObservedPick[],
+    sourcePosition: number,
+    side: SpreadSide,
+    ranges: [number, number][],
+    pickError: number,
+  ): Promise<SegmentReading>;
+  /** Depth (m) of the top of `layer` of each model at each position (m). */
+  candidateDepths(
+    models: GroundModel[],
+    layer: number,
+    positions: number[],
+  ): Promise<(number | null)[][]>;
+  /** Reads a picks CSV. */
+  parsePicksCsv(text: string, options: { timeUnit?: "ms" | "s" }): Promise<PicksCsvResult>;
+  /** Reads a station-elevation CSV. */
+  parseElevationCsv(text: string): Promise<ElevationCsvResult>;
 }
 
 let core: Promise<FieldApi> | null = null;
@@ -81,6 +105,13 @@ const direct: FieldWorker = {
     (await loadCore()).modelledCurves(models, shots, from, to, samples),
   suggestSegments: async (picks, sourcePosition, side, model) =>
     (await loadCore()).suggestSegments(picks, sourcePosition, side, model),
+  shotSides: async (picks) => (await loadCore()).shotSides(picks),
+  readSegments: async (picks, sourcePosition, side, ranges, pickError) =>
+    (await loadCore()).readSegments(picks, sourcePosition, side, ranges, pickError),
+  candidateDepths: async (models, layer, positions) =>
+    (await loadCore()).candidateDepths(models, layer, positions),
+  parsePicksCsv: async (text, options) => (await loadCore()).parsePicksCsv(text, options),
+  parseElevationCsv: async (text) => (await loadCore()).parseElevationCsv(text),
 };
 
 let current: FieldWorker | null = null;
@@ -108,6 +139,12 @@ function create(): FieldWorker {
       remote.modelledCurves(models, shots, from, to, samples),
     suggestSegments: (picks, sourcePosition, side, model) =>
       remote.suggestSegments(picks, sourcePosition, side, model),
+    shotSides: (picks) => remote.shotSides(picks),
+    readSegments: (picks, sourcePosition, side, ranges, pickError) =>
+      remote.readSegments(picks, sourcePosition, side, ranges, pickError),
+    candidateDepths: (models, layer, positions) => remote.candidateDepths(models, layer, positions),
+    parsePicksCsv: (text, options) => remote.parsePicksCsv(text, options),
+    parseElevationCsv: (text) => remote.parseElevationCsv(text),
   };
 }
 

@@ -1,4 +1,5 @@
 /** Number formatting of the Field check screen (SI units; times shown in ms). */
+import type { LineMethod } from "../../../../workers/field/index";
 
 /** "12.3 ms" from seconds; "–" for null. */
 export function ms(seconds: number | null | undefined, digits = 1): string {
@@ -38,3 +39,14 @@ export function fileSize(bytes: number): string {
   if (bytes < 1024 * 1024) return `${Math.max(1, Math.round(bytes / 1024))} KB`;
   return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
 }
+
+/**
+ * Names of the interpretation methods under the line, as the field core's LINE_METHODS
+ * (workers/field/line-interpretation.ts) gives them; repeated here so that the Field check's
+ * chunk does not pull in the interpretation code (a test keeps the two the same).
+ */
+export const LINE_METHODS: Record<LineMethod, string> = {
+  "plus-minus": "Plus-minus (Hagedoorn 1959)",
+  "delay-time": "Delay times (Barry 1967)",
+  grm: "Generalized reciprocal method (Palmer 1980)",
+};

@@ -2,12 +2,13 @@ import { describe, expect, it } from "vitest";
 import type { FirstBreakPick } from "@/contracts/field";
 import type { GroundModel } from "@engine";
 import { fieldApi } from "../../../../../workers/field/worker-api";
-import { readSegments } from "../comparison";
+import { LINE_METHODS as CORE_LINE_METHODS } from "../../../../../workers/field/index";
+import { LINE_METHODS } from "../format";
 import { curvePath, residualDomain, tdScales } from "../td-chart";
 
 // The comparison, the suggested segments and the modelled curves run in the field worker: the
 // same functions are called here directly.
-const { compareCandidates, modelledCurves, suggestSegments } = fieldApi;
+const { compareCandidates, modelledCurves, readSegments, shotSides, suggestSegments } = fieldApi;
 
 // Two-layer flat model; picks from its closed form (Telford, Geldart & Sheriff 1990 §4.3):
 // t = min(x/v1, x/v2 + 2h·cos θ / v1), sin θ = v1/v2.
@@ -64,6 +65,11 @@ describe("comparing the picks with the candidates", () => {
 });
 
 describe("segments and the intercept-time method", () => {
+  it("groups the picks by shot and side", () => {
+    // All 24 picks lie beyond the shot at −1 m (invented layout above).
+    expect(shotSides(picks)).toEqual([{ sourcePosition: -1, side: "forward", count: 24 }]);
+  });
+
   it("suggests one range per arrival and recovers velocities and the depth", () => {
     const ranges = suggestSegments(picks, -1, "forward", truth);
     expect(ranges).toHaveLength(2);
@@ -129,5 +135,11 @@ describe("time–distance chart transforms", () => {
       -0.0044000000000000003, 0.0044000000000000003,
     ]);
     expect(residualDomain([], 0.002)).toEqual([-0.0022000000000000001, 0.0022000000000000001]);
+  });
+});
+
+describe("method names on the screen", () => {
+  it("are the field core's names of the methods", () => {
+    expect(LINE_METHODS).toEqual(CORE_LINE_METHODS);
   });
 });
