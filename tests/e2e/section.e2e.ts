@@ -109,6 +109,45 @@ describe("ground sections in the browser", () => {
     await stretches.waitFor();
     expect(await stretches.getByRole("row").count()).toBeGreaterThan(1);
     await screenshot(page, "section-designer-stretches");
+
+    // A narrow flat-floored channel (floor 32–38 m, walls 4 m wide): the spread's rays leave
+    // the floor at too few geophones, so the floor is flagged by name, on the table and on
+    // the section, with a recommendation beside it.
+    const setPoint = async (n: number, x: number, z: number) => {
+      await page.getByLabel(`${BASE} point ${n} position (m)`).fill(String(x));
+      await page.keyboard.press("Tab");
+      await page.getByLabel(`${BASE} point ${n} elevation (m)`).fill(String(z));
+      await page.keyboard.press("Tab");
+    };
+    await setPoint(2, 28, 95);
+    for (const [n, x, z] of [
+      [3, 32, 90.5],
+      [4, 38, 90],
+      [5, 42, 95],
+    ]) {
+      await page
+        .getByRole("button", { name: `Add a point after point ${n - 1} of the ${BASE}` })
+        .click();
+      await setPoint(n, x, z);
+    }
+    await upToDate(page);
+    const missed = page.getByRole("group", {
+      name: "Features of the top of weathered rock the spread misses",
+    });
+    await missed.waitFor({ timeout: 30_000 });
+    expect(await missed.textContent()).toMatch(
+      /channel floor\s*3[0-9]\.\d\d m – 3[0-9]\.\d\d m: \d geophones?/,
+    );
+    expect(await missed.textContent()).toMatch(/spacing at most/);
+    await screenshot(page, "section-designer-channel-floor");
+    await page.getByRole("tab", { name: "Section", exact: true }).click();
+    await page.getByRole("img", { name: /^channel floor from .*under-sampled$/ }).waitFor();
+    await screenshot(page, "section-designer-channel-floor-section");
+    // back to the dragged V-shaped base for the rest of the journey
+    for (const n of [5, 4, 3])
+      await page.getByRole("button", { name: `Remove point ${n} of the ${BASE}` }).click();
+    await setPoint(2, 34.5, after);
+    await upToDate(page);
   }, 180_000);
 
   it("tightens the spread, saves, and the section is stored", async () => {

@@ -186,7 +186,8 @@ export interface FeatureBand {
  * Under-sampled interface features (judged feature stretches) as bands on the interface
  * itself, exactly from `from` to `to`, one per feature (branches that flag the same feature
  * share it), labelled "<feature>: <n> geophone(s)" above the interface; a label that would
- * overlap another, or one of the `avoid` marks' labels (stretchMarks), goes a line higher. Features resolved by another branch are not drawn.
+ * overlap another, a layer's name, or one of the `avoid` marks' labels (stretchMarks), goes
+ * a line higher. Features resolved by another branch are not drawn.
  */
 export function featureBands(
   view: SectionView,
@@ -196,16 +197,23 @@ export function featureBands(
 ): FeatureBand[] {
   const out: FeatureBand[] = [];
   const charPx = 6.1; // 10.5 px sans-serif, semibold: a generous average glyph width
-  const placed: Array<{ x0: number; x1: number; y: number }> = avoid.flatMap((m) =>
-    m.label
-      ? [
-          {
-            x0: m.label.x - m.label.text.length * 3.1,
-            x1: m.label.x + m.label.text.length * 3.1,
-            y: m.label.y,
-          },
-        ]
-      : [],
+  const placed: Array<{ x0: number; x1: number; y: number }> = view.layers.flatMap((l) => {
+    if (!l.label) return [];
+    const w = l.name.length * 6.8 + (l.velocityText.length + 2) * 6.7;
+    return [{ x0: l.label.x - w / 2, x1: l.label.x + w / 2, y: l.label.y }];
+  });
+  placed.push(
+    ...avoid.flatMap((m) =>
+      m.label
+        ? [
+            {
+              x0: m.label.x - m.label.text.length * 3.1,
+              x1: m.label.x + m.label.text.length * 3.1,
+              y: m.label.y,
+            },
+          ]
+        : [],
+    ),
   );
   const left = view.margin.left;
   const right = view.width - view.margin.right;

@@ -213,7 +213,9 @@ export function CoverageDetails({
                       <td className="py-1 pr-2 text-right font-mono">
                         {s.geophones}
                         {s.feature !== undefined ? (
-                          <span className="font-sans text-ink-soft"> exit points</span>
+                          <span className="font-sans text-ink-soft">
+                            {s.geophones === 1 ? " exit point" : " exit points"}
+                          </span>
                         ) : null}
                       </td>
                       <td className="py-1">

@@ -260,7 +260,7 @@ describe("SectionAnswers", () => {
     const rows = within(table).getAllByRole("row");
     // weak feature first (row 0 is the header)
     expect(rows[1].textContent).toMatch(
-      /channel floor.*30\.00 m – 40\.00 m.*1 exit points.*Under-sampled/,
+      /channel floor.*30\.00 m – 40\.00 m.*1 exit point\b.*Under-sampled/,
     );
     const wall = rows.find((r) => /west wall/.test(r.textContent ?? ""));
     expect(wall?.textContent).toMatch(/resolved by another branch/);
