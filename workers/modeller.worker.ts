@@ -5,6 +5,7 @@
 import "./zod-jitless";
 import { expose, transfer } from "comlink";
 import { modellerApi, type Plan, type SectionSweepSpec, type SweepSpec } from "./engine";
+import { readSectionOfPlan, type SectionReadingOptions } from "./field/section-reading";
 
 function buffersOf(value: unknown, out: ArrayBuffer[] = []): ArrayBuffer[] {
   if (ArrayBuffer.isView(value)) {
@@ -32,6 +33,10 @@ const api = {
   runSectionSweep(plan: Plan, spec: SectionSweepSpec, onProgress?: (fraction: number) => void) {
     const result = modellerApi.runSectionSweep(plan, spec, onProgress);
     return transfer(result, buffersOf(result));
+  },
+  /** The crew's reading of a section model by the reciprocal methods (plain JSON). */
+  sectionReading(plan: Plan, modelIndex: number, options?: SectionReadingOptions) {
+    return readSectionOfPlan(plan, modelIndex, options);
   },
 };
 

@@ -12,3 +12,4 @@ export {
   sampleCurves,
   sectionShotField,
 } from "@engine";
+export { readSectionOfPlan } from "../../workers/field/section-reading";

@@ -24,6 +24,7 @@ import type {
   SweepResult,
   SweepSpec,
 } from "@engine";
+import type { SectionReading } from "../../workers/field/section-reading";
 import type { ModellerWorkerApi } from "../../workers/modeller.worker";
 
 /** Why a modeller request ended without a result. */
@@ -78,6 +79,15 @@ export interface Modeller {
   cancelSweep(): void;
   /** Time field and first-arrival rays of one shot over a section model (the Section chart). */
   sectionField(plan: Plan, modelIndex: number, shot: number): Promise<SectionShotField>;
+  /**
+   * The crew's reading of a section model: plus-minus (and the GRM when asked) on its modelled
+   * first arrivals, compared with the true interfaces under every geophone.
+   */
+  sectionReading(
+    plan: Plan,
+    modelIndex: number,
+    options?: { grm?: boolean },
+  ): Promise<SectionReading>;
   /**
    * Section design sweep in its own worker; a new one supersedes (ends) a running one, and
    * an abort signal cancels it.
@@ -307,6 +317,12 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
         factory
           ? (quickApi().sectionShotField(plan, modelIndex, shot) as Promise<SectionShotField>)
           : local((e) => e.sectionShotField(plan, modelIndex, shot)),
+      ),
+    sectionReading: (plan, modelIndex, options) =>
+      latestOnly("sectionReading", () =>
+        factory
+          ? (quickApi().sectionReading(plan, modelIndex, options) as Promise<SectionReading>)
+          : local((e) => e.readSectionOfPlan(plan, modelIndex, options)),
       ),
     sectionSweep,
     analyze: (plan) =>
