@@ -11,7 +11,14 @@ import { createModeller, getModeller, isModellerCancelled, type Modeller } from 
 
 export type ModellerClient = Pick<
   Modeller,
-  "analyze" | "arrivals" | "curves" | "rayPath" | "sweep" | "sectionField" | "sectionSweep"
+  | "analyze"
+  | "arrivals"
+  | "curves"
+  | "rayPath"
+  | "sweep"
+  | "sectionField"
+  | "sectionSweep"
+  | "sectionReading"
 >;
 
 let override: ModellerClient | null = null;

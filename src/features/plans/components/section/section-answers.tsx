@@ -26,8 +26,11 @@ import {
   FeatureOverlay,
   InterpretationOverlay,
   RayOverlay,
+  READING_DASH,
+  ReadingOverlay,
   StretchOverlay,
 } from "./section-overlays";
+import type { SectionReading } from "../../../../../workers/field/section-reading";
 
 export type SectionTab = "arrivals" | "section" | "resolvability";
 
@@ -80,6 +83,16 @@ function worstSentence(analysis: SectionModelAnalysis, section: SectionDraft, un
   if (!w) return "No interface could be interpreted from these arrivals.";
   const name = section.layers[w.layer - 1]?.name || `layer ${w.layer}`;
   return `Interpreted by the intercept-time method under each shot, the top of ${name} is off by ${formatSigned("length", w.error, units)} at worst, at ${formatQuantity("length", w.position, units)} (positive: interpreted too deep).`;
+}
+
+/** The plus-minus reading's worst depth error in one line (null without a reading). */
+export function readingSentence(reading: SectionReading | null, units: UnitSystem): string | null {
+  const pm = reading?.readings.find((r) => r.method === "plus-minus");
+  if (!pm) return null;
+  if (!pm.worst) {
+    return `No interface could be read by the plus-minus method${pm.notes.length ? `: ${pm.notes[0]}` : "."}`;
+  }
+  return `Worst depth error of a plus-minus reading: ${formatSigned("length", pm.worst.error, units)} at ${formatQuantity("length", pm.worst.position, units)}.`;
 }
 
 /** "S2 (far) reverse" for a stretch's shot branch, "—" for none. */
@@ -306,6 +319,19 @@ function Legend() {
         "as a crew would interpret it",
       )}
       {item(
+        <line
+          x1="1"
+          x2="25"
+          y1="5"
+          y2="5"
+          stroke={palette.moss}
+          strokeWidth="2"
+          strokeDasharray={READING_DASH}
+          strokeLinecap="round"
+        />,
+        "crew's reading: plus-minus",
+      )}
+      {item(
         <line x1="1" x2="25" y1="5" y2="5" stroke={rayColour(2)} strokeWidth="1.2" />,
         "first-arrival rays (grey: direct wave)",
       )}
@@ -342,6 +368,15 @@ export function SectionAnswerFigure({
     rays ? `${objectId(plan)}:${modelIndex}:${shotIndex}` : null,
     (r) => modeller().sectionField(r.plan, r.modelIndex, r.shotIndex),
   );
+  const reading = useLatestResult(
+    interpreted ? { plan, modelIndex } : null,
+    interpreted ? `${objectId(plan)}:${modelIndex}:reading` : null,
+    async (r) => modeller().sectionReading(r.plan, r.modelIndex),
+  );
+  const plusMinus =
+    interpreted && reading.result && reading.current
+      ? (reading.result.readings.find((r) => r.method === "plus-minus") ?? null)
+      : null;
   const include = useMemo(
     () =>
       interpreted
@@ -402,9 +437,18 @@ export function SectionAnswerFigure({
             units={units}
           />
         ) : null}
+        {plusMinus ? <ReadingOverlay view={view} reading={plusMinus} /> : null}
       </SectionFigure>
       <Legend />
       <p className="mt-2 text-sm text-ink">{worstSentence(analysis, section, units)}</p>
+      {interpreted && plusMinus ? (
+        <p className="mt-1 text-sm text-ink">
+          {readingSentence(reading.result && reading.current ? reading.result : null, units)}
+        </p>
+      ) : null}
+      {interpreted && reading.pending ? (
+        <p className="mt-1 text-xs text-ochre">reading the line by the plus-minus method…</p>
+      ) : null}
     </div>
   );
 }

@@ -3,6 +3,7 @@ import { chartFont, chartMono, palette } from "@/lib/chart/palette";
 import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
 import type { SectionInterpretation, SectionRay } from "@engine";
 import type { InterfaceCoverage } from "@engine";
+import type { MethodReading } from "../../../../../workers/field/section-reading";
 import type { SectionDraft } from "../../lib/plan-form";
 import {
   featureBands,
@@ -274,6 +275,42 @@ export function InterpretationOverlay({
           </text>
         </g>
       ) : null}
+    </g>
+  );
+}
+
+/** Dash of the crew's plus-minus reading (distinct from the intercept-time marks, "5 4"). */
+export const READING_DASH = "1.5 3";
+
+/**
+ * A crew's reading of the section by a reciprocal method (plus-minus): each interpreted
+ * interface as a dashed moss line under the geophones, over the true interface.
+ */
+export function ReadingOverlay({ view, reading }: { view: SectionView; reading: MethodReading }) {
+  return (
+    <g aria-label={`Crew's reading: ${reading.method}`} pointerEvents="none">
+      {reading.interfaces.map((f) => {
+        const pts = [...f.points].sort((a, b) => a.position - b.position);
+        if (pts.length === 0) return null;
+        const d = pts
+          .map(
+            (p, i) =>
+              `${i === 0 ? "M" : "L"}${view.x(p.position).toFixed(1)},${view.y(p.elevation).toFixed(1)}`,
+          )
+          .join("");
+        return (
+          <path
+            key={f.layer}
+            data-layer={f.layer}
+            d={d}
+            fill="none"
+            stroke={palette.moss}
+            strokeWidth={2}
+            strokeDasharray={READING_DASH}
+            strokeLinecap="round"
+          />
+        );
+      })}
     </g>
   );
 }
