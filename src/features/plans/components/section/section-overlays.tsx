@@ -284,7 +284,7 @@ export const READING_DASH = "1.5 3";
 
 /**
  * A crew's reading of the section by a reciprocal method (plus-minus): each interpreted
- * interface as a dashed moss line under the geophones, over the true interface.
+ * interface as a dotted moss line (on a light halo) under the geophones, over the true one.
  */
 export function ReadingOverlay({ view, reading }: { view: SectionView; reading: MethodReading }) {
   return (
@@ -298,17 +298,20 @@ export function ReadingOverlay({ view, reading }: { view: SectionView; reading: 
               `${i === 0 ? "M" : "L"}${view.x(p.position).toFixed(1)},${view.y(p.elevation).toFixed(1)}`,
           )
           .join("");
+        // a light halo under the dots keeps them legible on the stretch bands they follow
         return (
-          <path
-            key={f.layer}
-            data-layer={f.layer}
-            d={d}
-            fill="none"
-            stroke={palette.moss}
-            strokeWidth={2}
-            strokeDasharray={READING_DASH}
-            strokeLinecap="round"
-          />
+          <g key={f.layer} data-layer={f.layer}>
+            <path d={d} fill="none" stroke={palette.card} strokeWidth={4.5} opacity={0.9} />
+            <path
+              data-role="reading"
+              d={d}
+              fill="none"
+              stroke={palette.moss}
+              strokeWidth={2.2}
+              strokeDasharray={READING_DASH}
+              strokeLinecap="round"
+            />
+          </g>
         );
       })}
     </g>

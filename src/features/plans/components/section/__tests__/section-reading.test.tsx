@@ -113,7 +113,7 @@ describe("the crew's plus-minus reading on the section", () => {
     expect(screen.getByText("crew's reading: plus-minus")).toBeInTheDocument();
     const overlay = document.querySelector('g[aria-label="Crew\'s reading: plus-minus"]');
     expect(overlay).not.toBeNull();
-    const path = overlay!.querySelector("path")!;
+    const path = overlay!.querySelector('path[data-role="reading"]')!;
     // three points: one move and two line segments; dashed unlike the intercept-time "5 4"
     expect(path.getAttribute("d")!.match(/[ML]/g)).toEqual(["M", "L", "L"]);
     expect(path.getAttribute("stroke-dasharray")).not.toBe("5 4");
