@@ -62,6 +62,55 @@ const lensCheck = (lensThickness: number): PlanInput => ({
   ]),
 });
 
+/**
+ * A 2-D section of the cutting: the ground falls towards the east and a shallow channel is cut
+ * into the sandstone. The 4 m spread puts one head-wave exit point on the channel floor per
+ * shot branch (under-sampled); 2 m spacing resolves it.
+ */
+const channelSection: PlanInput = {
+  format: "spreadsight-plan/2",
+  name: "Cutting line C — buried channel (2-D)",
+  models: [
+    {
+      name: "Channel in the sandstone (section)",
+      kind: "section",
+      surface: [
+        [-4, 101.6],
+        [40, 100.2],
+        [100, 97.8],
+      ],
+      layers: [
+        {
+          name: "sandy colluvium",
+          velocity: 500,
+          base: [
+            [-4, 99.4],
+            [40, 97.9],
+            [100, 95.6],
+          ],
+        },
+        {
+          name: "weathered sandstone",
+          velocity: 2100,
+          base: [
+            [-4, 95.6],
+            [32, 94.3],
+            [35, 93.0],
+            [43, 92.8],
+            [46, 94.0],
+            [100, 92.0],
+          ],
+        },
+        { name: "sandstone", velocity: 3300 },
+      ],
+    },
+  ],
+  spread: spread(4, 24, [
+    [-2, "end A"],
+    [94, "end B"],
+  ]),
+};
+
 /** Water-bearing sand under stiffer till: a velocity inversion no spread can reveal. */
 const cellFour = (shots: [number, string][]): PlanInput => ({
   name: "Cell 4 — sand lens under stiff till",
@@ -423,6 +472,22 @@ export async function seedDemoPlans(
     });
     await audit(c, lensAt, "lead", "plan.create", lensId, {
       name: lensName,
+      site: SCARROWFIELD,
+      sandbox: false,
+    });
+
+    // A 2-D section whose channel floor the 4 m spread under-samples.
+    const channelName = "Cutting line C — buried channel (2-D)";
+    const channelAt = ago(c, 2, 9, 30);
+    const channelId = await plan(c, {
+      siteId: scarrowfield,
+      name: channelName,
+      author: "lead",
+      status: "draft",
+      revisions: [{ at: channelAt, by: "lead", document: channelSection, message: "created" }],
+    });
+    await audit(c, channelAt, "lead", "plan.create", channelId, {
+      name: channelName,
       site: SCARROWFIELD,
       sandbox: false,
     });
