@@ -34,16 +34,8 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import type { startServer as StartServer } from "../server/start";
+import { CHROMIUM_ARGS } from "../tests/e2e/chromium-args";
 
-const CHROMIUM_ARGS = [
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-];
 const LEAD = "lead@spreadsight.test";
 const PASSWORD = "spreadsight-demo";
 const SITE = "Scarrowfield road cutting";

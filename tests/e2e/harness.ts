@@ -7,6 +7,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
 import { startServer } from "../../server/start";
+import { CHROMIUM_ARGS } from "./chromium-args";
 
 export const DEMO_PASSWORD = "spreadsight-demo";
 export const demoAccounts = {
@@ -44,16 +45,6 @@ export async function startApp(): Promise<E2eApp> {
     },
   };
 }
-
-const CHROMIUM_ARGS = [
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-];
 
 /** A fresh browser profile (its own cookies), closed by the returned function. */
 export async function openBrowser(): Promise<{
