@@ -53,6 +53,17 @@ export {
   type SpreadGeometry,
 } from "./shot-anchors";
 export {
+  MAX_ROLL_ALONG_SPREADS,
+  lineStations,
+  rollAlongFor,
+  rollAlongLayout,
+  type RollAlong,
+  type RollAlongLayout,
+  type RollAlongShot,
+  type RollAlongSpread,
+  type RollingSpread,
+} from "./roll-along";
+export {
   MAX_STACK,
   SITE_NOISE_LEVELS,
   SOURCE_REACH,

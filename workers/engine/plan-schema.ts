@@ -15,6 +15,7 @@
  */
 import { z } from "zod";
 import { sectionIssues, sectionModelShape } from "./section-schema";
+import { MAX_ROLL_ALONG_SPREADS } from "./roll-along";
 import { resolveShotPositions } from "./shot-anchors";
 
 export const MAX_LAYERS = 12;
@@ -161,6 +162,32 @@ export const spreadSchema = z
       .array(shotSchema)
       .min(1, "a spread needs at least one shot")
       .max(MAX_SHOTS, `a spread has at most ${MAX_SHOTS} shots`),
+    /**
+     * Roll-along (roll-along.ts): the line as `spreads` spreads of `channels` geophones, each
+     * moved on by `channels − overlap` stations. Absent = one spread.
+     */
+    rollAlong: z
+      .strictObject({
+        spreads: z
+          .number({ error: "roll-along spreads must be a number" })
+          .int("roll-along spreads must be a whole number")
+          .min(2, "roll-along needs at least 2 spreads")
+          .max(MAX_ROLL_ALONG_SPREADS, `roll-along has at most ${MAX_ROLL_ALONG_SPREADS} spreads`),
+        overlap: z
+          .number({ error: "roll-along overlap must be a number" })
+          .int("roll-along overlap must be a whole number of geophones")
+          .min(0, "roll-along overlap must be at least 0"),
+      })
+      .optional(),
+  })
+  .superRefine((spread, ctx) => {
+    if (spread.rollAlong && spread.rollAlong.overlap >= spread.channels) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["rollAlong", "overlap"],
+        message: `roll-along overlap must be below the ${spread.channels} channels of a spread`,
+      });
+    }
   })
   .transform((spread) => {
     // Anchored shots stand where their anchor puts them on this spread (shot-anchors.ts).
