@@ -86,8 +86,56 @@ export function exitPoint(from: number, to: number, geophone: number): number {
 }
 
 /**
- * A plain name for a feature from its neighbours: "channel floor" (both neighbours higher),
- * "crest" (both lower), "level stretch" or "slope dipping N°" otherwise.
+ * Steepest dip, degrees, that still reads as a slope rather than a step when the features
+ * either side are gentler. Our choice (from memory: rockhead steps and scarps a crew would
+ * draw as such are usually steeper than about 15°).
+ */
+export const STEP_DIP_DEG = 15;
+
+/**
+ * Whether the interface bends upwards (concave up, like the bottom of a trough) going from
+ * feature `a` into the next feature `b`: the dip (positive deepening with position) drops by
+ * more than `margin` degrees.
+ */
+const bendsUp = (a: InterfaceFeature, b: InterfaceFeature, margin: number) =>
+  a.dip - b.dip > margin;
+
+/**
+ * A trough: the interface comes down into feature `index` and goes up out of it, bending
+ * upwards at both ends (a slope that merely flattens out is not one).
+ */
+function isTrough(features: readonly InterfaceFeature[], index: number, margin: number): boolean {
+  const f = features[index];
+  const left = features[index - 1];
+  const right = features[index + 1];
+  if (!left || !right) return false;
+  return left.dip > 0 && right.dip < 0 && bendsUp(left, f, margin) && bendsUp(f, right, margin);
+}
+
+/**
+ * A top: the interface rises into feature `index` and falls away after it, bending downwards
+ * at both ends (a slope that merely steepens is not one).
+ */
+function isTop(features: readonly InterfaceFeature[], index: number, margin: number): boolean {
+  const f = features[index];
+  const left = features[index - 1];
+  const right = features[index + 1];
+  if (!left || !right) return false;
+  return left.dip < 0 && right.dip > 0 && bendsUp(f, left, margin) && bendsUp(right, f, margin);
+}
+
+/**
+ * A plain name for a feature from its shape and its neighbours' (dips and where the
+ * interface bends, not mean elevations, which a long neighbour's own slope would skew):
+ * - "channel floor": the interface comes down into it and goes up out of it (a trough);
+ * - "channel wall (descending)" / "channel wall (rising)": a slope (|dip| ≥ tolerance)
+ *   whose lower end leads into a channel floor, or straight into the opposite wall (a V);
+ *   descending and rising are along the line, with increasing position;
+ * - "crest": the interface rises into it and falls away after it (a ridge top);
+ * - "ridge flank (rising)" / "ridge flank (descending)": a slope whose upper end leads into
+ *   a crest or straight into the opposite flank (a Λ);
+ * - "step dipping N°": a slope of at least STEP_DIP_DEG between gentler features (a scarp);
+ * - "level stretch" or "slope dipping N°" otherwise (also for the ends of the line).
  */
 export function featureName(
   features: readonly InterfaceFeature[],
@@ -97,12 +145,37 @@ export function featureName(
   const f = features[index];
   const left = features[index - 1];
   const right = features[index + 1];
-  if (left && right) {
-    if (left.elevation > f.elevation && right.elevation > f.elevation) return "channel floor";
-    if (left.elevation < f.elevation && right.elevation < f.elevation) return "crest";
+  // adjacent features differ by at least the tolerance segment to segment; their mean dips
+  // may differ less on a curved feature, so a bend needs half of it
+  const margin = toleranceDeg / 2;
+  const slope = Math.abs(f.dip) >= toleranceDeg;
+  if (isTrough(features, index, margin)) return "channel floor";
+  if (isTop(features, index, margin)) return "crest";
+  if (slope && f.dip > 0 && right) {
+    // descending: the lower end is on the right
+    if (isTrough(features, index + 1, margin) || right.dip <= -toleranceDeg)
+      return "channel wall (descending)";
+    if (left && (isTop(features, index - 1, margin) || left.dip <= -toleranceDeg))
+      return "ridge flank (descending)";
   }
-  if (Math.abs(f.dip) < toleranceDeg) return "level stretch";
-  return `slope dipping ${Math.round(Math.abs(f.dip))}°`;
+  if (slope && f.dip < 0 && left) {
+    // rising: the lower end is on the left
+    if (isTrough(features, index - 1, margin) || left.dip >= toleranceDeg)
+      return "channel wall (rising)";
+    if (right && (isTop(features, index + 1, margin) || right.dip >= toleranceDeg))
+      return "ridge flank (rising)";
+  }
+  const deg = Math.round(Math.abs(f.dip));
+  if (!slope) return "level stretch";
+  if (
+    left &&
+    right &&
+    Math.abs(f.dip) >= STEP_DIP_DEG &&
+    Math.abs(left.dip) < Math.abs(f.dip) - margin &&
+    Math.abs(right.dip) < Math.abs(f.dip) - margin
+  )
+    return `step dipping ${deg}°`;
+  return `slope dipping ${deg}°`;
 }
 
 /** Practical geophone spacings, m (common practice: the marks of usual cables and tapes). */
