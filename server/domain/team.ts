@@ -1,8 +1,12 @@
-/** Team members: list, change role, remove. Admin-only changes; the last admin stays. */
+/**
+ * Team members (list, change role, remove; admin-only changes, the last admin stays) and team
+ * settings (every member reads them, an admin changes them).
+ */
 import type { DataSource, EntityManager } from "typeorm";
 import type { Role } from "@/contracts/common";
-import type { MemberSummary } from "@/contracts/team";
+import type { MemberSummary, TeamSettings, TeamSettingsUpdate } from "@/contracts/team";
 import { Membership } from "../data/entities/membership";
+import { Team } from "../data/entities/team";
 import { inTransaction } from "../data/transaction";
 import { Session } from "../data/entities/session";
 import type { Actor } from "./actor";
@@ -97,5 +101,47 @@ export async function removeMember(
       targetId: userId,
       detail: { name: member.user!.name, email: member.user!.email, role: member.role },
     });
+  });
+}
+
+function toSettings(team: Team): TeamSettings {
+  return { seismographChannels: team.seismographChannels };
+}
+
+/** The actor's team's settings (any role may read them: the designer needs the channel count). */
+export async function getTeamSettings(dataSource: DataSource, actor: Actor): Promise<TeamSettings> {
+  const team = await dataSource.getRepository(Team).findOneBy({ id: actor.teamId });
+  if (!team) throw notFound("team");
+  return toSettings(team);
+}
+
+/**
+ * Changes the actor's team's settings (admin: design.md gives the team to the admin). A change
+ * is recorded as `team.channels_change` with `{ from, to }`; the same value again writes nothing.
+ */
+export async function updateTeamSettings(
+  dataSource: DataSource,
+  actor: Actor,
+  input: TeamSettingsUpdate,
+): Promise<TeamSettings> {
+  requirePermission(actor, "manageTeam");
+  return inTransaction(dataSource, async (manager) => {
+    const teams = manager.getRepository(Team);
+    const team = await teams.findOneBy({ id: actor.teamId });
+    if (!team) throw notFound("team");
+    const from = team.seismographChannels;
+    const to = input.seismographChannels;
+    if (from !== to) {
+      await teams.update({ id: team.id }, { seismographChannels: to });
+      await recordAudit(manager, {
+        teamId: actor.teamId,
+        actorId: actor.userId,
+        action: "team.channels_change",
+        targetType: "team",
+        targetId: actor.teamId,
+        detail: { from, to },
+      });
+    }
+    return { seismographChannels: to };
   });
 }

@@ -158,6 +158,16 @@ const matrix: Row[] = [
     call: (a) => a.delete(`/api/team/members/${removableUserId}`),
     expect: only(["admin"], 204),
   },
+  {
+    route: "GET /api/team/settings",
+    call: (a) => a.get("/api/team/settings"),
+    expect: signedIn(200),
+  },
+  {
+    route: "PATCH /api/team/settings",
+    call: (a) => a.patch("/api/team/settings").send({ seismographChannels: 24 }),
+    expect: only(["admin"], 200),
+  },
   { route: "GET /api/sites", call: (a) => a.get("/api/sites?archived=all"), expect: signedIn(200) },
   {
     route: "GET /api/sites/:id",
@@ -227,6 +237,8 @@ describe("role × route matrix", () => {
       "GET /api/team/members",
       "PATCH /api/team/members/:userId",
       "DELETE /api/team/members/:userId",
+      "GET /api/team/settings",
+      "PATCH /api/team/settings",
       "GET /api/sites",
       "GET /api/sites/:id",
       "POST /api/sites",

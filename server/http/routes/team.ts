@@ -1,8 +1,14 @@
-/** /api/team: the member list (every role) and admin changes. */
+/** /api/team: the member list and the team settings (every role reads them) and admin changes. */
 import { Router } from "express";
-import { changeRoleSchema } from "@/contracts/team";
+import { changeRoleSchema, teamSettingsUpdateSchema } from "@/contracts/team";
 import { requirePermission } from "../../domain/actor";
-import { changeRole, listMembers, removeMember } from "../../domain/team";
+import {
+  changeRole,
+  getTeamSettings,
+  listMembers,
+  removeMember,
+  updateTeamSettings,
+} from "../../domain/team";
 import type { RouteContext } from "../context";
 import { requireActor } from "../session";
 import { noQuerySchema, parseBody, parseParams, parseQuery, userIdParamSchema } from "../validate";
@@ -31,6 +37,19 @@ export function teamRouter(ctx: RouteContext): Router {
     const { userId } = parseParams(userIdParamSchema, req);
     await removeMember(dataSource, actor, userId);
     res.status(204).end();
+  });
+
+  router.get("/settings", async (req, res) => {
+    const actor = requireActor(res);
+    parseQuery(noQuerySchema, req);
+    res.json(await getTeamSettings(dataSource, actor));
+  });
+
+  router.patch("/settings", async (req, res) => {
+    const actor = requireActor(res);
+    requirePermission(actor, "manageTeam");
+    const input = parseBody(teamSettingsUpdateSchema, req);
+    res.json(await updateTeamSettings(dataSource, actor, input));
   });
 
   return router;
