@@ -21,6 +21,8 @@ import { recoverDipLayered } from "./dip-recovery";
 import { degrees, finiteOrNull } from "./numbers";
 import type { Criteria, GroundModel, Plan } from "./plan-schema";
 import { analyzeSection } from "./section-analysis";
+import { isSectionAnalysis } from "./section-kind";
+import { rollAlongLayout, spreadOfLine } from "./roll-along";
 import {
   countOnSegments,
   createPieces,
@@ -260,12 +262,41 @@ export interface PlanAnalysis {
    * label and anchor (absent = fixed), in the plan's order.
    */
   shots: Array<{ position: number; label?: string; anchor?: ShotAnchor }>;
+  /**
+   * Only for a roll-along plan (`spread.rollAlong`): the line's spreads with their stations,
+   * geophone positions (m), shots (positions on that spread, m) and verdicts. `worstStatus`
+   * above is the worst over every spread; `models` and `shots` above are those of spread
+   * `shown`, and their shot indexes point into `spreads[shown − 1].shots`.
+   */
+  rollAlong?: {
+    stations: number;
+    step: number;
+    overlap: number;
+    spreads: Array<{
+      index: number;
+      firstStation: number;
+      lastStation: number;
+      firstGeophone: number;
+      lastGeophone: number;
+      shots: { planShot: number; label: string; position: number }[];
+      worstStatus: Status;
+      models: { name: string; worstStatus: Status }[];
+    }>;
+    /** 1-based spread whose detailed analysis the top-level `models` show. */
+    shown: number;
+  };
 }
 
 /** Options of analyzePlan. */
 export interface AnalyzeOptions {
   /** Compute minimum thicknesses (closed form per layer, see design.ts). Default true. */
   minimumThickness?: boolean;
+  /**
+   * Roll-along plans only: the 1-based spread whose detailed analysis `models` show. Default
+   * (or when that spread does not exist or records no shot): the first spread holding the
+   * line's worst verdict. Ignored without roll-along. Throws RangeError unless a whole number ≥ 1.
+   */
+  spread?: number;
 }
 
 interface BranchState {
@@ -689,20 +720,53 @@ function analyzeModel(
 
 /**
  * Analyse a validated plan (see parsePlan): every model in order, then the plan's worst
- * verdict and combined recommendation. Throws RangeError when a model's interfaces cross
+ * verdict and combined recommendation. A roll-along plan (`spread.rollAlong`) is analysed
+ * spread by spread (see analyzeRollAlong). Throws RangeError when a model's interfaces cross
  * within the spread or the spread is malformed (unvalidated input).
  */
 export function analyzePlan(plan: Plan, options: AnalyzeOptions = {}): PlanAnalysis {
-  const { spread, criteria } = plan;
+  const { spread } = plan;
   if (!(spread.spacing > 0) || !(spread.channels >= 1) || spread.shots.length === 0) {
     throw new RangeError("spread needs spacing > 0, at least 1 channel and at least 1 shot");
   }
+  if (spread.rollAlong) return analyzeRollAlong(plan, options);
+  const models = analyzeModels(plan, spread, options);
+  const combined = combineModels(models, spread.spacing, plan.criteria);
+  return {
+    format: "spreadsight-analysis/1",
+    plan: plan.name,
+    criteria: plan.criteria,
+    worstStatus: worstStatus(models.map((m) => m.worstStatus)),
+    models,
+    recommendation: {
+      maxSpacing: combined.maxSpacing,
+      spreadLength: combined.spreadLength,
+      channels: combined.channels,
+      text: combined.text(models.length, combined.hidden),
+    },
+    shots: resolvedShots(spread),
+  };
+}
+
+/** Every model of the plan analysed on one spread (without roll-along). */
+function analyzeModels(
+  plan: Plan,
+  spread: Omit<Plan["spread"], "rollAlong">,
+  options: AnalyzeOptions,
+  reuse: (ModelAnalysis | null)[] = [],
+): ModelAnalysis[] {
   const layout = layoutOf(spread);
-  const models = plan.models.map((m, i) =>
-    m.kind === "section"
-      ? analyzeSection(m, i, spread, criteria)
-      : analyzeModel(m, i, layout, criteria, options),
+  return plan.models.map(
+    (m, i) =>
+      reuse[i] ??
+      (m.kind === "section"
+        ? analyzeSection(m, i, spread, plan.criteria)
+        : analyzeModel(m, i, layout, plan.criteria, options)),
   );
+}
+
+/** The plan-level recommendation figures over a list of model analyses. */
+function combineModels(models: ModelAnalysis[], spacing: number, criteria: Criteria) {
   let maxSpacing: number | null = null;
   let crossover = 0;
   for (const m of models) {
@@ -712,28 +776,169 @@ export function analyzePlan(plan: Plan, options: AnalyzeOptions = {}): PlanAnaly
   }
   const { spreadLength, channels } = spreadLengthFor(
     crossover,
-    maxSpacing ?? spread.spacing,
+    maxSpacing ?? spacing,
     criteria.minGeophones,
   );
   const hidden = models.flatMap((m) =>
     m.recommendation.hidden.map((h) => `${m.name}: layer ${h.layer} (${h.status})`),
   );
-  const spacingPart =
-    maxSpacing === null ? "any spacing" : `spacing at most ${fmt(maxSpacing, 2)} m`;
-  let text =
-    `Across ${models.length} ground model${models.length === 1 ? "" : "s"}: use ${spacingPart} and shot ` +
-    `branches reaching ${fmt(spreadLength)} m offset (${channels} channels at ` +
-    `${fmt(maxSpacing ?? spread.spacing, 2)} m span ` +
-    `${fmt((channels - 1) * (maxSpacing ?? spread.spacing))} m).`;
-  if (hidden.length > 0) text += ` Not revealed by any spread: ${hidden.join("; ")}.`;
+  const text = (modelCount: number, hiddenList: string[], lead = "") => {
+    const spacingPart =
+      maxSpacing === null ? "any spacing" : `spacing at most ${fmt(maxSpacing, 2)} m`;
+    let out =
+      `Across ${modelCount} ground model${modelCount === 1 ? "" : "s"}${lead}: use ${spacingPart} and shot ` +
+      `branches reaching ${fmt(spreadLength)} m offset (${channels} channels at ` +
+      `${fmt(maxSpacing ?? spacing, 2)} m span ` +
+      `${fmt((channels - 1) * (maxSpacing ?? spacing))} m).`;
+    if (hiddenList.length > 0) out += ` Not revealed by any spread: ${hiddenList.join("; ")}.`;
+    return out;
+  };
+  return { maxSpacing, spreadLength, channels, hidden, text };
+}
+
+/** "2", "2 and 5", "2, 3 and 5". */
+function listNumbers(numbers: number[]): string {
+  if (numbers.length <= 1) return numbers.join("");
+  return `${numbers.slice(0, -1).join(", ")} and ${numbers[numbers.length - 1]}`;
+}
+
+/**
+ * A roll-along plan: each spread of the line (roll-along.ts) is analysed as a spread of its own,
+ * with its geometry and only the shots it records. `worstStatus` is the worst over every spread;
+ * the detailed `models` are those of the spread `options.spread` (1-based) when it exists and
+ * records a shot, else of the first spread holding the line's worst verdict, so the detail
+ * never hides a worse verdict elsewhere; `rollAlong.shown` says which. Shot indexes inside
+ * `models` and the top-level `shots` refer to that spread's shots (rollAlong.spreads[shown −
+ * 1].shots, each naming its plan shot). A spread that records no shot samples nothing:
+ * it is "under-sampled" and the recommendation says so. The recommendation figures combine
+ * every spread and model.
+ */
+function analyzeRollAlong(plan: Plan, options: AnalyzeOptions): PlanAnalysis {
+  const { spread, criteria } = plan;
+  const roll = spread.rollAlong as NonNullable<Plan["spread"]["rollAlong"]>;
+  if (options.spread !== undefined && !(Number.isInteger(options.spread) && options.spread >= 1)) {
+    throw new RangeError("spread: the spread to show is a whole number from 1");
+  }
+  const line = rollAlongLayout(spread);
+  // Minimum thicknesses only for the spread shown in detail: no other figure needs them.
+  const quick: AnalyzeOptions = { ...options, minimumThickness: false };
+  const perSpread = line.spreads.map((part) => {
+    if (part.shots.length === 0) return null;
+    try {
+      return analyzeModels(plan, spreadOfLine(spread, part.index, line), quick);
+    } catch (error) {
+      if (error instanceof RangeError)
+        throw new RangeError(`spread ${part.index}: ${error.message}`);
+      throw error;
+    }
+  });
+  const spreadWorst = perSpread.map((models) =>
+    models ? worstStatus(models.map((m) => m.worstStatus)) : ("under-sampled" as Status),
+  );
+  const lineWorst = worstStatus(spreadWorst);
+  const shotWorst = worstStatus(spreadWorst.filter((_, k) => perSpread[k] !== null));
+  const chosen = options.spread;
+  let shownIndex =
+    chosen !== undefined && perSpread[chosen - 1]
+      ? chosen - 1
+      : spreadWorst.findIndex((w, k) => perSpread[k] !== null && w === shotWorst);
+  if (shownIndex < 0) shownIndex = 0; // unreachable: the plan has a shot, so some spread records it
+  const shownPart = line.spreads[shownIndex];
+  const shownSpread = spreadOfLine(spread, shownPart.index, line);
+  const quickModels = perSpread[shownIndex] as ModelAnalysis[];
+  const models =
+    options.minimumThickness === false
+      ? quickModels
+      : analyzeModels(
+          plan,
+          shownSpread,
+          options,
+          quickModels.map((m) => (isSectionAnalysis(m) ? m : null)),
+        );
+
+  const analysed = perSpread.flatMap((m, k) => (m ? [{ k, models: m }] : []));
+  const combined = combineModels(
+    analysed.flatMap((a) => a.models),
+    spread.spacing,
+    criteria,
+  );
+  // Hidden layers once per model and layer, with the spreads they are hidden on when not all.
+  const hiddenOn = new Map<string, number[]>();
+  for (const { k, models: list } of analysed) {
+    for (const m of list) {
+      for (const h of m.recommendation.hidden) {
+        const key = `${m.name}: layer ${h.layer} (${h.status})`;
+        const on = hiddenOn.get(key) ?? [];
+        if (!on.includes(k + 1)) on.push(k + 1);
+        hiddenOn.set(key, on);
+      }
+    }
+  }
+  const hidden = [...hiddenOn].map(([key, on]) =>
+    on.length === line.spreads.length
+      ? key
+      : `${key} on spread${on.length === 1 ? "" : "s"} ${listNumbers(on)}`,
+  );
+  const n = line.spreads.length;
+  const lead =
+    ` and ${n} roll-along spreads (${spread.channels} channels each, ${roll.overlap} shared, ` +
+    `stations 1–${line.stations} from ${fmt(line.firstGeophone, 2)} m to ${fmt(line.lastGeophone, 2)} m)`;
+  let text = combined.text(plan.models.length, hidden, lead);
+  const worstOn = spreadWorst.flatMap((w, k) => (w === lineWorst ? [k + 1] : []));
+  if (worstOn.length < n) {
+    text += ` The line's worst verdict (${lineWorst}) is on spread${worstOn.length === 1 ? "" : "s"} ${listNumbers(worstOn)}.`;
+  }
+  const shotless = perSpread.flatMap((m, k) => (m ? [] : [k + 1]));
+  if (shotless.length > 0) {
+    text +=
+      ` Spread${shotless.length === 1 ? "" : "s"} ${listNumbers(shotless)} record${shotless.length === 1 ? "s" : ""} no shot: ` +
+      "anchor shots to the spread's ends so that every spread is shot.";
+  }
+  text += ` Details below are for spread ${shownPart.index}.`;
+
   return {
     format: "spreadsight-analysis/1",
     plan: plan.name,
     criteria,
-    worstStatus: worstStatus(models.map((m) => m.worstStatus)),
+    worstStatus: lineWorst,
     models,
-    recommendation: { maxSpacing, spreadLength, channels, text },
-    shots: resolvedShots(spread),
+    recommendation: {
+      maxSpacing: combined.maxSpacing,
+      spreadLength: combined.spreadLength,
+      channels: combined.channels,
+      text,
+    },
+    shots: shownPart.shots.map((s) => {
+      const anchor = spread.shots[s.planShot].anchor;
+      return {
+        position: s.position,
+        label: s.label,
+        ...(anchor ? { anchor: { to: anchor.to, offset: anchor.offset } } : {}),
+      };
+    }),
+    rollAlong: {
+      stations: line.stations,
+      step: line.step,
+      overlap: roll.overlap,
+      spreads: line.spreads.map((part, k) => ({
+        index: part.index,
+        firstStation: part.firstStation,
+        lastStation: part.lastStation,
+        firstGeophone: part.firstGeophone,
+        lastGeophone: part.lastGeophone,
+        shots: part.shots.map((s) => ({
+          planShot: s.planShot,
+          label: s.label,
+          position: s.position,
+        })),
+        worstStatus: spreadWorst[k],
+        models: plan.models.map((m, i) => ({
+          name: m.name,
+          worstStatus: perSpread[k]?.[i].worstStatus ?? "under-sampled",
+        })),
+      })),
+      shown: shownPart.index,
+    },
   };
 }
 

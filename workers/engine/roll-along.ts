@@ -152,3 +152,50 @@ export function rollAlongFor(
   const spreads = 1 + Math.ceil((stations - recorderChannels) / step);
   return { spreads, overlap };
 }
+
+/**
+ * One spread of the line as a plan spread of its own: spread `index` (1-based)'s geometry
+ * (its first geophone) and only the shots it records, each at its position on that spread (m),
+ * without `rollAlong`. Anchors and labels are kept, so parsing the result as a plan spread
+ * puts every shot where the layout does. Without `rollAlong` only index 1 exists and the
+ * spread is returned as it is.
+ * @throws RangeError when the line has no spread `index`
+ */
+export function spreadOfLine<S extends RollingSpread>(
+  spread: S,
+  index: number,
+  layout: RollAlongLayout = rollAlongLayout(spread),
+): Omit<S, "rollAlong"> {
+  const part = layout.spreads[index - 1];
+  if (!Number.isInteger(index) || !part) {
+    throw new RangeError(`the line has ${layout.spreads.length} spread(s); no spread ${index}`);
+  }
+  const { rollAlong: _roll, ...rest } = spread;
+  return {
+    ...rest,
+    firstGeophone: part.firstGeophone,
+    shots: part.shots.map((s) => ({ ...spread.shots[s.planShot], position: s.position })),
+  };
+}
+
+/**
+ * The whole line as one spread, for checks that need its extent: every station (channels =
+ * the line's stations, from the first spread's first geophone) and every shot of every spread
+ * at its position there, fixed (a shot repeated on several spreads appears once per spread).
+ * Without `rollAlong` the spread itself is returned.
+ */
+export function wholeLine<S extends RollingSpread>(spread: S): S {
+  if (!spread.rollAlong) return spread;
+  const layout = rollAlongLayout(spread);
+  const { rollAlong: _roll, ...rest } = spread;
+  return {
+    ...rest,
+    channels: layout.stations,
+    shots: layout.spreads.flatMap((part) =>
+      part.shots.map((s) => {
+        const { anchor: _anchor, ...shot } = spread.shots[s.planShot];
+        return { ...shot, position: s.position };
+      }),
+    ),
+  } as unknown as S;
+}

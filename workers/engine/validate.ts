@@ -7,6 +7,7 @@ import { layoutExtent, type Layout } from "./branches";
 import { describeInterfaceProblem, earthFromModel, findInterfaceProblem } from "./geometry";
 import { describePlanIssues, planSchema, type Plan, type Spread } from "./plan-schema";
 import { sectionSpreadIssues } from "./section-geometry";
+import { wholeLine } from "./roll-along";
 
 /** Result of parsing a plan: the plan with defaults applied, or one message per problem. */
 export type ParsePlanResult = { ok: true; plan: Plan } | { ok: false; issues: string[] };
@@ -23,11 +24,13 @@ export function layoutOf(spread: Spread): Layout {
 
 /** Geometry problems of a schema-valid plan, one line each naming the field. */
 export function geometryIssues(plan: Plan): string[] {
-  const extent = layoutExtent(layoutOf(plan.spread));
+  // A roll-along line is checked over every spread and shot of the line (roll-along.ts).
+  const line = wholeLine(plan.spread);
+  const extent = layoutExtent(layoutOf(line));
   const issues: string[] = [];
   plan.models.forEach((model, i) => {
     if (model.kind === "section") {
-      issues.push(...sectionSpreadIssues(model, plan.spread, i));
+      issues.push(...sectionSpreadIssues(model, line, i));
       return;
     }
     const problem = findInterfaceProblem(earthFromModel(model), extent.from, extent.to);
