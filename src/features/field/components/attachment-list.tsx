@@ -1,25 +1,26 @@
 import type { AttachmentSummary } from "@/contracts/field";
 import { attachmentContentUrl } from "../api/attachment-content";
-import { fileSize, metres, ms } from "../lib/format";
+import type { UnitSystem } from "@/lib/units";
+import { fileSize, length, ms, speed } from "../lib/format";
 
 /** The same day-and-time style as the rest of the app ("2 Nov 2026, 10:00"). */
 const uploadedAt = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short" });
 
-/** One line of what the content check read from a file. */
-export function describeFacts(a: AttachmentSummary): string {
+/** One line of what the content check read from a file, lengths and velocities in `units`. */
+export function describeFacts(a: AttachmentSummary, units: UnitSystem): string {
   const f = a.facts;
   switch (f.kind) {
     case "seg2":
       return `${f.traces} traces × ${f.samples} samples at ${ms(f.sampleInterval, 3)}; ${
         f.sourcePositions.length
-          ? `shot at ${f.sourcePositions.map((s) => metres(s)).join(", ")}`
+          ? `shot at ${f.sourcePositions.map((s) => length(s, units)).join(", ")}`
           : "no shot position"
       }`;
     case "picks":
       return `${f.picks} picks from ${f.shots.length} shot${f.shots.length === 1 ? "" : "s"} (times in ${f.timeUnit})`;
     case "borehole":
       return `${f.intervals} intervals → ${f.layers} layers (${f.model.layers
-        .map((l) => `${l.name ?? "layer"} ${Math.round(l.velocity)} m/s`)
+        .map((l) => `${l.name ?? "layer"} ${speed(l.velocity, units)}`)
         .join(", ")})`;
   }
 }
@@ -33,6 +34,7 @@ export function AttachmentList({
   canEdit,
   inPlan,
   busyId,
+  units,
   onOpen,
   onLoadPicks,
   onAddModel,
@@ -44,6 +46,7 @@ export function AttachmentList({
   /** Names of the plan's ground models (a log already added shows so). */
   inPlan: readonly string[];
   busyId: string | null;
+  units: UnitSystem;
   onOpen: (a: AttachmentSummary) => void;
   onLoadPicks: (a: AttachmentSummary) => void;
   onAddModel: (a: AttachmentSummary) => void;
@@ -79,7 +82,7 @@ export function AttachmentList({
                   {KIND_NAMES[a.kind]} · {fileSize(a.size)}
                 </span>
               </td>
-              <td className="py-2 pr-3 align-top text-ink-soft">{describeFacts(a)}</td>
+              <td className="py-2 pr-3 align-top text-ink-soft">{describeFacts(a, units)}</td>
               <td className="py-2 pr-3 align-top font-mono text-xs">{a.revision}</td>
               <td className="py-2 pr-3 align-top text-xs text-ink-soft">
                 {a.uploadedBy.name}

@@ -1,13 +1,14 @@
 import { useMemo } from "react";
+import { unitLabel, type UnitSystem } from "@/lib/units";
 import type { FirstBreakPick } from "@/contracts/field";
 import { chartFont, palette } from "@/lib/chart/palette";
 import type { ModelFit, MisfitWarning } from "../../../../workers/field/index";
 import { useElementWidth } from "@/hooks/use-element-width";
 import type { Candidate, Comparison } from "../lib/comparison";
-import { metres, ms, signedMs } from "../lib/format";
+import { length, lengthNumber, localise, ms, signedMs } from "../lib/format";
 import { shotPositions } from "../lib/picks";
 import { fieldWorker } from "../lib/field-worker";
-import { curvePath, residualDomain, tdScales } from "../lib/td-chart";
+import { curvePath, lengthTicks, residualScales, tdScales } from "../lib/td-chart";
 import { useFieldResult } from "../lib/use-field-result";
 import { PICK_COLOURS } from "./record-section";
 
@@ -101,6 +102,12 @@ export function FitTable({
   );
 }
 
+/** A tick number as read on a chart: "−5", "0", "12.5" (a true minus sign). */
+const tickText = (v: number) => {
+  const text = String(Number(v.toFixed(6)));
+  return text.startsWith("-") ? `−${text.slice(1)}` : text;
+};
+
 const FRAME = { height: 320, margin: { left: 56, right: 16, top: 14, bottom: 40 } };
 
 /** Observed picks over the modelled first arrivals of every candidate, per shot. */
@@ -109,11 +116,13 @@ export function TimeDistanceChart({
   candidates,
   selected,
   spreadExtent,
+  units,
 }: {
   picks: readonly FirstBreakPick[];
   candidates: Candidate[];
   selected: number;
   spreadExtent: [number, number];
+  units: UnitSystem;
 }) {
   const { ref, width } = useElementWidth<HTMLDivElement>(760);
   const span = useMemo(() => {
@@ -141,7 +150,7 @@ export function TimeDistanceChart({
     return { frame, scales, curves, shots };
   }, [span, modelled, picks, width]);
   const { frame, scales, curves, shots } = chart;
-  const xTicks = scales.x.ticks(10);
+  const xTicks = lengthTicks(scales.x, units, 10);
   const yTicks = scales.y.ticks(6);
   return (
     <div ref={ref} className="w-full">
@@ -185,14 +194,14 @@ export function TimeDistanceChart({
         ))}
         {xTicks.map((t) => (
           <text
-            key={`x${t}`}
-            x={scales.x(t)}
+            key={`x${t.shown}`}
+            x={scales.x(t.si)}
             y={frame.height - frame.margin.bottom + 16}
             textAnchor="middle"
             fontSize={11}
             fill={palette.inkSoft}
           >
-            {t}
+            {tickText(t.shown)}
           </text>
         ))}
         <text
@@ -202,7 +211,7 @@ export function TimeDistanceChart({
           fontSize={11}
           fill={palette.ink}
         >
-          position along the line (m)
+          position along the line ({unitLabel("length", units)})
         </text>
         <text
           transform={`translate(14 ${(frame.margin.top + frame.height - frame.margin.bottom) / 2}) rotate(-90)`}
@@ -246,7 +255,7 @@ export function TimeDistanceChart({
             stroke={palette.card}
             strokeWidth={0.8}
           >
-            <title>{`shot ${metres(p.sourcePosition)}, geophone ${metres(p.receiverPosition)}: ${ms(p.time, 2)} (${p.origin})`}</title>
+            <title>{`shot ${length(p.sourcePosition, units)}, geophone ${length(p.receiverPosition, units)}: ${ms(p.time, 2)} (${p.origin})`}</title>
           </circle>
         ))}
         {shots.map((s, i) => (
@@ -289,30 +298,31 @@ export function TimeDistanceChart({
 }
 
 /** Residual (observed − modelled) per geophone for the model shown, one colour per shot. */
-export function ResidualChart({ fit, pickError }: { fit: ModelFit; pickError: number }) {
+export function ResidualChart({
+  fit,
+  pickError,
+  units,
+}: {
+  fit: ModelFit;
+  pickError: number;
+  units: UnitSystem;
+}) {
   const { ref, width } = useElementWidth<HTMLDivElement>(760);
-  const height = 200;
-  const margin = { left: 56, right: 16, top: 10, bottom: 34 };
+  const frame = { width, height: 210, margin: { left: 56, right: 16, top: 10, bottom: 44 } };
+  const { margin, height } = frame;
   const rows = fit.residuals;
-  const positions = rows.map((r) => r.receiverPosition);
-  const lo = Math.min(...positions);
-  const hi = Math.max(...positions);
-  const pad = Math.max(1, (hi - lo) * 0.03);
-  const x = (v: number) =>
-    margin.left +
-    ((v - (lo - pad)) / (hi + pad - (lo - pad))) * (width - margin.left - margin.right);
-  const [d0, d1] = residualDomain(
-    rows.map((r) => r.residual),
+  const { x, y, xTicks, yTicks } = residualScales(
+    frame,
+    rows,
     Math.max(2 * pickError, 0.001),
+    units,
   );
-  const y = (v: number) =>
-    margin.top + ((d1 - v) / (d1 - d0)) * (height - margin.top - margin.bottom);
   const shots = shotPositions(rows);
   const barWidth = Math.max(
     2,
     Math.min(8, ((width - margin.left - margin.right) / Math.max(1, rows.length)) * 0.6),
   );
-  const ticks = [d0 * 0.9, d0 * 0.45, 0, d1 * 0.45, d1 * 0.9];
+  const lenUnit = unitLabel("length", units);
   return (
     <div ref={ref} className="w-full">
       <svg
@@ -321,6 +331,7 @@ export function ResidualChart({ fit, pickError }: { fit: ModelFit; pickError: nu
         role="img"
         aria-label={`Residuals per geophone against ${fit.name}`}
         style={{ fontFamily: chartFont }}
+        data-testid="residual-chart"
       >
         <rect
           x={margin.left}
@@ -330,19 +341,59 @@ export function ResidualChart({ fit, pickError }: { fit: ModelFit; pickError: nu
           fill={palette.mossSoft}
           opacity={0.7}
         />
-        {ticks.map((t) => (
-          <text
-            key={t}
-            x={margin.left - 6}
-            y={y(t)}
-            textAnchor="end"
-            dominantBaseline="middle"
-            fontSize={11}
-            fill={palette.inkSoft}
-          >
-            {(t * 1000).toFixed(1)}
-          </text>
-        ))}
+        <g data-testid="residual-y-ticks">
+          {yTicks.map((t) => (
+            <g key={`y${t}`}>
+              <line
+                x1={margin.left}
+                x2={width - margin.right}
+                y1={y(t)}
+                y2={y(t)}
+                stroke={palette.rule}
+                strokeWidth={0.6}
+              />
+              <text
+                x={margin.left - 6}
+                y={y(t)}
+                textAnchor="end"
+                dominantBaseline="middle"
+                fontSize={11}
+                fill={palette.inkSoft}
+              >
+                {tickText(t * 1000)}
+              </text>
+            </g>
+          ))}
+        </g>
+        <g data-testid="residual-x-ticks">
+          {xTicks.map((t) => (
+            <g key={`x${t.shown}`}>
+              <line
+                x1={x(t.si)}
+                x2={x(t.si)}
+                y1={height - margin.bottom}
+                y2={height - margin.bottom + 4}
+                stroke={palette.inkSoft}
+              />
+              <text
+                x={x(t.si)}
+                y={height - margin.bottom + 16}
+                textAnchor="middle"
+                fontSize={11}
+                fill={palette.inkSoft}
+              >
+                {tickText(t.shown)}
+              </text>
+            </g>
+          ))}
+        </g>
+        <line
+          x1={margin.left}
+          x2={width - margin.right}
+          y1={height - margin.bottom}
+          y2={height - margin.bottom}
+          stroke={palette.rule}
+        />
         <line
           x1={margin.left}
           x2={width - margin.right}
@@ -365,18 +416,18 @@ export function ResidualChart({ fit, pickError }: { fit: ModelFit; pickError: nu
               fill={SHOT_COLOURS[shots.indexOf(r.sourcePosition) % SHOT_COLOURS.length]}
               opacity={Math.abs(r.residual) > 2 * pickError ? 1 : 0.55}
             >
-              <title>{`shot ${metres(r.sourcePosition)}, geophone ${metres(r.receiverPosition)}: ${signedMs(r.residual, 2)}`}</title>
+              <title>{`shot ${length(r.sourcePosition, units)}, geophone ${length(r.receiverPosition, units)}: ${signedMs(r.residual, 2)}`}</title>
             </rect>
           ),
         )}
         <text
           x={(margin.left + width - margin.right) / 2}
-          y={height - 4}
+          y={height - 6}
           textAnchor="middle"
           fontSize={11}
           fill={palette.ink}
         >
-          geophone position (m)
+          geophone position ({lenUnit})
         </text>
         <text
           transform={`translate(14 ${(margin.top + height - margin.bottom) / 2}) rotate(-90)`}
@@ -394,7 +445,7 @@ export function ResidualChart({ fit, pickError }: { fit: ModelFit; pickError: nu
               className="mr-1 inline-block h-2.5 w-2.5 align-middle"
               style={{ background: SHOT_COLOURS[i % SHOT_COLOURS.length] }}
             />
-            shot at {metres(s)}
+            shot at {length(s, units)}
           </span>
         ))}
         <span>green band: within ±2σ of the plan's pick error ({ms(pickError, 2)})</span>
@@ -403,7 +454,8 @@ export function ResidualChart({ fit, pickError }: { fit: ModelFit; pickError: nu
   );
 }
 
-export function ResidualTable({ fit }: { fit: ModelFit }) {
+export function ResidualTable({ fit, units }: { fit: ModelFit; units: UnitSystem }) {
+  const lenUnit = unitLabel("length", units);
   return (
     <details className="mt-2">
       <summary className="cursor-pointer text-sm font-medium text-ink">
@@ -414,9 +466,9 @@ export function ResidualTable({ fit }: { fit: ModelFit }) {
           <caption className="sr-only">Residuals per geophone against {fit.name}</caption>
           <thead className="sticky top-0 bg-card text-ink-soft">
             <tr>
-              <th className="py-1 pr-2 font-medium">Shot</th>
-              <th className="py-1 pr-2 font-medium">Geophone</th>
-              <th className="py-1 pr-2 text-right font-medium">Offset</th>
+              <th className="py-1 pr-2 font-medium">Shot ({lenUnit})</th>
+              <th className="py-1 pr-2 font-medium">Geophone ({lenUnit})</th>
+              <th className="py-1 pr-2 text-right font-medium">Offset ({lenUnit})</th>
               <th className="py-1 pr-2 text-right font-medium">Observed</th>
               <th className="py-1 pr-2 text-right font-medium">Modelled</th>
               <th className="py-1 text-right font-medium">Residual</th>
@@ -428,9 +480,9 @@ export function ResidualTable({ fit }: { fit: ModelFit }) {
                 key={`${r.sourcePosition}|${r.receiverPosition}`}
                 className="border-t border-rule/50"
               >
-                <td className="py-0.5 pr-2">{metres(r.sourcePosition)}</td>
-                <td className="py-0.5 pr-2">{metres(r.receiverPosition)}</td>
-                <td className="py-0.5 pr-2 text-right">{metres(r.offset)}</td>
+                <td className="py-0.5 pr-2">{lengthNumber(r.sourcePosition, units)}</td>
+                <td className="py-0.5 pr-2">{lengthNumber(r.receiverPosition, units)}</td>
+                <td className="py-0.5 pr-2 text-right">{lengthNumber(r.offset, units)}</td>
                 <td className="py-0.5 pr-2 text-right">{ms(r.time, 2)}</td>
                 <td className="py-0.5 pr-2 text-right">{ms(r.modelled, 2)}</td>
                 <td className="py-0.5 text-right">{signedMs(r.residual, 2)}</td>
@@ -455,9 +507,11 @@ const WARNING_TITLES: Record<MisfitWarning["kind"], string> = {
 export function MisfitWarnings({
   warnings,
   modelName,
+  units,
 }: {
   warnings: MisfitWarning[];
   modelName: string;
+  units: UnitSystem;
 }) {
   if (warnings.length === 0) {
     return (
@@ -481,13 +535,13 @@ export function MisfitWarnings({
             className={`rounded-md border px-4 py-2 text-sm text-ink-deep ${missedLayer ? "border-brick/50 bg-brick-soft" : "border-ochre/50 bg-ochre-soft"}`}
           >
             <p className="font-semibold">
-              {WARNING_TITLES[w.kind]} — shot at {metres(w.sourcePosition)},{" "}
+              {WARNING_TITLES[w.kind]} — shot at {length(w.sourcePosition, units)},{" "}
               {w.side === "forward" ? "geophones beyond the shot" : "geophones before the shot"},{" "}
               {w.from === w.to
-                ? `offset ${metres(w.from, 1)}`
-                : `offsets ${metres(w.from, 1)}–${metres(w.to, 1)}`}
+                ? `offset ${length(w.from, units)}`
+                : `offsets ${length(w.from, units)}–${length(w.to, units)}`}
             </p>
-            <p>{w.message}</p>
+            <p>{localise(w.message, units)}</p>
           </li>
         );
       })}

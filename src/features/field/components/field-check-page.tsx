@@ -24,7 +24,7 @@ import { useAttachments } from "../api/list-attachments";
 import { useSavePicks } from "../api/save-picks";
 import type { Candidate, Comparison } from "../lib/comparison";
 import { fieldWorker } from "../lib/field-worker";
-import { metres } from "../lib/format";
+import { length } from "../lib/format";
 import { useFieldResult } from "../lib/use-field-result";
 import {
   adjustPick,
@@ -407,7 +407,7 @@ function FieldCheck({
         <Card>
           <h2 className="mb-3 text-lg font-semibold text-ink-deep">Field data</h2>
           {rights.edit ? (
-            <UploadPanel planId={plan.id} onUploaded={onUploaded} />
+            <UploadPanel planId={plan.id} onUploaded={onUploaded} units={units} />
           ) : (
             <p className="mb-2 text-sm text-ink-soft">
               Your role may read and download this plan's field data; uploads are for the plan's
@@ -421,6 +421,7 @@ function FieldCheck({
               canEdit={rights.edit}
               inPlan={doc.models.map((m) => m.name)}
               busyId={busy}
+              units={units}
               onOpen={(a) => void openRecord(a)}
               onLoadPicks={(a) => void loadCsvPicks(a)}
               onAddModel={(a) => {
@@ -486,7 +487,7 @@ function FieldCheck({
                       const planShot = doc.spread.shots.find((x) => x.position === s);
                       return (
                         <option key={s} value={s}>
-                          {metres(s)}
+                          {length(s, units)}
                           {planShot?.label
                             ? ` (${planShot.label})`
                             : planShot
@@ -539,6 +540,7 @@ function FieldCheck({
               view={view}
               onViewChange={setView}
               editable={rights.edit}
+              units={units}
               onAdjust={(traceIndex, time) => {
                 const p = placements[traceIndex];
                 setDraft((d) =>
@@ -633,14 +635,19 @@ function FieldCheck({
                 candidates={candidates}
                 selected={shown}
                 spreadExtent={spreadExtent}
+                units={units}
               />
               {comparison?.fits[shown] ? (
                 <div>
                   <h3 className="mb-1 text-sm font-semibold text-ink">
                     Residuals per geophone — {comparison.fits[shown].name}
                   </h3>
-                  <ResidualChart fit={comparison.fits[shown]} pickError={doc.criteria.pickError} />
-                  <ResidualTable fit={comparison.fits[shown]} />
+                  <ResidualChart
+                    fit={comparison.fits[shown]}
+                    pickError={doc.criteria.pickError}
+                    units={units}
+                  />
+                  <ResidualTable fit={comparison.fits[shown]} units={units} />
                 </div>
               ) : null}
               {comparison ? (
@@ -649,6 +656,7 @@ function FieldCheck({
                   <MisfitWarnings
                     warnings={warnings}
                     modelName={shownCandidate?.name ?? "the model"}
+                    units={units}
                   />
                 </div>
               ) : null}
@@ -692,6 +700,7 @@ function FieldCheck({
               picks={picks}
               candidate={shownCandidate}
               pickError={doc.criteria.pickError}
+              units={units}
             />
           </Card>
         </ErrorBoundary>

@@ -3,7 +3,8 @@ import type { FirstBreakPick } from "@/contracts/field";
 import { palette, chartFont } from "@/lib/chart/palette";
 import type { PickQuality, Seg2Record } from "../../../../workers/field/index";
 import { useElementWidth } from "@/hooks/use-element-width";
-import { metres, ms } from "../lib/format";
+import { unitLabel, type UnitSystem } from "@/lib/units";
+import { length, lengthNumber, ms } from "../lib/format";
 import { findPick, type TracePlacement } from "../lib/picks";
 import {
   peakAmplitude,
@@ -63,6 +64,7 @@ function draw(
   view: SectionView,
   hover: number | null,
   quality: readonly (PickQuality | null)[] | null,
+  units: UnitSystem,
 ) {
   const dpr = window.devicePixelRatio || 1;
   canvas.width = Math.round(layout.width * dpr);
@@ -99,14 +101,22 @@ function draw(
   ctx.fillText("time (ms)", 0, 0);
   ctx.restore();
 
-  // Geophone positions along the top, thinned so labels never overlap.
-  ctx.textAlign = "center";
+  // Geophone positions along the top in the user's unit (named left of the row), thinned so
+  // labels never overlap.
   ctx.textBaseline = "alphabetic";
+  ctx.textAlign = "right";
+  ctx.fillStyle = palette.ink;
+  ctx.fillText(unitLabel("length", units), margins.left - 6, margins.top - 8);
+  ctx.textAlign = "center";
   const every = Math.max(1, Math.ceil(34 / layout.spacing));
   placements.forEach((p, i) => {
     if (i % every !== 0 && i !== hover) return;
     ctx.fillStyle = i === hover ? palette.inkDeep : palette.inkSoft;
-    ctx.fillText(`${Number(p.receiverPosition.toFixed(1))}`, layout.traceX(i), margins.top - 8);
+    ctx.fillText(
+      `${lengthNumber(p.receiverPosition, units, 1)}`,
+      layout.traceX(i),
+      margins.top - 8,
+    );
   });
 
   ctx.save();
@@ -239,6 +249,7 @@ export function RecordSection({
   onAdjust,
   editable,
   quality = null,
+  units,
 }: {
   record: Seg2Record;
   placements: TracePlacement[];
@@ -252,6 +263,8 @@ export function RecordSection({
   onViewChange: (view: SectionView) => void;
   onAdjust: (traceIndex: number, time: number) => void;
   editable: boolean;
+  /** The user's display unit for geophone positions. */
+  units: UnitSystem;
 }) {
   const { ref, width } = useElementWidth<HTMLDivElement>(900);
   const canvasRef = useRef<HTMLCanvasElement | null>(null);
@@ -279,9 +292,10 @@ export function RecordSection({
         view,
         hover?.trace ?? null,
         quality,
+        units,
       );
     }
-  }, [layout, record, placements, picks, modelled, view, hover?.trace, quality]);
+  }, [layout, record, placements, picks, modelled, view, hover?.trace, quality, units]);
 
   const span = recordSpan(record);
   const target = (event: React.MouseEvent<HTMLCanvasElement>) => {
@@ -327,7 +341,7 @@ export function RecordSection({
       </div>
       <p className="mt-1 h-5 font-mono text-xs text-ink-soft" aria-live="polite">
         {hover && hovered
-          ? `channel ${record.traces[hover.trace].channel ?? hover.trace + 1} · geophone ${metres(hovered.receiverPosition)} · ${ms(hover.time, 2)}` +
+          ? `channel ${record.traces[hover.trace].channel ?? hover.trace + 1} · geophone ${length(hovered.receiverPosition, units)} · ${ms(hover.time, 2)}` +
             (hoveredPick
               ? ` · pick ${ms(hoveredPick.time, 2)} (${hoveredPick.origin}${quality?.[hover.trace] && hoveredPick.origin === "auto" ? `, ${quality[hover.trace]}` : ""})`
               : quality?.[hover.trace] === "none"

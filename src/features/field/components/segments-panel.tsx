@@ -5,7 +5,8 @@ import type { SpreadSide } from "../../../../workers/field/index";
 import type { Candidate, SegmentRange } from "../lib/comparison";
 import { fieldWorker } from "../lib/field-worker";
 import { useFieldResult } from "../lib/use-field-result";
-import { metres, ms, speed } from "../lib/format";
+import { length, lengthNumber, localise, ms, speed } from "../lib/format";
+import { fromDisplay, inputDigits, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 
 const sideLabel = (side: SpreadSide) =>
   side === "forward" ? "geophones beyond the shot" : "geophones before the shot";
@@ -19,11 +20,13 @@ export function SegmentsPanel({
   picks,
   candidate,
   pickError,
+  units,
 }: {
   picks: readonly FirstBreakPick[];
   candidate: Candidate | undefined;
   /** The plan's pick error, s (scales the outlier check). */
   pickError: number;
+  units: UnitSystem;
 }) {
   // Grouping, line fits and the intercept-time reading run in the field worker.
   const observed = useMemo(
@@ -68,6 +71,10 @@ export function SegmentsPanel({
       </p>
     );
   }
+  const lenUnit = unitLabel("length", units);
+  /** An offset box's text: the stored offset (m) in the user's unit, to the unit's box precision. */
+  const shownOffset = (v: number) =>
+    String(Number(toDisplay("length", v, units).toFixed(inputDigits("length", units))));
   const setRange = (i: number, k: 0 | 1, value: number) => {
     suggestion.current++; // a suggestion still on its way must not undo this edit
     setRanges((rs) =>
@@ -91,7 +98,7 @@ export function SegmentsPanel({
           >
             {sides.map((s, i) => (
               <option key={`${s.sourcePosition}-${s.side}`} value={i}>
-                shot at {metres(s.sourcePosition)}, {sideLabel(s.side)} ({s.count} picks)
+                shot at {length(s.sourcePosition, units)}, {sideLabel(s.side)} ({s.count} picks)
               </option>
             ))}
           </select>
@@ -102,7 +109,11 @@ export function SegmentsPanel({
             setRanges((rs) => {
               const last = rs[rs.length - 1];
               const start = last ? last[1] : 0;
-              return [...rs, [start, start + 10]];
+              // A new segment spans 10 m, or 30 ft for a feet user (a round span in the unit read).
+              return [
+                ...rs,
+                [start, start + fromDisplay("length", units === "imperial" ? 30 : 10, units)],
+              ];
             })
           }
         >
@@ -137,7 +148,7 @@ export function SegmentsPanel({
           <thead className="border-b border-rule text-xs tracking-wide text-ink-soft uppercase">
             <tr>
               <th className="py-1.5 pr-2 font-medium">Segment</th>
-              <th className="py-1.5 pr-2 font-medium">Offsets from–to (m)</th>
+              <th className="py-1.5 pr-2 font-medium">Offsets from–to ({lenUnit})</th>
               <th className="py-1.5 pr-2 text-right font-medium">Picks</th>
               <th className="py-1.5 pr-2 text-right font-medium">Apparent velocity</th>
               <th className="py-1.5 pr-2 text-right font-medium">Intercept time</th>
@@ -159,21 +170,25 @@ export function SegmentsPanel({
                       <input
                         type="number"
                         step="any"
-                        aria-label={`Segment ${i + 1} from offset (m)`}
+                        aria-label={`Segment ${i + 1} from offset (${lenUnit})`}
                         className="field-input py-0.5"
                         style={{ width: "5.5rem" }}
-                        value={r[0]}
-                        onChange={(e) => setRange(i, 0, Number(e.target.value))}
+                        value={shownOffset(r[0])}
+                        onChange={(e) =>
+                          setRange(i, 0, fromDisplay("length", Number(e.target.value), units))
+                        }
                       />
                       –
                       <input
                         type="number"
                         step="any"
-                        aria-label={`Segment ${i + 1} to offset (m)`}
+                        aria-label={`Segment ${i + 1} to offset (${lenUnit})`}
                         className="field-input py-0.5"
                         style={{ width: "5.5rem" }}
-                        value={r[1]}
-                        onChange={(e) => setRange(i, 1, Number(e.target.value))}
+                        value={shownOffset(r[1])}
+                        onChange={(e) =>
+                          setRange(i, 1, fromDisplay("length", Number(e.target.value), units))
+                        }
                       />
                     </div>
                   </td>
@@ -181,8 +196,10 @@ export function SegmentsPanel({
                     <>
                       <td className="py-1.5 pr-2 text-right font-mono">{fit.count}</td>
                       <td className="py-1.5 pr-2 text-right font-mono">
-                        {speed(fit.velocity)}
-                        {fit.velocityError !== null ? ` ± ${Math.round(fit.velocityError)}` : ""}
+                        {speed(fit.velocity, units)}
+                        {fit.velocityError !== null
+                          ? ` ± ${Math.round(toDisplay("velocity", fit.velocityError, units))}`
+                          : ""}
                       </td>
                       <td className="py-1.5 pr-2 text-right font-mono">
                         {ms(fit.intercept, 2)}
@@ -194,7 +211,7 @@ export function SegmentsPanel({
                   ) : (
                     <td colSpan={3} className="py-1.5 pr-2 text-right text-ochre">
                       {fit && !fit.ok
-                        ? fit.reason
+                        ? localise(fit.reason, units)
                         : "the range must run from the smaller offset to the larger"}
                     </td>
                   )}
@@ -218,7 +235,7 @@ export function SegmentsPanel({
         <p className="text-xs text-ochre">
           Left out of the line fits as far off their neighbours' trend: the pick
           {reading.excluded.length === 1 ? "" : "s"} at{" "}
-          {reading.excluded.map((o) => metres(o, 1)).join(", ")} offset.
+          {reading.excluded.map((o) => length(o, units)).join(", ")} offset.
         </p>
       ) : null}
       {reading?.interpretation ? (
@@ -241,14 +258,14 @@ export function SegmentsPanel({
                 {reading.interpretation.layers.map((l, i) => (
                   <tr key={i} className="border-b border-rule/60">
                     <td className="py-1 pr-2">{i + 1}</td>
-                    <td className="py-1 pr-2 text-right font-mono">{speed(l.velocity)}</td>
+                    <td className="py-1 pr-2 text-right font-mono">{speed(l.velocity, units)}</td>
                     <td className="py-1 pr-2 text-right font-mono">
-                      {metres(l.depth)}
-                      {l.depthError ? ` ± ${l.depthError.toFixed(2)}` : ""}
+                      {length(l.depth, units)}
+                      {l.depthError ? ` ± ${lengthNumber(l.depthError, units)}` : ""}
                     </td>
                     <td className="py-1 text-right font-mono">
-                      {l.thickness === null ? "half-space" : metres(l.thickness)}
-                      {l.thicknessError ? ` ± ${l.thicknessError.toFixed(2)}` : ""}
+                      {l.thickness === null ? "half-space" : length(l.thickness, units)}
+                      {l.thicknessError ? ` ± ${lengthNumber(l.thicknessError, units)}` : ""}
                     </td>
                   </tr>
                 ))}
@@ -256,7 +273,7 @@ export function SegmentsPanel({
             </table>
             {reading.interpretation.notes.map((n) => (
               <p key={n} className="mt-1 text-xs text-ochre">
-                {n}
+                {localise(n, units)}
               </p>
             ))}
             <p className="mt-1 text-xs text-ink-soft">
@@ -269,7 +286,7 @@ export function SegmentsPanel({
             role="status"
             className="rounded-md border border-ochre/50 bg-ochre-soft px-4 py-2 text-sm"
           >
-            No interpretation: {reading.interpretation.reason}.
+            No interpretation: {localise(reading.interpretation.reason, units)}.
           </p>
         )
       ) : null}

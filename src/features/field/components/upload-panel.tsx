@@ -9,6 +9,7 @@ import {
 import { Button } from "@/components/button";
 import { ApiError, errorMessage } from "@/lib/api-client";
 import { useUploadAttachment } from "../api/upload-attachment";
+import type { UnitSystem } from "@/lib/units";
 import { fileSize } from "../lib/format";
 
 const HINTS: Record<AttachmentKind, string> = {
@@ -32,9 +33,12 @@ export function uploadProblems(error: unknown): string[] {
 export function UploadPanel({
   planId,
   onUploaded,
+  units = "metric",
 }: {
   planId: string;
   onUploaded: (response: AttachmentUploadResponse, file: File) => void;
+  /** The user's display unit: a feet user is told the files stay in metres. */
+  units?: UnitSystem;
 }) {
   const [kind, setKind] = useState<AttachmentKind>("seg2");
   const [timeUnit, setTimeUnit] = useState<"" | "ms" | "s">("");
@@ -110,7 +114,11 @@ export function UploadPanel({
         </Button>
       </div>
       <p className="text-xs text-ink-soft">
-        {HINTS[kind]} At most {fileSize(ATTACHMENT_LIMITS[kind])}.
+        {HINTS[kind]}
+        {units === "imperial" && kind !== "seg2"
+          ? " Positions and depths in the file are in metres (m/s for velocities), whatever unit the screen shows."
+          : ""}{" "}
+        At most {fileSize(ATTACHMENT_LIMITS[kind])}.
       </p>
       {tooBig ? (
         <p role="alert" className="text-sm font-medium text-brick">

@@ -1,4 +1,8 @@
-/** Number formatting of the Field check screen (SI units; times shown in ms). */
+/**
+ * Number formatting of the Field check screen: stored values are SI; lengths and velocities are
+ * shown in the user's unit (src/lib/units.ts), times in ms in both systems.
+ */
+import { localiseMessage, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type { LineMethod } from "../../../../workers/field/index";
 
 /** "12.3 ms" from seconds; "–" for null. */
@@ -15,16 +19,45 @@ export function signedMs(seconds: number | null | undefined, digits = 1): string
   return `${v < 0 && Number(text) !== 0 ? "−" : "+"}${text} ms`;
 }
 
-/** "12.5 m" with trailing zeros trimmed. */
-export function metres(v: number | null | undefined, digits = 2): string {
-  if (v === null || v === undefined || !Number.isFinite(v)) return "–";
-  return `${Number(v.toFixed(digits))} m`;
+/**
+ * Decimal places of a position, offset or depth on the Field check: 0.01 m or 0.1 ft (about
+ * 3 cm either way — finer than a tape-measured station, common practice for a field layout).
+ */
+export function lengthDigits(units: UnitSystem): number {
+  return units === "imperial" ? 1 : 2;
 }
 
-/** "1520 m/s". */
-export function speed(v: number | null | undefined): string {
+/**
+ * A position, offset or depth (stored in m) in the user's unit, trailing zeros trimmed:
+ * "12.5 m", "41 ft"; "–" when unknown.
+ */
+export function length(
+  v: number | null | undefined,
+  units: UnitSystem,
+  digits = lengthDigits(units),
+): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return "–";
-  return `${Math.round(v)} m/s`;
+  return `${lengthNumber(v, units, digits)} ${unitLabel("length", units)}`;
+}
+
+/** The number alone of `length` (for axis ticks and table cells under a titled column). */
+export function lengthNumber(v: number, units: UnitSystem, digits = lengthDigits(units)): number {
+  const shown = Number(toDisplay("length", v, units).toFixed(digits));
+  return shown === 0 ? 0 : shown; // no "-0"
+}
+
+/** A velocity (stored in m/s) in the user's unit, whole: "1520 m/s", "4987 ft/s". */
+export function speed(v: number | null | undefined, units: UnitSystem): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return "–";
+  return `${Math.round(toDisplay("velocity", v, units))} ${unitLabel("velocity", units)}`;
+}
+
+/**
+ * A message of the field core, which states lengths and velocities in SI, with the user's figure
+ * beside each ("offset 12 m (39.37 ft)"); unchanged for a metric user.
+ */
+export function localise(message: string, units: UnitSystem): string {
+  return units === "metric" ? message : localiseMessage(message, units);
 }
 
 /** "± 12 m/s" style uncertainty, empty when unknown. */
