@@ -10,6 +10,7 @@ import { scaleLinear, type ScaleLinear } from "d3-scale";
 import { palette } from "@/lib/chart/palette";
 import { toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type { GroundModel, RayPath, Spread } from "./engine";
+import { velocityLegendTicks } from "./velocity-legend";
 
 export interface SectionInput {
   model: GroundModel;
@@ -165,24 +166,9 @@ export function buildSection(input: SectionInput): SectionModel {
       }
     : null;
 
+  // the bar spans every velocity drawn (the half-space included), labelled at both ends
   const vLo = Math.min(...velocities);
   const vHi = Math.max(...velocities);
-  const legendValues = scaleLinear().domain([
-    toDisplay("velocity", vLo, units),
-    toDisplay("velocity", vHi, units),
-  ]);
-  const perVelocity = toDisplay("velocity", 1, units);
-  const legendTicks =
-    vHi === vLo
-      ? [{ at: 0.5, label: String(Math.round(toDisplay("velocity", vLo, units))) }]
-      : legendValues
-          .ticks(4)
-          .map((v) => {
-            const si = v / perVelocity;
-            const t = (Math.log(si) - Math.log(vLo)) / (Math.log(vHi) - Math.log(vLo));
-            return { at: t, label: String(v) };
-          })
-          .filter((t) => t.at >= 0 && t.at <= 1);
 
   return {
     width,
@@ -212,18 +198,10 @@ export function buildSection(input: SectionInput): SectionModel {
           Math.exp(Math.log(vLo) + t * (Math.log(Math.max(vHi, vLo + 1)) - Math.log(vLo))),
         ),
       })),
-      ticks: apart(legendTicks, 0.16),
+      ticks: velocityLegendTicks(vLo, vHi, units),
       unit: unitLabel("velocity", units),
     },
   };
-}
-
-/** Legend labels at least `gap` (fraction of the bar) apart, keeping the first. */
-function apart<T extends { at: number }>(ticks: T[], gap: number): T[] {
-  const kept: T[] = [];
-  for (const t of ticks)
-    if (kept.length === 0 || t.at - kept[kept.length - 1].at >= gap) kept.push(t);
-  return kept;
 }
 
 function luminance(colour: string): number {

@@ -172,7 +172,7 @@ export function SectionChart({ input, title }: { input: SectionInput; title: str
               key={t.label}
               x={legendX + t.at * legendWidth}
               y={22}
-              textAnchor="middle"
+              textAnchor={t.at <= 0 ? "start" : t.at >= 1 ? "end" : "middle"}
               fontSize={9}
               fill={palette.inkSoft}
             >
