@@ -28,6 +28,7 @@ import { reportFontsMissing } from "./reports/fonts";
 import { closeWorkerPools } from "./workers/pool";
 import type { FakeSmtp } from "./mail/fake-smtp";
 import { createMailer, disabledMailer } from "./mail/mailer";
+import { startOutboxSweeper } from "./mail/outbox";
 
 export interface StartOptions {
   /** SQLite file (created with its folder when missing), or ":memory:". Ignored when
@@ -160,6 +161,8 @@ export async function startServer(options: StartOptions): Promise<RunningServer>
     void sweepObjects();
     const sweeper = setInterval(() => void sweepSessions().then(sweepObjects), 60 * 60 * 1000);
     sweeper.unref();
+    // Notification e-mails left in the outbox (SMTP down, a server stopped before sending).
+    const outbox = startOutboxSweeper({ dataSource, mailer, logger });
 
     let closing: Promise<void> | null = null;
     const close = () => {
@@ -171,6 +174,7 @@ export async function startServer(options: StartOptions): Promise<RunningServer>
           setTimeout(() => server.closeAllConnections(), 2000).unref();
         });
         await locals.drain();
+        await outbox.stop();
         await closeWorkerPools();
         mailer.close();
         await fakeSmtp?.close();

@@ -1,8 +1,10 @@
 /**
  * Notifications: an in-app inbox row for every event that concerns a member, and its e-mail
- * twin when the member's setting for that kind is on (default on). Rows are written in the
- * caller's transaction; e-mails go out after it commits (`deliverMail`), so a refused request
- * sends nothing and a slow SMTP server never holds a transaction open.
+ * twin when the member's setting for that kind is on (default on). Inbox rows and the e-mails'
+ * outbox rows (server/mail/outbox.ts) are written in the caller's transaction; the e-mails are
+ * sent after it commits (`deliverMail`), so a refused request sends nothing, a slow SMTP server
+ * never holds a transaction open, and an e-mail left unsent by a crash or an SMTP failure is
+ * sent by the outbox sweep.
  */
 import { randomUUID } from "node:crypto";
 import { In, IsNull, type DataSource, type EntityManager } from "typeorm";
@@ -18,6 +20,7 @@ import { PlanNotification } from "../data/entities/notification";
 import { NotificationSetting } from "../data/entities/notification-setting";
 import type { Plan } from "../data/entities/plan";
 import type { OutgoingMail } from "../mail/mailer";
+import { enqueueMail, sendOutbox } from "../mail/outbox";
 import type { Actor } from "./actor";
 import { notFound } from "./errors";
 import { canSeePlan } from "./plan-visibility";
@@ -29,6 +32,8 @@ export const reviewPath = (planId: string) => `/plans/${planId}/review`;
 export interface PendingMail {
   userId: string;
   mail: OutgoingMail;
+  /** The e-mail's outbox row (written in the same transaction). */
+  outboxId: string;
 }
 
 export interface NotifyInput {
@@ -154,34 +159,32 @@ export async function notify(
     manager,
     recipients.map((m) => m.userId),
   );
-  return recipients
+  const mails = recipients
     .filter((m) => (settings.get(m.userId) ?? DEFAULT_NOTIFICATION_SETTINGS)[input.kind])
     .map((m) => ({ userId: m.userId, mail: notificationMail(services, input, m.user!) }));
+  const ids = await enqueueMail(
+    manager,
+    mails.map((m) => ({ ...m.mail, userId: m.userId })),
+  );
+  return mails.map((m, i) => ({ ...m, outboxId: ids[i] }));
 }
 
 const inFlight = new WeakMap<object, Set<Promise<void>>>();
 
 /**
- * Sends the e-mails in the background: the request that caused them answers at once and a
- * slow or failing SMTP server never delays or undoes it (a failure is logged; the inbox row
- * is the durable record). `notificationMailSettled` waits for them (tests, shutdown).
+ * Sends the e-mails in the background once their transaction has committed: the request that
+ * caused them answers at once, and a slow or failing SMTP server never delays or undoes it (a
+ * failure is logged and retried by the outbox sweep). `notificationMailSettled` waits for them
+ * (tests, shutdown).
  */
 export function deliverMail(services: Services, pending: PendingMail[]): void {
   if (pending.length === 0) return;
   const set = inFlight.get(services.dataSource) ?? new Set<Promise<void>>();
   inFlight.set(services.dataSource, set);
-  const job = Promise.allSettled(pending.map((p) => services.mailer.send(p.mail))).then(
-    (results) => {
-      results.forEach((result, i) => {
-        if (result.status === "rejected") {
-          services.logger.warn(
-            { err: result.reason, userId: pending[i].userId, subject: pending[i].mail.subject },
-            "notification e-mail failed",
-          );
-        }
-      });
-    },
-  );
+  const job = sendOutbox(
+    services,
+    pending.map((p) => p.outboxId),
+  ).then(() => undefined);
   set.add(job);
   void job.finally(() => set.delete(job));
 }

@@ -3,6 +3,7 @@ import { Attachment } from "./attachment";
 import { AuditEvent } from "./audit-event";
 import { Invitation } from "./invitation";
 import { MailMessage } from "./mail-message";
+import { MailOutboxRow } from "./mail-outbox";
 import { Membership } from "./membership";
 import { PlanComment } from "./comment";
 import { PlanNotification } from "./notification";
@@ -23,6 +24,7 @@ export {
   AuditEvent,
   Invitation,
   MailMessage,
+  MailOutboxRow,
   Membership,
   PasswordReset,
   Session,
@@ -47,6 +49,7 @@ export const entities = [
   Invitation,
   PasswordReset,
   MailMessage,
+  MailOutboxRow,
   UserPreference,
   Plan,
   PlanRevision,

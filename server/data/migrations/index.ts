@@ -7,6 +7,7 @@ import { PlansReview1733184000000 } from "./1733184000000-plans-review";
 import { Field1733270400000 } from "./1733270400000-field";
 import { RateLimits1796169600000 } from "./1796169600000-rate-limits";
 import { ObjectStorage1796256000000 } from "./1796256000000-object-storage";
+import { MailOutbox1796428800000 } from "./1796428800000-mail-outbox";
 import { TeamSettings1796342400000 } from "./1796342400000-team-settings";
 
 export const migrations = [
