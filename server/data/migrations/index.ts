@@ -17,4 +17,5 @@ export const migrations = [
   RateLimits1796169600000,
   ObjectStorage1796256000000,
   TeamSettings1796342400000,
+  MailOutbox1796428800000,
 ];
