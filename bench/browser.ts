@@ -7,6 +7,9 @@
  *  - edit → redrawn Arrivals chart (from the input event until the first-arrival path has
  *    changed and the next animation frame has run),
  *  - edit → redrawn Resolvability table (same, until the table's text has changed),
+ *  - edit → redrawn 2-D section (issue 9): the demo section plan's surface elevation under
+ *    one point is typed, until the Section figure of the 2-D modeller (rays, stretches) has
+ *    changed; the analysis reruns the eikonal solver on every edit (aim < 300 ms),
  *  - main-thread long tasks (PerformanceObserver "longtask") during each edit: the longest
  *    and the sum,
  *  - first load of the designer: a cold browser context opens a plan's address, the sign-in
@@ -41,6 +44,22 @@ const PASSWORD = "spreadsight-demo";
 const SITE = "Scarrowfield road cutting";
 const PLAN = "Cutting line A — clay lens check";
 const EDIT_BOX = "Layer 1 thickness (m)";
+/** The demo's 2-D section plan and the box its scenario types into. */
+const SECTION_PLAN = "Cutting line C — buried channel (2-D)";
+const SECTION_BOX = "surface point 2 elevation (m)";
+/** Surface elevations typed in turn under point 2 (m): each differs from the one before. */
+const ELEVATIONS = [
+  "100.6",
+  "99.8",
+  "100.4",
+  "100.0",
+  "100.8",
+  "99.6",
+  "100.5",
+  "99.9",
+  "100.7",
+  "100.1",
+];
 /** Layer 1 thicknesses typed in turn (m): each differs from the one before. */
 const THICKNESSES = ["2.6", "2.2", "2.8", "2.0", "3.0", "2.4", "2.7", "2.1", "2.9", "2.3"];
 
@@ -88,6 +107,8 @@ interface EditSample {
   longSum: number;
 }
 
+type View = "arrivals" | "resolvability" | "section";
+
 /**
  * Type `value` into the box labelled `label` in one input event and resolve when `probe()`
  * (a snapshot of what is drawn) differs from its value before the edit, after the next frame.
@@ -96,7 +117,7 @@ async function timedEdit(
   page: Page,
   label: string,
   value: string,
-  view: "arrivals" | "resolvability",
+  view: View,
 ): Promise<EditSample> {
   return page.evaluate(
     ({ label, value, view }) =>
@@ -104,8 +125,10 @@ async function timedEdit(
         const probe = () =>
           view === "arrivals"
             ? (document.querySelector('path[data-role="first-arrival"]')?.getAttribute("d") ?? "")
-            : (document.querySelector('table[aria-label^="Resolvability of"] tbody')?.textContent ??
-              "");
+            : view === "section"
+              ? (document.querySelector('svg[aria-label^="Section, "]')?.innerHTML ?? "")
+              : (document.querySelector('table[aria-label^="Resolvability of"] tbody')
+                  ?.textContent ?? "");
         const input = [...document.querySelectorAll("input")].find(
           (i) => i.getAttribute("aria-label") === label,
         );
@@ -164,14 +187,14 @@ async function signIn(page: Page) {
   await page.getByRole("button", { name: "Sign in" }).click();
 }
 
-/** The demo plan's address (signs in on a throw-away context). */
-async function planUrl(browser: Browser, base: string): Promise<string> {
+/** The address of the demo plan `plan` (signs in on a throw-away context). */
+async function planUrl(browser: Browser, base: string, plan = PLAN): Promise<string> {
   const context = await newContext(browser);
   const page = await context.newPage();
   await page.goto(`${base}/sign-in`);
   await signIn(page);
   await page.getByRole("link", { name: SITE }).click();
-  await page.getByRole("link", { name: PLAN }).click();
+  await page.getByRole("link", { name: plan }).click();
   await page.getByText("Analysis up to date").waitFor({ timeout: 30_000 });
   const url = page.url().split("?")[0];
   await context.close();
@@ -203,12 +226,14 @@ async function firstLoad(browser: Browser, url: string) {
   return { signInMs, designerMs, total: signInMs + designerMs, longest };
 }
 
-async function edits(page: Page, url: string, view: "arrivals" | "resolvability") {
+async function edits(page: Page, url: string, view: View) {
   await page.goto(`${url}?panel=${view}`);
   await settled(page);
   const samples: EditSample[] = [];
-  for (const value of THICKNESSES) {
-    samples.push(await timedEdit(page, EDIT_BOX, value, view));
+  const [box, values] = view === "section" ? [SECTION_BOX, ELEVATIONS] : [EDIT_BOX, THICKNESSES];
+  if (view === "section") await page.locator('svg[aria-label^="Section, "]').waitFor();
+  for (const value of values) {
+    samples.push(await timedEdit(page, box, value, view));
     await settled(page);
   }
   return samples;
@@ -319,11 +344,13 @@ interface Target {
   clientDir: string;
   url?: string;
   planUrl?: string;
+  sectionUrl?: string;
   close?: () => Promise<void>;
   dbDir?: string;
   samples: {
     arrivals: EditSample[];
     resolvability: EditSample[];
+    section: EditSample[];
     load: Array<{ signInMs: number; designerMs: number; total: number; longest: number }>;
     sweep: SweepSample[];
   };
@@ -355,7 +382,13 @@ async function main() {
   const own = argValues("--client")[0];
   const builtHere = own ? null : build();
   const targets: Target[] = [];
-  const emptySamples = () => ({ arrivals: [], resolvability: [], load: [], sweep: [] });
+  const emptySamples = () => ({
+    arrivals: [],
+    resolvability: [],
+    section: [],
+    load: [],
+    sweep: [],
+  });
   for (const dir of argValues("--compare"))
     targets.push({ label: "before", clientDir: path.resolve(dir), samples: emptySamples() });
   targets.push({
@@ -387,7 +420,10 @@ async function main() {
     args: CHROMIUM_ARGS,
   });
   try {
-    for (const t of targets) t.planUrl = await planUrl(browser, t.url as string);
+    for (const t of targets) {
+      t.planUrl = await planUrl(browser, t.url as string);
+      t.sectionUrl = await planUrl(browser, t.url as string, SECTION_PLAN);
+    }
     for (let round = 0; round < rounds; round++) {
       const order = round % 2 === 0 ? targets : [...targets].reverse();
       for (const t of order) {
@@ -404,6 +440,9 @@ async function main() {
         const page2 = await context.newPage();
         t.samples.resolvability.push(...(await edits(page2, t.planUrl as string, "resolvability")));
         await page2.close({ runBeforeUnload: false });
+        const pageS = await context.newPage();
+        t.samples.section.push(...(await edits(pageS, t.sectionUrl as string, "section")));
+        await pageS.close({ runBeforeUnload: false });
         const page3 = await context.newPage();
         t.samples.sweep.push(await sweep(page3, t.planUrl as string));
         await context.close();
@@ -434,8 +473,12 @@ async function main() {
   };
   line("edit → Arrivals redrawn (ms)", (t) => t.samples.arrivals.map((s) => s.ms));
   line("edit → Resolvability redrawn (ms)", (t) => t.samples.resolvability.map((s) => s.ms));
+  line("edit → 2-D section redrawn (ms)", (t) => t.samples.section.map((s) => s.ms));
   line("longest main-thread task per edit (ms)", (t) =>
     [...t.samples.arrivals, ...t.samples.resolvability].map((s) => s.longest),
+  );
+  line("longest main-thread task per section edit (ms)", (t) =>
+    t.samples.section.map((s) => s.longest),
   );
   line("long-task time per edit (ms)", (t) =>
     [...t.samples.arrivals, ...t.samples.resolvability].map((s) => s.longSum),
