@@ -8,6 +8,7 @@
  */
 import type { BranchVerdict, DirectWaveAnalysis, RefractorAnalysis, Segment } from "./analysis";
 import { layoutOf } from "./validate";
+import { spreadOfLine } from "./roll-along";
 import type { Criteria, Plan, SectionModel, Spread } from "./plan-schema";
 import { solveSection, type SolvedSection, type SolvedShot } from "./section-arrivals";
 import { runsOf, sectionBranches, sectionCoverage, type SectionBranch } from "./section-coverage";
@@ -228,18 +229,26 @@ export function analyzeSection(
 
 /**
  * The time field and first-arrival ray paths of one shot over a section model (for the
- * section chart). `modelIndex` must point at a section model; `shot` is 0-based. Throws
- * RangeError otherwise.
+ * section chart). `modelIndex` must point at a section model; `shot` is 0-based. On a
+ * roll-along plan, `spread` (1-based, default 1) picks the spread of the line, and `shot`
+ * indexes that spread's shots (as the analysis's `rollAlong.spreads[spread − 1].shots`); it is
+ * ignored without roll-along. Throws RangeError otherwise.
  */
-export function sectionShotField(plan: Plan, modelIndex: number, shot: number): SectionShotField {
+export function sectionShotField(
+  plan: Plan,
+  modelIndex: number,
+  shot: number,
+  spread = 1,
+): SectionShotField {
   const model = plan.models[modelIndex];
   if (!model || model.kind !== "section") {
     throw new RangeError(`model ${modelIndex} is not a section model`);
   }
-  if (!Number.isInteger(shot) || shot < 0 || shot >= plan.spread.shots.length) {
+  const on = plan.spread.rollAlong ? spreadOfLine(plan.spread, spread) : plan.spread;
+  if (!Number.isInteger(shot) || shot < 0 || shot >= on.shots.length) {
     throw new RangeError(`no shot ${shot}`);
   }
-  const solved = solveSection(model, plan.spread, { shots: [shot], withRays: true });
+  const solved = solveSection(model, on, { shots: [shot], withRays: true });
   const s = solved.shots[0];
   return {
     shot,

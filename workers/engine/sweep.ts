@@ -26,6 +26,7 @@ import type { Plan } from "./plan-schema";
 import { countOnSegments, firstArrivalPieces } from "./segments";
 import { CELL_INVALID, CELL_NOT_COMPUTED, STATUS_CODE } from "./statuses";
 import { layoutOf } from "./validate";
+import { spreadOfLine } from "./roll-along";
 import {
   branchCodes,
   coverageOf,
@@ -84,6 +85,10 @@ export const sweepSpecSchema = z
  * `min` to `max` in `steps`. `shotLayout` "follow" (default) moves anchored shots with
  * the spread exactly as the designer does (shot-anchors.ts: start, end or centre plus offset)
  * and keeps fixed shots where they are; "fixed" keeps every shot's position.
+ *
+ * A roll-along plan (`spread.rollAlong`): each cell analyses one spread, the line's first,
+ * with the shots that spread records (anchored shots, and the fixed shots nearest its centre);
+ * the sweep maps how a spread of the line resolves the model, not the whole line.
  */
 export type SweepSpec = z.input<typeof sweepSpecSchema>;
 
@@ -179,7 +184,10 @@ export function createSweepRunner(plan: Plan, specInput: SweepSpec): SweepRunner
     cancelled: false,
     completedRows: 0,
   };
-  const baseLayout = layoutOf(plan.spread);
+  // A roll-along line: every cell analyses the line's first spread with the shots it records
+  // (see SweepSpec); without roll-along this is the plan's spread.
+  const spread = plan.spread.rollAlong ? spreadOfLine(plan.spread, 1) : plan.spread;
+  const baseLayout = layoutOf(spread);
   const follow = spec.shotLayout !== "fixed";
   const layouts: Layout[] = [];
   for (let j = 0; j < cols; j++) {
@@ -190,7 +198,7 @@ export function createSweepRunner(plan: Plan, specInput: SweepSpec): SweepRunner
       channels,
       firstGeophone: baseLayout.firstGeophone,
       shots: follow
-        ? resolveShotPositions(plan.spread.shots, {
+        ? resolveShotPositions(spread.shots, {
             spacing,
             channels,
             firstGeophone: baseLayout.firstGeophone,
