@@ -1,7 +1,7 @@
 import { useMemo, useState } from "react";
 import { ErrorNotice, Notice } from "@/components/feedback";
 import { useElementWidth } from "@/hooks/use-element-width";
-import { chartFont, chartMono, palette } from "@/lib/chart/palette";
+import { chartFont, palette } from "@/lib/chart/palette";
 import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
 import type { CoverageStretch, InterfaceCoverage, SectionModelAnalysis } from "@engine";
 import { useLatestResult } from "../../hooks/use-latest-result";
@@ -21,6 +21,7 @@ import {
 } from "../../lib/section-answers";
 import { buildSectionView } from "../../lib/section-view";
 import { VerdictBadge } from "../verdict-badge";
+import { SectionAxes, SectionGrid } from "./section-axes";
 import { SectionFigure } from "./section-figure";
 import {
   FeatureOverlay,
@@ -488,47 +489,13 @@ export function SectionArrivalsChart({
       >
         <title>{title}</title>
         <rect width={plot.width} height={height} fill={palette.card} />
-        {plot.yTicks.map((t) => (
-          <g key={t.label}>
-            <line
-              x1={margin.left}
-              x2={plot.width - margin.right}
-              y1={t.px}
-              y2={t.px}
-              stroke={palette.rule}
-              strokeWidth={0.6}
-            />
-            <text
-              x={margin.left - 6}
-              y={t.px + 4}
-              textAnchor="end"
-              fontSize={11}
-              fontFamily={chartMono}
-              fill={palette.inkSoft}
-            >
-              {t.label}
-            </text>
-          </g>
-        ))}
-        {plot.xTicks.map((t) => (
-          <text
-            key={t.label}
-            x={t.px}
-            y={height - margin.bottom + 16}
-            textAnchor="middle"
-            fontSize={11}
-            fontFamily={chartMono}
-            fill={palette.inkSoft}
-          >
-            {t.label}
-          </text>
-        ))}
-        <line
-          x1={margin.left}
-          x2={plot.width - margin.right}
-          y1={height - margin.bottom}
-          y2={height - margin.bottom}
-          stroke={palette.inkSoft}
+        <SectionGrid frame={plot} yTicks={plot.yTicks} />
+        <SectionAxes
+          frame={plot}
+          xTicks={plot.xTicks}
+          yTicks={plot.yTicks}
+          xLabel={plot.xLabel}
+          yLabel={plot.yLabel}
         />
         <line
           x1={plot.shotX}
@@ -546,23 +513,6 @@ export function SectionArrivalsChart({
             <title>{`${formatQuantity("length", p.position, units)}: ${formatQuantity("time", p.time, units)}`}</title>
           </circle>
         ))}
-        <text
-          x={(margin.left + plot.width - margin.right) / 2}
-          y={height - 6}
-          textAnchor="middle"
-          fontSize={12}
-          fill={palette.inkSoft}
-        >
-          {plot.xLabel}
-        </text>
-        <text
-          transform={`translate(14,${(margin.top + height - margin.bottom) / 2}) rotate(-90)`}
-          textAnchor="middle"
-          fontSize={12}
-          fill={palette.inkSoft}
-        >
-          {plot.yLabel}
-        </text>
       </svg>
       <p className="mt-1 flex flex-wrap gap-x-4 text-xs text-ink-soft">
         {vias.map((v) => (

@@ -9,6 +9,7 @@ import {
 import { chartFont, chartMono, palette } from "@/lib/chart/palette";
 import { formatQuantity, type UnitSystem } from "@/lib/units";
 import type { SectionView } from "../../lib/section-view";
+import { SectionAxes, SectionGrid } from "./section-axes";
 
 export interface PointRef {
   line: number;
@@ -133,17 +134,7 @@ export function SectionFigure({
           height={bottom - margin.top}
           fill={palette.paper}
         />
-        {view.yTicks.map((t) => (
-          <line
-            key={`g${t.label}`}
-            x1={margin.left}
-            x2={right}
-            y1={t.px}
-            y2={t.px}
-            stroke={palette.rule}
-            strokeWidth={0.6}
-          />
-        ))}
+        <SectionGrid frame={view} yTicks={view.yTicks} />
         {view.layers.map((l) => (
           <path key={l.layer} d={l.path} fill={l.fill} stroke="none" />
         ))}
@@ -270,60 +261,13 @@ export function SectionFigure({
               </g>
             ))
           : null}
-        {/* axes */}
-        <line x1={margin.left} x2={right} y1={bottom} y2={bottom} stroke={palette.inkSoft} />
-        <line
-          x1={margin.left}
-          x2={margin.left}
-          y1={margin.top}
-          y2={bottom}
-          stroke={palette.inkSoft}
+        <SectionAxes
+          frame={view}
+          xTicks={view.xTicks}
+          yTicks={view.yTicks}
+          xLabel={view.xLabel}
+          yLabel={view.yLabel}
         />
-        {view.xTicks.map((t) => (
-          <g key={`x${t.label}`}>
-            <line x1={t.px} x2={t.px} y1={bottom} y2={bottom + 4} stroke={palette.inkSoft} />
-            <text
-              x={t.px}
-              y={bottom + 16}
-              textAnchor="middle"
-              fontSize={11}
-              fontFamily={chartMono}
-              fill={palette.inkSoft}
-            >
-              {t.label}
-            </text>
-          </g>
-        ))}
-        {view.yTicks.map((t) => (
-          <text
-            key={`y${t.label}`}
-            x={margin.left - 6}
-            y={t.px + 4}
-            textAnchor="end"
-            fontSize={11}
-            fontFamily={chartMono}
-            fill={palette.inkSoft}
-          >
-            {t.label}
-          </text>
-        ))}
-        <text
-          x={(margin.left + right) / 2}
-          y={height - 6}
-          textAnchor="middle"
-          fontSize={12}
-          fill={palette.inkSoft}
-        >
-          {view.xLabel}
-        </text>
-        <text
-          transform={`translate(14,${(margin.top + bottom) / 2}) rotate(-90)`}
-          textAnchor="middle"
-          fontSize={12}
-          fill={palette.inkSoft}
-        >
-          {view.yLabel}
-        </text>
         <text x={right} y={height - 6} textAnchor="end" fontSize={11} fill={palette.inkSoft}>
           {view.exaggeration === 1 ? "true scale" : `vertical scale ×${view.exaggeration}`}
         </text>

@@ -77,6 +77,48 @@ export function RayOverlay({ view, rays }: { view: SectionView; rays: SectionRay
   );
 }
 
+/**
+ * A band along an interface: a light halo path under the stroked band (`stroke` a colour or a
+ * pattern fill), so bands stay legible where they cross the layers' shading and rays.
+ */
+function Band({
+  d,
+  stroke,
+  width,
+  halo,
+  haloOpacity,
+  dash,
+}: {
+  d: string;
+  stroke: string;
+  width: number;
+  /** Width of the halo under the band, px. */
+  halo: number;
+  haloOpacity?: number;
+  dash?: string;
+}) {
+  return (
+    <>
+      <path
+        d={d}
+        fill="none"
+        stroke={palette.card}
+        strokeWidth={halo}
+        strokeLinecap="butt"
+        opacity={haloOpacity}
+      />
+      <path
+        d={d}
+        fill="none"
+        stroke={stroke}
+        strokeWidth={width}
+        strokeDasharray={dash}
+        strokeLinecap="butt"
+      />
+    </>
+  );
+}
+
 /** The stretches of each interface sampled by head waves, one row per shot branch. */
 export function StretchOverlay({
   view,
@@ -93,21 +135,13 @@ export function StretchOverlay({
     <g aria-label="Stretches sampled by head waves" pointerEvents="none">
       {marks.map((m, i) => (
         <g key={i}>
-          <path
+          <Band
             d={m.path}
-            fill="none"
-            stroke={palette.card}
-            strokeWidth={5.5}
-            strokeLinecap="butt"
-            opacity={0.8}
-          />
-          <path
-            d={m.path}
-            fill="none"
             stroke={m.colour}
-            strokeWidth={3.5}
-            strokeDasharray={m.dash}
-            strokeLinecap="butt"
+            width={3.5}
+            halo={5.5}
+            haloOpacity={0.8}
+            dash={m.dash}
           />
         </g>
       ))}
@@ -174,20 +208,7 @@ export function FeatureOverlay({
           role="img"
           aria-label={`${b.feature} from ${formatQuantity("length", b.from, units)} to ${formatQuantity("length", b.to, units)}: ${b.label.text.slice(b.feature.length + 2)}, under-sampled`}
         >
-          <path
-            d={b.path}
-            fill="none"
-            stroke={palette.card}
-            strokeWidth={13}
-            strokeLinecap="butt"
-          />
-          <path
-            d={b.path}
-            fill="none"
-            stroke={`url(#${hatch})`}
-            strokeWidth={10}
-            strokeLinecap="butt"
-          />
+          <Band d={b.path} stroke={`url(#${hatch})`} width={10} halo={13} />
           <line
             x1={b.leader.x}
             x2={b.leader.x}
