@@ -63,7 +63,8 @@ const FieldCheckPage = lazyScreen(
   (m) => m.FieldCheckPage,
 );
 const InboxPage = lazyScreen(
-  () => import("@/features/inbox"),
+  // the page's own module: the feature's index is in the first load (header link)
+  () => import("@/features/inbox/components/inbox-page"),
   (m) => m.InboxPage,
 );
 const TeamPage = lazyScreen(
