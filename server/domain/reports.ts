@@ -4,6 +4,7 @@
  */
 import { In, type DataSource } from "typeorm";
 import { PLAN_STATUS_LABELS } from "@/contracts/plans";
+import type { UnitSystem } from "@/lib/units";
 import { AuditEvent } from "../data/entities/audit-event";
 import { PickSet } from "../data/entities/pick-set";
 import { PlanRevision } from "../data/entities/plan-revision";
@@ -12,6 +13,7 @@ import type { PlanReportInput, ReportReviewEvent } from "../reports/types";
 import { runTask } from "../workers/pool";
 import type { Actor } from "./actor";
 import { exportablePlan, fileSlug } from "./exports";
+import { loadPreferences } from "./me";
 
 /** Review steps of the workflow as they read in the report. */
 const REVIEW_LABELS: Record<string, string> = {
@@ -29,11 +31,13 @@ export { fieldCheckSummary } from "../reports/assemble";
 /**
  * What the report shows that comes from the database, read for the actor (who must be allowed
  * to export). The analysis and the field check are computed from it by `completeReportInput`.
+ * Lengths and velocities are written in `units`, else in the actor's preferred units.
  */
 export async function gatherReportSource(
   dataSource: DataSource,
   actor: Actor,
   planId: string,
+  units?: UnitSystem,
 ): Promise<ReportSource> {
   const { plan, document, revision } = await exportablePlan(dataSource, actor, planId);
   const revisions = await dataSource.getRepository(PlanRevision).find({
@@ -72,6 +76,7 @@ export async function gatherReportSource(
     .getRepository(PickSet)
     .findOneBy({ planId, teamId: actor.teamId });
   return {
+    units: units ?? (await loadPreferences(dataSource, actor.userId)).units,
     generatedAt: new Date(),
     generatedBy: actor.name,
     teamName: actor.teamName,
@@ -103,21 +108,23 @@ export async function buildReportInput(
   dataSource: DataSource,
   actor: Actor,
   planId: string,
+  units?: UnitSystem,
 ): Promise<PlanReportInput> {
-  return completeReportInput(await gatherReportSource(dataSource, actor, planId));
+  return completeReportInput(await gatherReportSource(dataSource, actor, planId, units));
 }
 
 /**
  * The plan report as PDF bytes and a file name. The database is read here; the analysis, the
  * field check and the drawing run in the worker-thread pool (server/workers), off the event loop.
+ * `units` chooses metres or feet for lengths and velocities; by default the actor's preference.
  */
 export async function planReportPdf(
   dataSource: DataSource,
   actor: Actor,
   planId: string,
-  options: { compress?: boolean } = {},
+  options: { compress?: boolean; units?: UnitSystem } = {},
 ): Promise<{ pdf: Buffer; fileName: string }> {
-  const source = await gatherReportSource(dataSource, actor, planId);
+  const source = await gatherReportSource(dataSource, actor, planId, options.units);
   const bytes = await runTask({ kind: "report", source, compress: options.compress });
   const pdf = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   return { pdf, fileName: `${fileSlug(source.plan.name)}-rev${source.plan.revision}-report.pdf` };

@@ -9,7 +9,9 @@ import {
   modelFirstArrival,
   type ObservedPick,
 } from "../../workers/field/index";
+import type { UnitSystem } from "@/lib/units";
 import { interpretationSummary } from "./field-interpretation";
+import { reportUnits } from "./layout";
 import type { PlanReportInput, ReportFieldCheck } from "./types";
 
 /** What the database gives the report; the rest is computed by `completeReportInput`. */
@@ -18,12 +20,14 @@ export type ReportSource = Omit<PlanReportInput, "analysis" | "fieldCheck"> & {
   picks: ObservedPick[] | null;
 };
 
-/** Best model, RMS per model and misfit warnings for the saved picks. */
+/** Best model, RMS per model and misfit warnings (written in `units`) for the saved picks. */
 export function fieldCheckSummary(
   picks: readonly ObservedPick[],
   models: PlanReportInput["document"]["models"],
   pickError: number,
+  units: UnitSystem = "metric",
 ): ReportFieldCheck | null {
+  const u = reportUnits(units);
   if (picks.length === 0) return null;
   const candidates = models.map((m) => ({ name: m.name, firstArrival: modelFirstArrival(m) }));
   const { fits, best } = compareModels(picks, candidates);
@@ -35,7 +39,7 @@ export function fieldCheckSummary(
           pickError: Math.max(pickError, 0.0002),
         }).map(
           (w) =>
-            `${candidates[bestIndex].name}, shot at ${Number(w.sourcePosition.toFixed(2))} m (${w.side}): ${w.message}`,
+            `${candidates[bestIndex].name}, shot at ${u.lenU(w.sourcePosition)} (${w.side}): ${u.text(w.message)}`,
         );
   return {
     picks: picks.length,
@@ -65,7 +69,12 @@ export function completeReportInput(source: ReportSource): PlanReportInput {
     ...rest,
     analysis,
     fieldCheck: picks
-      ? fieldCheckSummary(picks, source.document.models, source.document.criteria.pickError)
+      ? fieldCheckSummary(
+          picks,
+          source.document.models,
+          source.document.criteria.pickError,
+          source.units,
+        )
       : null,
   };
 }

@@ -8,6 +8,7 @@
 import { scaleLinear } from "d3";
 import type PDFDocument from "pdfkit";
 import { firstArrivalRayPath, sampleCurves, type GroundModel, type Spread } from "@engine";
+import { fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import { pdfText, type ReportFonts } from "./fonts";
 import { ink } from "./layout";
 
@@ -217,6 +218,22 @@ export function sectionFigure(model: Pick<GroundModel, "layers">, spread: Spread
 
 const fmtTick = (v: number) => String(Number(v.toFixed(6)));
 
+/**
+ * About `count` ticks of a length scale (SI, m) at round values in the reader's unit, as
+ * [position m, label]: a feet reader gets 0, 20, 40 ft, not the feet of 0, 5, 10 m.
+ */
+export function lengthTicks(
+  scale: ReturnType<typeof scaleLinear<number, number>>,
+  count: number,
+  units: UnitSystem,
+): [number, string][] {
+  const shown = scale.domain().map((v) => toDisplay("length", v, units));
+  return scaleLinear()
+    .domain(shown)
+    .ticks(count)
+    .map((t) => [fromDisplay("length", t, units), fmtTick(t)]);
+}
+
 function axes(
   doc: Doc,
   fonts: ReportFonts,
@@ -225,16 +242,23 @@ function axes(
   y: ReturnType<typeof scaleLinear<number, number>>,
   labels: { x: string; y: string },
   yFormat: (v: number) => string,
+  units: UnitSystem = "metric",
+  yIsLength = false,
 ): void {
+  // Position ticks (and depth ticks) at round values in the reader's unit.
+  const xTicks = lengthTicks(x, 8, units);
+  const yTicks: [number, string][] = yIsLength
+    ? lengthTicks(y, 5, units)
+    : y.ticks(5).map((t) => [t, yFormat(t)]);
   doc.save();
   doc.lineWidth(0.4).strokeColor(ink.rule);
-  for (const t of y.ticks(5)) {
+  for (const [t] of yTicks) {
     doc
       .moveTo(box.x, y(t))
       .lineTo(box.x + box.width, y(t))
       .stroke();
   }
-  for (const t of x.ticks(8)) {
+  for (const [t] of xTicks) {
     doc
       .moveTo(x(t), box.y)
       .lineTo(x(t), box.y + box.height)
@@ -243,11 +267,11 @@ function axes(
   doc.lineWidth(0.8).strokeColor(ink.soft).rect(box.x, box.y, box.width, box.height).stroke();
   doc.restore();
   doc.font(fonts.regular).fontSize(7).fillColor(ink.soft);
-  for (const t of y.ticks(5)) {
-    doc.text(yFormat(t), box.x - 34, y(t) - 3.5, { width: 30, align: "right", lineBreak: false });
+  for (const [t, label] of yTicks) {
+    doc.text(label, box.x - 34, y(t) - 3.5, { width: 30, align: "right", lineBreak: false });
   }
-  for (const t of x.ticks(8)) {
-    doc.text(fmtTick(t), x(t) - 20, box.y + box.height + 3, {
+  for (const [t, label] of xTicks) {
+    doc.text(label, x(t) - 20, box.y + box.height + 3, {
       width: 40,
       align: "center",
       lineBreak: false,
@@ -270,7 +294,13 @@ function axes(
 }
 
 /** Draws the Arrivals chart into `box` (axes inside a left and bottom margin). */
-export function drawArrivals(doc: Doc, fonts: ReportFonts, box: Box, figure: ArrivalsFigure): void {
+export function drawArrivals(
+  doc: Doc,
+  fonts: ReportFonts,
+  box: Box,
+  figure: ArrivalsFigure,
+  units: UnitSystem = "metric",
+): void {
   const plot = { x: box.x + 46, y: box.y + 18, width: box.width - 52, height: box.height - 52 };
   const x = scaleLinear()
     .domain(figure.extent)
@@ -285,8 +315,9 @@ export function drawArrivals(doc: Doc, fonts: ReportFonts, box: Box, figure: Arr
     plot,
     x,
     y,
-    { x: "position along the line (m)", y: "first-arrival time (ms)" },
+    { x: `position along the line (${unitLabel("length", units)})`, y: "first-arrival time (ms)" },
     (v) => fmtTick(v * 1000),
+    units,
   );
   doc.save();
   doc.rect(plot.x, plot.y, plot.width, plot.height).clip();
@@ -342,7 +373,13 @@ export function drawArrivals(doc: Doc, fonts: ReportFonts, box: Box, figure: Arr
 const LAYER_FILLS = ["#f7f1e4", "#efe4cc", "#e5d5b3", "#d9c79e", "#cdb98b", "#c1ab7a"];
 
 /** Draws the Section into `box`; returns the vertical exaggeration used. */
-export function drawSection(doc: Doc, fonts: ReportFonts, box: Box, figure: SectionFigure): number {
+export function drawSection(
+  doc: Doc,
+  fonts: ReportFonts,
+  box: Box,
+  figure: SectionFigure,
+  units: UnitSystem = "metric",
+): number {
   const plot = { x: box.x + 46, y: box.y + 18, width: box.width - 52, height: box.height - 52 };
   const x = scaleLinear()
     .domain(figure.extent)
@@ -375,11 +412,24 @@ export function drawSection(doc: Doc, fonts: ReportFonts, box: Box, figure: Sect
     doc.undash();
   }
   doc.restore();
-  axes(doc, fonts, plot, x, y, { x: "position along the line (m)", y: "depth (m)" }, fmtTick);
+  const len = unitLabel("length", units);
+  axes(
+    doc,
+    fonts,
+    plot,
+    x,
+    y,
+    { x: `position along the line (${len})`, y: `depth (${len})` },
+    fmtTick,
+    units,
+    true,
+  );
   doc.font(fonts.regular).fontSize(7.5);
   for (const layer of figure.layers) {
     const [p, d] = layer.labelAt;
-    const text = pdfText(`${layer.name} · ${Math.round(layer.velocity)} m/s`);
+    const text = pdfText(
+      `${layer.name} · ${Math.round(toDisplay("velocity", layer.velocity, units))} ${unitLabel("velocity", units)}`,
+    );
     const tw = doc.widthOfString(text);
     doc.rect(x(p) - tw / 2 - 3, y(d) - 5, tw + 6, 12).fill("#fbf8f1");
     doc.fillColor(ink.deep).text(text, x(p) - tw / 2, y(d) - 3, { lineBreak: false });

@@ -5,7 +5,8 @@
  * assigned as the best-fitting candidate suggests, plus-minus method, the plan's pick error,
  * elevations from the plan's section surface or flat); `drawInterpretation` draws it with the
  * report writer; `interpretationCsv` writes one row per refractor and geophone.
- * Units: m, m/s, s (the PDF prints ms for times).
+ * Units: m, m/s, s; the PDF prints lengths and velocities in the reader's units (`ReportUnits`)
+ * and times in ms; the CSV stays SI.
  */
 import Papa from "papaparse";
 import {
@@ -15,7 +16,7 @@ import {
   type ObservedPick,
   type PlanForInterpretation,
 } from "../../workers/field/index";
-import { ink, type ReportWriter } from "./layout";
+import { ink, reportUnits, type ReportUnits, type ReportWriter } from "./layout";
 
 /** What the report and the CSV show of the interpretation. */
 export type ReportInterpretation =
@@ -100,54 +101,58 @@ const num = (v: number | null, digits: number) =>
     ? "–"
     : (Object.is(Number(v.toFixed(digits)), -0) ? 0 : v).toFixed(digits);
 
-/** Draws the interpreted section: method, per-refractor table, reciprocal checks, misfits. */
+/**
+ * Draws the interpreted section: method, per-refractor table, reciprocal checks, misfits;
+ * lengths and velocities in `u` (metric by default).
+ */
 export function drawInterpretation(
-  w: ReportWriter,
+  w: Pick<ReportWriter, "subheading" | "paragraph" | "table" | "callout">,
   data: ReportInterpretation | null | undefined,
+  u: ReportUnits = reportUnits(),
 ): void {
   if (!data) return;
   w.subheading("Interpreted section under the line");
   if (!data.ok) {
-    w.paragraph(`No interpretation: ${data.reason}`, { color: ink.soft });
+    w.paragraph(`No interpretation: ${u.text(data.reason)}`, { color: ink.soft });
     return;
   }
   w.paragraph(
-    `${LINE_METHODS[data.method]}, picks assigned to refractors ${data.suggestedFrom ? `as “${data.suggestedFrom}” (the best-fitting candidate) suggests` : "by the user"}; top-layer velocity ${num(data.topVelocity, 0)} m/s; elevations ${data.elevationSource === "csv" ? "from the station CSV" : data.elevationSource === "plan" ? "from the plan's section surface" : "taken as flat at 0 m"}, datum ${num(data.datum, 2)} m. Depths are below the ground, ± one standard error from the pick error.`,
+    `${LINE_METHODS[data.method]}, picks assigned to refractors ${data.suggestedFrom ? `as “${data.suggestedFrom}” (the best-fitting candidate) suggests` : "by the user"}; top-layer velocity ${u.velU(data.topVelocity)}; elevations ${data.elevationSource === "csv" ? "from the station CSV" : data.elevationSource === "plan" ? "from the plan's section surface" : `taken as flat at 0 ${u.length}`}, datum ${u.lenU(data.datum)}. Depths are below the ground, ± one standard error from the pick error.`,
   );
   for (const ref of data.refractors) {
     w.paragraph(
-      `Top of layer ${ref.layer}, from the shots at ${num(ref.shots[0], 2)} and ${num(ref.shots[1], 2)} m: mean velocity ${num(ref.meanVelocity, 0)} m/s.`,
+      `Top of layer ${ref.layer}, from the shots at ${u.len(ref.shots[0])} and ${u.lenU(ref.shots[1])}: mean velocity ${u.velU(ref.meanVelocity)}.`,
     );
     w.table(
       [
-        { header: "Geophone (m)", width: 80, align: "right" },
-        { header: "Depth (m)", width: 80, align: "right" },
-        { header: "± (m)", width: 60, align: "right" },
-        { header: "Elevation (m)", width: 90, align: "right" },
-        { header: "Velocity (m/s)", width: 90, align: "right" },
+        { header: `Geophone (${u.length})`, width: 80, align: "right" },
+        { header: `Depth (${u.length})`, width: 80, align: "right" },
+        { header: `± (${u.length})`, width: 60, align: "right" },
+        { header: `Elevation (${u.length})`, width: 90, align: "right" },
+        { header: `Velocity (${u.velocity})`, width: 90, align: "right" },
         { header: "", width: 80 },
       ],
       ref.rows.map((r) => [
-        num(r.position, 2),
-        num(r.depth, 2),
-        num(r.sigma, 2),
-        num(r.elevation, 2),
-        num(r.velocity, 0),
+        u.len(r.position),
+        u.len(r.depth),
+        u.len(r.sigma),
+        u.len(r.elevation),
+        u.vel(r.velocity),
         r.phantom ? "phantomed" : "",
       ]),
     );
-    for (const note of ref.notes) w.callout(note, "plain");
+    for (const note of ref.notes) w.callout(u.text(note), "plain");
   }
   if (data.reciprocal.length) {
     w.table(
       [
-        { header: "Reciprocal pair (m)", width: 140 },
+        { header: `Reciprocal pair (${u.length})`, width: 140 },
         { header: "Difference (ms)", width: 100, align: "right" },
         { header: "Allowed (ms)", width: 90, align: "right" },
         { header: "", width: 120 },
       ],
       data.reciprocal.map((c) => [
-        `${num(c.shots[0], 2)} and ${num(c.shots[1], 2)}`,
+        `${u.len(c.shots[0])} and ${u.len(c.shots[1])}`,
         num(c.difference * 1000, 2),
         num(c.tolerance * 1000, 1),
         c.agrees ? "agree" : { text: "disagree: check picks", bold: true },
@@ -159,7 +164,7 @@ export function drawInterpretation(
       [
         { header: "Candidate model", width: 220 },
         ...data.refractors.map((r) => ({
-          header: `Layer ${r.layer} RMS depth misfit (m)`,
+          header: `Layer ${r.layer} RMS depth misfit (${u.length})`,
           width: 130,
           align: "right" as const,
         })),
@@ -167,12 +172,12 @@ export function drawInterpretation(
       data.misfits.map((m) => [
         m.name,
         ...data.refractors.map((r) =>
-          num(m.layers.find((l) => l.layer === r.layer)?.rms ?? null, 2),
+          u.len(m.layers.find((l) => l.layer === r.layer)?.rms ?? null),
         ),
       ]),
     );
   }
-  for (const note of data.notes) w.callout(note, "caution");
+  for (const note of data.notes) w.callout(u.text(note), "caution");
 }
 
 /**

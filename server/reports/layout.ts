@@ -3,6 +3,7 @@
  * key–value lists and tables that break across pages, with Spreadsight's colours.
  */
 import type PDFDocument from "pdfkit";
+import { localiseMessage, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import { pdfText, type ReportFonts } from "./fonts";
 
 type Doc = InstanceType<typeof PDFDocument>;
@@ -23,6 +24,63 @@ export const ink = {
   moss: "#4f7a3a",
   mossSoft: "#dce9cf",
 } as const;
+
+/**
+ * How the report writes lengths and velocities for its reader (stored values are SI): the
+ * unit names for column heads and the numbers converted. Times stay in ms in both systems.
+ */
+export interface ReportUnits {
+  system: UnitSystem;
+  /** "m" or "ft". */
+  length: string;
+  /** "m/s" or "ft/s". */
+  velocity: string;
+  /** A length (m) as a number in the reader's unit, trailing zeros trimmed; "–" when unknown. */
+  len(v: number | null | undefined, digits?: number): string;
+  /** A length with its unit: "3 m", "9.84 ft". */
+  lenU(v: number | null | undefined, digits?: number): string;
+  /** A velocity (m/s) as a whole number in the reader's unit; "–" when unknown. */
+  vel(v: number | null | undefined): string;
+  /** A velocity with its unit: "1500 m/s", "4921 ft/s". */
+  velU(v: number | null | undefined): string;
+  /** A message of the engine (SI figures) with the reader's figures beside them. */
+  text(message: string): string;
+}
+
+const trimmed = (v: number | null | undefined, digits: number): string => {
+  if (v === null || v === undefined || !Number.isFinite(v)) return "–";
+  const n = Number(v.toFixed(digits));
+  return String(n === 0 ? 0 : n);
+};
+
+/**
+ * The report's units for a reader: lengths to 0.01 m or 0.01 ft (a pegging-out precision,
+ * common practice), velocities whole. Defaults to metric.
+ */
+export function reportUnits(system: UnitSystem = "metric"): ReportUnits {
+  const length = unitLabel("length", system);
+  const velocity = unitLabel("velocity", system);
+  const len = (v: number | null | undefined, digits = 2) =>
+    trimmed(v === null || v === undefined ? v : toDisplay("length", v, system), digits);
+  const vel = (v: number | null | undefined) =>
+    trimmed(v === null || v === undefined ? v : toDisplay("velocity", v, system), 0);
+  return {
+    system,
+    length,
+    velocity,
+    len,
+    lenU: (v, digits) => {
+      const text = len(v, digits);
+      return text === "–" ? text : `${text} ${length}`;
+    },
+    vel,
+    velU: (v) => {
+      const text = vel(v);
+      return text === "–" ? text : `${text} ${velocity}`;
+    },
+    text: (message) => (system === "metric" ? message : localiseMessage(message, system)),
+  };
+}
 
 export interface Column {
   header: string;

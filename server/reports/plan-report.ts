@@ -8,7 +8,7 @@ import PDFDocument from "pdfkit";
 import type { ModelAnalysis, Plan } from "@engine";
 import { arrivalsFigure, drawArrivals, drawSection, sectionFigure } from "./charts";
 import { pdfText, reportFonts } from "./fonts";
-import { ink, ReportWriter, type Cell } from "./layout";
+import { ink, reportUnits, ReportWriter, type Cell, type ReportUnits } from "./layout";
 import type { PlanReportInput } from "./types";
 import { drawInterpretation } from "./field-interpretation";
 
@@ -81,6 +81,24 @@ function rememberParsedFaces(doc: PDFKit.PDFDocument, names: string[]): void {
   }
 }
 
+/**
+ * The report's sections that are words and tables only (no figure), each a function of the
+ * writer, the input and the reader's units: exported so tests can read their text without a
+ * PDF reader.
+ */
+export const textSections = {
+  sitePlan: (w: ReportWriter, input: PlanReportInput, u: ReportUnits) => sitePlan(w, input, u),
+  groundModels: (w: ReportWriter, input: PlanReportInput, u: ReportUnits) =>
+    groundModels(w, input.document, u),
+  spread: (w: ReportWriter, input: PlanReportInput, u: ReportUnits) =>
+    spreadSection(w, input.document, u),
+  resolvability: (w: ReportWriter, input: PlanReportInput, u: ReportUnits) =>
+    resolvability(w, input, u),
+  recommendation: (w: ReportWriter, input: PlanReportInput, u: ReportUnits) =>
+    recommendation(w, input, u),
+  fieldCheck: (w: ReportWriter, input: PlanReportInput, u: ReportUnits) => fieldCheck(w, input, u),
+};
+
 /** Renders the report; resolves with the PDF bytes. `compress: false` keeps streams readable. */
 export function renderPlanReport(
   input: PlanReportInput,
@@ -118,14 +136,15 @@ export function renderPlanReport(
   });
 
   const w = new ReportWriter(doc, fonts);
+  const u = reportUnits(input.units);
   titleBlock(w, input);
-  sitePlan(w, input);
-  groundModels(w, input.document);
-  spreadSection(w, input.document);
-  figures(w, input);
-  resolvability(w, input);
-  recommendation(w, input);
-  fieldCheck(w, input);
+  sitePlan(w, input, u);
+  groundModels(w, input.document, u);
+  spreadSection(w, input.document, u);
+  figures(w, input, u);
+  resolvability(w, input, u);
+  recommendation(w, input, u);
+  fieldCheck(w, input, u);
   reviewHistory(w, input);
   cautions(w);
   disclaimer(w);
@@ -170,7 +189,7 @@ function titleBlock(w: ReportWriter, input: PlanReportInput): void {
   }
 }
 
-function sitePlan(w: ReportWriter, input: PlanReportInput): void {
+function sitePlan(w: ReportWriter, input: PlanReportInput, u: ReportUnits): void {
   w.heading(REPORT_SECTIONS[0]);
   const d = input.document;
   w.facts([
@@ -184,15 +203,19 @@ function sitePlan(w: ReportWriter, input: PlanReportInput): void {
     ["Report made", `${when(input.generatedAt)} by ${input.generatedBy}`],
     [
       "Acceptance criteria",
-      `at least ${d.criteria.minGeophones} geophones per segment; pick error ${ms(d.criteria.pickError, 2)}; depth tolerance ${fmt(d.criteria.depthTolerance, 2)} m`,
+      `at least ${d.criteria.minGeophones} geophones per segment; pick error ${ms(d.criteria.pickError, 2)}; depth tolerance ${u.lenU(d.criteria.depthTolerance)}`,
+    ],
+    [
+      "Units",
+      u.system === "imperial" ? "feet (ft, ft/s); times in ms" : "metres (m, m/s); times in ms",
     ],
   ]);
 }
 
-function groundModels(w: ReportWriter, d: Plan): void {
+function groundModels(w: ReportWriter, d: Plan, u: ReportUnits): void {
   w.heading(REPORT_SECTIONS[1]);
   w.paragraph(
-    `${d.models.length} candidate ground model${d.models.length === 1 ? "" : "s"}. Thickness is vertical at position 0 m; dip is that of the layer's base, positive deepening towards increasing position.`,
+    `${d.models.length} candidate ground model${d.models.length === 1 ? "" : "s"}. Thickness is vertical at position 0 ${u.length}; dip is that of the layer's base, positive deepening towards increasing position.`,
     { color: ink.soft },
   );
   d.models.forEach((model, m) => {
@@ -203,9 +226,9 @@ function groundModels(w: ReportWriter, d: Plan): void {
         { header: "Layer", width: 40 },
         { header: "Name", width: 150 },
         { header: "Material", width: 90 },
-        { header: "Velocity (m/s)", width: 80, align: "right" },
-        { header: "Thickness (m)", width: 80, align: "right" },
-        { header: "Top at 0 m (m)", width: 80, align: "right" },
+        { header: `Velocity (${u.velocity})`, width: 80, align: "right" },
+        { header: `Thickness (${u.length})`, width: 80, align: "right" },
+        { header: `Top at 0 ${u.length} (${u.length})`, width: 80, align: "right" },
         { header: "Dip (°)", width: 55, align: "right" },
       ],
       model.layers.map((layer, i) => {
@@ -213,9 +236,9 @@ function groundModels(w: ReportWriter, d: Plan): void {
           String(i + 1),
           layer.name ?? "",
           layer.material ?? "",
-          fmt(layer.velocity, 0),
-          i === model.layers.length - 1 ? "half-space" : fmt(layer.thickness, 2),
-          fmt(depth, 2),
+          u.vel(layer.velocity),
+          i === model.layers.length - 1 ? "half-space" : u.len(layer.thickness),
+          u.len(depth),
           i === model.layers.length - 1 ? "–" : fmt(layer.dip ?? 0, 1),
         ];
         depth += layer.thickness ?? 0;
@@ -225,42 +248,42 @@ function groundModels(w: ReportWriter, d: Plan): void {
   });
 }
 
-function spreadSection(w: ReportWriter, d: Plan): void {
+function spreadSection(w: ReportWriter, d: Plan, u: ReportUnits): void {
   w.heading(REPORT_SECTIONS[2]);
   const s = d.spread;
   const last = s.firstGeophone + (s.channels - 1) * s.spacing;
   w.facts([
-    ["Geophones", `${s.channels} at ${fmt(s.spacing, 2)} m spacing`],
-    ["First geophone", `${fmt(s.firstGeophone, 2)} m`],
-    ["Last geophone", `${fmt(last, 2)} m`],
-    ["Spread length", `${fmt(last - s.firstGeophone, 2)} m`],
+    ["Geophones", `${s.channels} at ${u.lenU(s.spacing)} spacing`],
+    ["First geophone", u.lenU(s.firstGeophone)],
+    ["Last geophone", u.lenU(last)],
+    ["Spread length", u.lenU(last - s.firstGeophone)],
     ["Shots", String(s.shots.length)],
   ]);
   w.table(
     [
       { header: "Shot", width: 60 },
-      { header: "Position (m)", width: 90, align: "right" },
+      { header: `Position (${u.length})`, width: 90, align: "right" },
       { header: "Where", width: 250 },
     ],
     s.shots.map((shot, i) => {
       const where =
         shot.position < s.firstGeophone
-          ? `off-end, ${fmt(s.firstGeophone - shot.position, 2)} m before the first geophone`
+          ? `off-end, ${u.lenU(s.firstGeophone - shot.position)} before the first geophone`
           : shot.position > last
-            ? `off-end, ${fmt(shot.position - last, 2)} m beyond the last geophone`
+            ? `off-end, ${u.lenU(shot.position - last)} beyond the last geophone`
             : "within the spread";
-      return [shot.label || `S${i + 1}`, fmt(shot.position, 2), where];
+      return [shot.label || `S${i + 1}`, u.len(shot.position), where];
     }),
   );
   w.paragraph(
-    "The station layout for pegging out is available as CSV (stations.csv) beside this report.",
+    `The station layout for pegging out is available as CSV (stations.csv) beside this report; its columns are in SI units (position_m and so on) whatever the report's units.`,
     {
       color: ink.soft,
     },
   );
 }
 
-function figures(w: ReportWriter, input: PlanReportInput): void {
+function figures(w: ReportWriter, input: PlanReportInput, u: ReportUnits): void {
   const d = input.document;
   w.heading(REPORT_SECTIONS[3], 290);
   w.paragraph(
@@ -272,7 +295,7 @@ function figures(w: ReportWriter, input: PlanReportInput): void {
     w.subheading(`${m + 1}. ${model.name}`);
     const box = { x: w.left, y: w.y, width: w.width, height: 220 };
     try {
-      drawArrivals(w.doc, w.fonts, box, arrivalsFigure(model, d.spread));
+      drawArrivals(w.doc, w.fonts, box, arrivalsFigure(model, d.spread), u.system);
       w.doc.y = box.y + box.height + 8;
     } catch (error) {
       w.callout(
@@ -292,7 +315,7 @@ function figures(w: ReportWriter, input: PlanReportInput): void {
     w.subheading(`${m + 1}. ${model.name}`);
     const box = { x: w.left, y: w.y + 4, width: w.width, height: 190 };
     try {
-      const ve = drawSection(w.doc, w.fonts, box, sectionFigure(model, d.spread));
+      const ve = drawSection(w.doc, w.fonts, box, sectionFigure(model, d.spread), u.system);
       w.doc.y = box.y + box.height + 4;
       if (Math.abs(ve - 1) > 0.1)
         w.paragraph(`Vertical exaggeration about ${fmt(ve, 1)} : 1.`, { color: ink.soft, size: 8 });
@@ -305,12 +328,12 @@ function figures(w: ReportWriter, input: PlanReportInput): void {
   });
 }
 
-function modelResolvability(w: ReportWriter, model: ModelAnalysis): void {
+function modelResolvability(w: ReportWriter, model: ModelAnalysis, u: ReportUnits): void {
   w.subheading(`${model.model + 1}. ${model.name} — worst verdict: ${model.worstStatus}`, 90);
   const rows: (string | Cell)[][] = [
     [
       "1 (direct wave)",
-      fmt(model.direct.velocity, 0),
+      u.vel(model.direct.velocity),
       "0",
       statusCell(model.direct.status),
       String(model.direct.geophones),
@@ -322,33 +345,33 @@ function modelResolvability(w: ReportWriter, model: ModelAnalysis): void {
     const interp = model.interpretation?.refractors.find((x) => x.layer === r.layer);
     rows.push([
       `${r.layer}${r.name ? ` (${r.name})` : ""}`,
-      fmt(r.velocity, 0),
-      fmt(r.depth, 2),
+      u.vel(r.velocity),
+      u.len(r.depth),
       statusCell(r.status),
       String(r.geophones),
-      r.minimumThickness === null ? "–" : fmt(r.minimumThickness, 2),
+      r.minimumThickness === null ? "–" : u.len(r.minimumThickness),
       interp
         ? interp.interpretedDepth === null
           ? "cannot be computed"
-          : `${fmt(interp.interpretedDepth, 2)} (${interp.error !== null && interp.error >= 0 ? "+" : ""}${fmt(interp.error, 2)})`
+          : `${u.len(interp.interpretedDepth)} (${interp.error !== null && interp.error >= 0 ? "+" : ""}${u.len(interp.error)})`
         : "not interpreted",
     ]);
   }
   w.table(
     [
       { header: "Layer (refractor at its top)", width: 116 },
-      { header: "Velocity (m/s)", width: 66, align: "right" },
-      { header: "Depth (m)", width: 52, align: "right" },
+      { header: `Velocity (${u.velocity})`, width: 66, align: "right" },
+      { header: `Depth (${u.length})`, width: 52, align: "right" },
       { header: "Verdict", width: 70 },
       { header: "Geophones on segment", width: 62, align: "right" },
-      { header: "Min. thickness to resolve (m)", width: 70, align: "right" },
-      { header: "Interpreted depth (error), m", width: 90, align: "right" },
+      { header: `Min. thickness to resolve (${u.length})`, width: 70, align: "right" },
+      { header: `Interpreted depth (error), ${u.length}`, width: 90, align: "right" },
     ],
     rows,
   );
 }
 
-function resolvability(w: ReportWriter, input: PlanReportInput): void {
+function resolvability(w: ReportWriter, input: PlanReportInput, u: ReportUnits): void {
   w.heading(REPORT_SECTIONS[5]);
   if (!input.analysis.ok) {
     w.callout(`The plan could not be analysed: ${input.analysis.reason}`, "caution");
@@ -360,38 +383,38 @@ function resolvability(w: ReportWriter, input: PlanReportInput): void {
     { color: ink.soft },
   );
   w.facts([["Worst verdict over all models", a.worstStatus]]);
-  for (const model of a.models) modelResolvability(w, model);
+  for (const model of a.models) modelResolvability(w, model, u);
 }
 
-function recommendation(w: ReportWriter, input: PlanReportInput): void {
+function recommendation(w: ReportWriter, input: PlanReportInput, u: ReportUnits): void {
   w.heading(REPORT_SECTIONS[6]);
   if (!input.analysis.ok) {
     w.callout("No recommendation: the plan could not be analysed.", "caution");
     return;
   }
   const a = input.analysis.value;
-  w.callout(a.recommendation.text, "plain");
+  w.callout(u.text(a.recommendation.text), "plain");
   for (const model of a.models) {
     w.subheading(`${model.model + 1}. ${model.name}`);
-    w.paragraph(model.recommendation.text);
+    w.paragraph(u.text(model.recommendation.text));
     const r = model.recommendation;
     w.facts([
       [
         "Largest spacing",
         r.maxSpacing === null
           ? "any"
-          : `${fmt(r.maxSpacing, 2)} m (${r.spacingOk ? "the plan's spacing meets it" : "the plan's spacing is wider"})`,
+          : `${u.lenU(r.maxSpacing)} (${r.spacingOk ? "the plan's spacing meets it" : "the plan's spacing is wider"})`,
       ],
       [
         "Offset each branch must reach",
-        `${fmt(r.spreadLength, 1)} m (${r.lengthOk ? "reached" : "not reached"})`,
+        `${u.lenU(r.spreadLength, 1)} (${r.lengthOk ? "reached" : "not reached"})`,
       ],
     ]);
-    for (const hidden of r.hidden) w.callout(hidden.statement, "hidden");
+    for (const hidden of r.hidden) w.callout(u.text(hidden.statement), "hidden");
   }
 }
 
-function fieldCheck(w: ReportWriter, input: PlanReportInput): void {
+function fieldCheck(w: ReportWriter, input: PlanReportInput, u: ReportUnits): void {
   w.heading(REPORT_SECTIONS[7]);
   const f = input.fieldCheck;
   if (!f || f.picks === 0) {
@@ -399,7 +422,7 @@ function fieldCheck(w: ReportWriter, input: PlanReportInput): void {
     return;
   }
   w.paragraph(
-    `${f.picks} first-break picks from ${f.shots.length} shot${f.shots.length === 1 ? "" : "s"} (at ${f.shots.map((s) => `${fmt(s, 2)} m`).join(", ")}) compared with the modelled first arrivals of each candidate ground model.`,
+    `${f.picks} first-break picks from ${f.shots.length} shot${f.shots.length === 1 ? "" : "s"} (at ${f.shots.map((s) => u.lenU(s)).join(", ")}) compared with the modelled first arrivals of each candidate ground model.`,
   );
   w.table(
     [
@@ -416,7 +439,7 @@ function fieldCheck(w: ReportWriter, input: PlanReportInput): void {
     ]),
   );
   for (const warning of f.warnings) w.callout(warning, "caution");
-  drawInterpretation(w, f.interpretation);
+  drawInterpretation(w, f.interpretation, u);
 }
 
 function reviewHistory(w: ReportWriter, input: PlanReportInput): void {

@@ -4,6 +4,7 @@
  * the plan document with the engine, so every number in the report is the engine's.
  */
 import type { Plan, PlanAnalysis } from "@engine";
+import type { UnitSystem } from "@/lib/units";
 import type { ReportInterpretation } from "./field-interpretation";
 
 export interface ReportRevision {
@@ -63,4 +64,9 @@ export interface PlanReportInput {
   review: ReportReviewEvent[];
   approval: ReportApproval | null;
   fieldCheck: ReportFieldCheck | null;
+  /**
+   * The reader's units for lengths and velocities (the requesting user's preference, or the
+   * `units` query parameter); metric when absent. Stored values stay SI.
+   */
+  units?: UnitSystem;
 }

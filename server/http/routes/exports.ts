@@ -15,6 +15,11 @@ import { requireCreator } from "../../domain/plans";
 
 const siteParamSchema = z.strictObject({ siteId: z.uuid({ error: "siteId must be a UUID" }) });
 
+/** `?units=metric|imperial` on the report; without it the user's preferred units. */
+const reportQuerySchema = z.strictObject({
+  units: z.enum(["metric", "imperial"], { error: "units must be metric or imperial" }).optional(),
+});
+
 export function exportsRouter(ctx: RouteContext): Router {
   const router = Router();
   const { dataSource } = ctx.services;
@@ -22,8 +27,8 @@ export function exportsRouter(ctx: RouteContext): Router {
   router.get("/plans/:id/report.pdf", async (req, res) => {
     const actor = requireActor(res);
     const { id } = parseParams(idParamSchema, req);
-    parseQuery(noQuerySchema, req);
-    const { pdf, fileName } = await planReportPdf(dataSource, actor, id);
+    const { units } = parseQuery(reportQuerySchema, req);
+    const { pdf, fileName } = await planReportPdf(dataSource, actor, id, { units });
     res.setHeader("Content-Type", "application/pdf");
     res.attachment(fileName);
     res.send(pdf);
