@@ -11,7 +11,14 @@ import type { FirstBreakPick } from "@/contracts/field";
 import { Button } from "@/components/button";
 import { Notice } from "@/components/feedback";
 import { errorMessage } from "@/lib/api-client";
-import { formatQuantity, fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
+import {
+  formatQuantity,
+  fromDisplay,
+  inputDigits,
+  toDisplay,
+  unitLabel,
+  type UnitSystem,
+} from "@/lib/units";
 import type {
   ElevationPoint,
   LayerAssignment,
@@ -20,10 +27,11 @@ import type {
 } from "../../../../workers/field/index";
 import type { Candidate } from "../lib/comparison";
 import { fieldWorker } from "../lib/field-worker";
-import { LINE_METHODS } from "../lib/format";
+import { LINE_METHODS, lengthDigits } from "../lib/format";
 import { InterpretedSection } from "./interpreted-section";
 
-const length = (v: number | null | undefined, units: UnitSystem, digits?: number) =>
+/** A length to 0.01 m or 0.1 ft (lengthDigits), as on the rest of the Field check. */
+const length = (v: number | null | undefined, units: UnitSystem, digits = lengthDigits(units)) =>
   formatQuantity("length", v, units, digits);
 
 /** The interpretation card of the Field check. */
@@ -181,13 +189,19 @@ export function InterpretationPanel({
             <tbody>
               {shown.map((a, i) => (
                 <tr key={`${a.shot}-${a.from}-${i}`}>
-                  <td className="pr-4 font-mono">{length(a.shot, units, 2)}</td>
+                  <td className="pr-4 font-mono">{length(a.shot, units)}</td>
                   {(["from", "to"] as const).map((key) => (
                     <td key={key} className="pr-4">
                       <input
                         className="field-input w-24 py-0.5 font-mono"
                         aria-label={`Segment ${i + 1} ${key}`}
-                        defaultValue={String(Number(toDisplay("length", a[key], units).toFixed(2)))}
+                        defaultValue={String(
+                          Number(
+                            toDisplay("length", a[key], units).toFixed(
+                              inputDigits("length", units),
+                            ),
+                          ),
+                        )}
                         onBlur={(e) => {
                           const v = Number(e.target.value.replace(",", "."));
                           if (Number.isFinite(v)) {
@@ -257,7 +271,7 @@ function InterpretationResult({
     <div className="flex flex-col gap-4">
       <p className="text-sm text-ink-soft">
         Top layer {formatQuantity("velocity", r.topVelocity, units, 0)} (direct wave); datum{" "}
-        {length(r.datum, units, 2)}; elevations{" "}
+        {length(r.datum, units)}; elevations{" "}
         {result.elevationSource === "csv"
           ? "from your CSV"
           : result.elevationSource === "plan"
@@ -275,10 +289,9 @@ function InterpretationResult({
           <li key={ref.layer}>
             Top of layer {ref.layer}: {formatQuantity("velocity", ref.meanVelocity, units, 0)} ±{" "}
             {formatQuantity("velocity", ref.meanVelocitySigma, units, 0)} over the whole stretch
-            between the shots at {length(ref.shots[0], units, 1)} and{" "}
-            {length(ref.shots[1], units, 1)}
+            between the shots at {length(ref.shots[0], units)} and {length(ref.shots[1], units)}
             {ref.xy
-              ? `; XY ${length(ref.xy.used, units, 1)} (two-layer estimate ${length(ref.xy.expected, units, 1)})`
+              ? `; XY ${length(ref.xy.used, units)} (two-layer estimate ${length(ref.xy.expected, units)})`
               : ""}
             . The table's velocities come from{" "}
             {ref.method === "grm" ? "the velocity analysis function" : "the minus times"} of five
@@ -330,17 +343,17 @@ function InterpretationResult({
             <tbody className="font-mono">
               {positions.map((x) => (
                 <tr key={x}>
-                  <td className="pr-3">{length(x, units, 1)}</td>
+                  <td className="pr-3">{length(x, units)}</td>
                   {r.refractors.map((ref) => {
                     const d = at(ref.layer, x);
                     return [
                       <td key={`${ref.layer}d`} className="pr-3">
                         {d
-                          ? `${length(d.depth, units, 2)} ± ${formatQuantity("length", d.sigma, units, 2)}${d.phantom ? " *" : ""}`
+                          ? `${length(d.depth, units)} ± ${formatQuantity("length", d.sigma, units, lengthDigits(units))}${d.phantom ? " *" : ""}`
                           : "—"}
                       </td>,
                       <td key={`${ref.layer}e`} className="pr-3">
-                        {d ? length(d.elevation, units, 2) : "—"}
+                        {d ? length(d.elevation, units) : "—"}
                       </td>,
                       <td key={`${ref.layer}v`} className="pr-3">
                         {formatQuantity("velocity", velocityAt(ref.layer, x), units, 0)}
@@ -381,7 +394,7 @@ function InterpretationResult({
                 <td className="pr-4">{m.name}</td>
                 {r.refractors.map((ref) => (
                   <td key={ref.layer} className="pr-4 font-mono">
-                    {length(m.layers.find((l) => l.layer === ref.layer)?.rms ?? null, units, 2)}
+                    {length(m.layers.find((l) => l.layer === ref.layer)?.rms ?? null, units)}
                   </td>
                 ))}
               </tr>
@@ -414,7 +427,7 @@ function InterpretationResult({
             r.reciprocal.map((c) => (
               <tr key={`${c.shots[0]}-${c.shots[1]}`}>
                 <td className="pr-4 font-mono">
-                  {length(c.shots[0], units, 1)} ↔ {length(c.shots[1], units, 1)}
+                  {length(c.shots[0], units)} ↔ {length(c.shots[1], units)}
                 </td>
                 <td className="pr-4 font-mono">{formatQuantity("time", c.forward, units, 2)}</td>
                 <td className="pr-4 font-mono">{formatQuantity("time", c.reverse, units, 2)}</td>
