@@ -13,7 +13,8 @@ export const auditQuerySchema = z.strictObject({
 export interface AuditEventSummary {
   id: string;
   /** Dotted verb: auth.sign_in, auth.password_reset, invitation.create, invitation.revoke,
-   * invitation.accept, member.role_change, member.remove, site.create, site.rename,
+   * invitation.accept, member.role_change, member.remove, team.channels_change (detail
+   * { from, to }), site.create, site.rename,
    * site.describe, site.archive, site.unarchive, and every plan action (plan.*, comment.*,
    * attachment.upload, attachment.delete, picks.save). */
   action: string;

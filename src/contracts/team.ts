@@ -17,6 +17,8 @@ export interface MemberSummary {
 export const TEAM_SEISMOGRAPH_CHANNELS_DEFAULT = 48;
 /** Fewest channels a seismograph setting may have (one geophone interval). */
 export const MIN_SEISMOGRAPH_CHANNELS = 2;
+/** Most channels a seismograph setting may have: the plan format's MAX_CHANNELS. */
+export const MAX_SEISMOGRAPH_CHANNELS = MAX_CHANNELS;
 
 export const seismographChannelsSchema = z
   .number({ error: "seismographChannels must be a whole number" })

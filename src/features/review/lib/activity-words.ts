@@ -25,6 +25,7 @@ const ACTIONS: Record<string, string> = {
   "invitation.accept": "joined the team",
   "member.role_change": "changed a member's role",
   "member.remove": "removed a member",
+  "team.channels_change": "set the team's seismograph channel count",
   "site.create": "created a site",
   "site.rename": "renamed a site",
   "site.describe": "edited a site's description",

@@ -15,6 +15,7 @@ import {
   useRemoveMember,
   useRevokeInvitation,
 } from "../api/team";
+import { TeamSettingsCard } from "./team-settings-card";
 
 const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium" });
 
@@ -181,6 +182,7 @@ export function TeamPage() {
           ) : null}
         </Card>
         <div className="flex flex-col gap-6">
+          {me ? <TeamSettingsCard role={me.role} /> : null}
           <InviteCard />
           <Card>
             <h2 className="mb-3 font-semibold text-ink">Open invitations</h2>

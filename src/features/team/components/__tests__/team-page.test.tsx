@@ -36,6 +36,7 @@ describe("TeamPage", () => {
         ],
       }),
       "GET /api/invitations": () => ({ status: 200, body: [] }),
+      "GET /api/team/settings": () => ({ status: 200, body: { seismographChannels: 48 } }),
     });
     renderWithApp(<TeamPage />, { me: admin });
     const row = (await screen.findByText("Ada Admin")).closest("tr")!;
@@ -43,12 +44,15 @@ describe("TeamPage", () => {
     expect(within(row).queryByRole("button", { name: /Remove/ })).toBeNull();
     expect(screen.getByRole("button", { name: "Remove Rhys Reviewer" })).toBeInTheDocument();
     expect(screen.getByLabelText("Role of Rhys Reviewer")).toHaveValue("reviewer");
+    // The team's recording equipment sits beside the members (issue 14).
+    expect(await screen.findByLabelText("Seismograph channels")).toHaveValue(48);
   });
 
   it("validates the invitation address inline and then sends the invitation", async () => {
     const calls = stubFetch({
       "GET /api/team/members": () => ({ status: 200, body: [] }),
       "GET /api/invitations": () => ({ status: 200, body: [] }),
+      "GET /api/team/settings": () => ({ status: 200, body: { seismographChannels: 48 } }),
       "POST /api/invitations": (body) => ({
         status: 201,
         body: {
@@ -89,6 +93,7 @@ describe("TeamPage", () => {
     const calls = stubFetch({
       "GET /api/team/members": () => ({ status: 200, body: [{ ...rhys, role }] }),
       "GET /api/invitations": () => ({ status: 200, body: [] }),
+      "GET /api/team/settings": () => ({ status: 200, body: { seismographChannels: 48 } }),
       [`PATCH /api/team/members/${rhys.userId}`]: (body) => {
         role = (body as { role: string }).role;
         return { status: 200, body: { ...rhys, role } };

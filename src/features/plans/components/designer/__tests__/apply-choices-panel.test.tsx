@@ -1,7 +1,18 @@
+import type { ReactElement } from "react";
 import { describe, expect, it, vi } from "vitest";
-import { render, screen } from "@testing-library/react";
+import { screen, waitFor } from "@testing-library/react";
 import userEvent from "@testing-library/user-event";
+import { renderWithApp, stubFetch, testMe } from "@/testing/render";
 import { ApplyChoicesPanel } from "../apply-choices-panel";
+
+/** The panel reads the team's seismograph channel count (48 here); an admin may change it. */
+function renderPanel(panel: ReactElement) {
+  stubFetch({
+    "GET /api/team/settings": () => ({ status: 200, body: { seismographChannels: 48 } }),
+    "PATCH /api/team/settings": (body) => ({ status: 200, body }),
+  });
+  return renderWithApp(panel, { me: testMe({ role: "admin" }) });
+}
 
 const spread = {
   spacing: 3,
@@ -15,9 +26,8 @@ const spread = {
 
 describe("ApplyChoicesPanel", () => {
   it("offers three ways with their consequences and applies the one chosen", async () => {
-    localStorage.clear();
     const onApply = vi.fn();
-    render(
+    renderPanel(
       <ApplyChoicesPanel
         spread={spread}
         recommendation={{ maxSpacing: 5, spreadLength: 100 }}
@@ -27,7 +37,7 @@ describe("ApplyChoicesPanel", () => {
       />,
     );
     // 100 m at 3 m = 34 intervals (33.3 rounded up) = 35 channels (by hand).
-    const keep = screen.getByRole("button", {
+    const keep = await screen.findByRole("button", {
       name: /^Keep spacing \(add channels\): 3\.00 m × 35/,
     });
     expect(keep).toHaveAccessibleDescription(
@@ -42,8 +52,7 @@ describe("ApplyChoicesPanel", () => {
   });
 
   it("flags more channels than the team's seismograph and takes a new channel count", async () => {
-    localStorage.clear();
-    render(
+    renderPanel(
       <ApplyChoicesPanel
         spread={spread}
         recommendation={{ maxSpacing: 5, spreadLength: 200 }}
@@ -53,10 +62,12 @@ describe("ApplyChoicesPanel", () => {
       />,
     );
     // 200 m at 3 m → 68 channels, more than 48 (common practice default).
-    expect(screen.getAllByText(/68 channels is more than the seismograph's 48/)[0]).toBeVisible();
+    expect(
+      (await screen.findAllByText(/68 channels is more than the seismograph's 48/))[0],
+    ).toBeVisible();
     const box = screen.getByLabelText("Seismograph channels (team setting, this browser)");
     await userEvent.clear(box);
     await userEvent.type(box, "96");
-    expect(screen.queryByText(/more than the seismograph/)).toBeNull();
+    await waitFor(() => expect(screen.queryByText(/more than the seismograph/)).toBeNull());
   });
 });
