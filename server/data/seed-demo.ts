@@ -60,7 +60,10 @@ export async function seedDemo(dataSource: DataSource): Promise<{ created: boole
     }
     const now = new Date();
     const teamId = randomUUID();
-    await manager.getRepository(Team).insert({ id: teamId, name: DEMO_TEAM_NAME, createdAt: now });
+    // The demo team records on a 48-channel seismograph (team setting; the demo plans use 48).
+    await manager
+      .getRepository(Team)
+      .insert({ id: teamId, name: DEMO_TEAM_NAME, createdAt: now, seismographChannels: 48 });
     const ids = new Map<Role, string>();
     for (const [i, account] of DEMO_ACCOUNTS.entries()) {
       const id = randomUUID();
