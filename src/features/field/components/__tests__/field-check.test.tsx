@@ -101,7 +101,12 @@ describe("FieldCheckPage", () => {
   it("compares the saved picks with the plan's model and the borehole log's, naming the best fit", async () => {
     stubField(plan());
     renderWithApp(<FieldCheckPage />, route);
-    const table = await screen.findByRole("table", { name: /how well each ground model fits/i });
+    // The first comparison loads the field core lazily (no Worker in jsdom): slow on a busy machine.
+    const table = await screen.findByRole(
+      "table",
+      { name: /how well each ground model fits/i },
+      { timeout: 5000 },
+    );
     const rows = within(table).getAllByRole("row");
     expect(rows).toHaveLength(3);
     expect(rows[1]).toHaveTextContent(document.models[0].name);
@@ -162,6 +167,23 @@ describe("FieldCheckPage", () => {
     });
     // Depth to the refractor: the plan's 6 m (two-layer intercept-time formula, Kearey et al. 2002 ch. 5).
     expect(within(layers).getAllByRole("row")[2]).toHaveTextContent("6 m");
+  });
+
+  it("shows a feet user positions, offsets, depths and velocities in ft and ft/s", async () => {
+    stubField(plan());
+    renderWithApp(<FieldCheckPage />, {
+      ...route,
+      me: testMe({ preferences: { units: "imperial" } }),
+    });
+    await userEvent.click(await screen.findByRole("button", { name: /Suggest from/ }));
+    const layers = await screen.findByRole("table", {
+      name: /Layers from the intercept-time method/,
+    });
+    // The plan's 6 m and 550 m/s: 19.7 ft and 1804 ft/s (÷ 0.3048, the international foot).
+    expect(within(layers).getAllByRole("row")[2]).toHaveTextContent("19.7 ft");
+    expect(within(layers).getAllByRole("row")[1]).toHaveTextContent("1804 ft/s");
+    expect(screen.getByLabelText("Segment 1 from offset (ft)")).toBeInTheDocument();
+    expect(screen.getByText("position along the line (ft)")).toBeInTheDocument();
   });
 });
 

@@ -79,7 +79,7 @@ export function ArrivalsChart({
         role="img"
         aria-labelledby={titleId}
         fontFamily={chartFont}
-        className="block max-w-full touch-none select-none"
+        className="block h-auto max-w-full touch-none select-none"
         onPointerMove={(e) => {
           const rect = e.currentTarget.getBoundingClientRect();
           const scale = rect.width > 0 ? chart.width / rect.width : 1;
@@ -189,7 +189,7 @@ export function ArrivalsChart({
         ) : null}
       </svg>
       <p
-        className="mt-1 min-h-5 font-mono text-xs text-ink-deep"
+        className="mt-1 min-h-5 font-mono text-xs text-ink-deep print:hidden"
         aria-live="polite"
         data-testid="arrivals-readout"
       >

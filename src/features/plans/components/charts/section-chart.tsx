@@ -30,7 +30,7 @@ export function SectionChart({ input, title }: { input: SectionInput; title: str
         role="img"
         aria-labelledby={titleId}
         fontFamily={chartFont}
-        className="block max-w-full"
+        className="block h-auto max-w-full"
       >
         <title id={titleId}>{title}</title>
         <defs>

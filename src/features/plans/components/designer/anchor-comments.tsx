@@ -116,7 +116,7 @@ function Chip({
         aria-controls={open ? `${id}-panel` : undefined}
         onClick={toggle}
         onKeyDown={onKeyDown}
-        className={`inline-flex ${compact ? "h-6 min-w-6" : "h-7 min-w-7"} shrink-0 cursor-pointer items-center justify-center gap-1 rounded-md border px-1.5 text-xs select-none ${
+        className={`inline-flex ${compact ? "h-6 min-w-6 max-sm:h-8 max-sm:min-w-8" : "h-7 min-w-7 max-sm:h-9 max-sm:min-w-9"} shrink-0 cursor-pointer items-center justify-center gap-1 rounded-md border px-1.5 text-xs select-none ${
           open
             ? "border-ink bg-ink text-card"
             : hot

@@ -1,4 +1,4 @@
-import { forwardRef, useId, type InputHTMLAttributes } from "react";
+import { forwardRef, useId, type InputHTMLAttributes, type ReactNode } from "react";
 
 /**
  * A compact input for a table cell: its accessible name comes from `label` (the column and
@@ -30,3 +30,15 @@ export const CellInput = forwardRef<
     </div>
   );
 });
+
+/** A column's heading repeated inside its cell on a phone, where the table head is hidden. */
+export function PhoneLabel({ children }: { children: ReactNode }) {
+  return (
+    <span
+      aria-hidden="true"
+      className="mb-0.5 block text-[0.65rem] font-semibold tracking-wide text-ink-soft uppercase sm:hidden"
+    >
+      {children}
+    </span>
+  );
+}

@@ -256,7 +256,7 @@ function Comparison({
         role="img"
         aria-label="First arrivals of the scenarios, overlaid"
         fontFamily={chartFont}
-        className="block max-w-full"
+        className="block h-auto max-w-full"
       >
         <HorizontalGrid
           ticks={overlay.yTicks}

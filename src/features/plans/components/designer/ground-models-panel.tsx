@@ -8,7 +8,7 @@ import { SectionModelButtons } from "../section/section-model-buttons";
 import { SectionEditor } from "../section/section-editor";
 import { useDesignerSlots } from "../../designer-slots";
 import { AnchorCommentsChip } from "./anchor-comments";
-import { CellInput } from "./cell-input";
+import { CellInput, PhoneLabel } from "./cell-input";
 import { MaterialPicker } from "./material-picker";
 
 /** Error message at a form path, whether zod put it on the field or on its array root. */
@@ -168,12 +168,14 @@ function ModelEditor({
           {...register(`${base}.name`)}
         />
       </div>
-      <div className="overflow-x-auto">
+      {/* On a phone (below sm) each layer is a card: name on top, the numbers under it with
+          their own labels, the buttons below; no box that scrolls sideways. */}
+      <div className="sm:overflow-x-auto">
         <table
-          className="w-full min-w-[30rem] table-fixed text-sm"
+          className="w-full table-fixed text-sm max-sm:block sm:min-w-[30rem]"
           aria-label={`Layers of ${modelName || `model ${index + 1}`}`}
         >
-          <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
+          <thead className="text-left text-xs tracking-wide text-ink-soft uppercase max-sm:hidden">
             <tr className="border-b border-rule">
               <th scope="col" className="w-6 py-1.5 pr-1 font-semibold">
                 #
@@ -201,16 +203,18 @@ function ModelEditor({
               </th>
             </tr>
           </thead>
-          <tbody>
+          <tbody className="max-sm:block">
             {layers.fields.map((field, i) => {
               const p = `${base}.layers.${i}` as const;
               const last = i === count - 1;
               const n = i + 1;
               return (
                 <Fragment key={field.id}>
-                  <tr className="align-top">
-                    <td className="py-1.5 pr-2 pt-2.5 font-mono text-xs text-ink-soft">{n}</td>
-                    <td className="py-1.5 pr-2">
+                  <tr className={`align-top ${PHONE_ROW}`}>
+                    <td className="py-1.5 pt-2.5 pr-2 font-mono text-xs text-ink-soft max-sm:p-0 max-sm:pt-1.5">
+                      {n}
+                    </td>
+                    <td className="py-1.5 pr-2 max-sm:col-span-3 max-sm:p-0">
                       <div className="flex flex-col gap-1">
                         <CellInput
                           label={`Layer ${n} name`}
@@ -240,7 +244,8 @@ function ModelEditor({
                         ) : null}
                       </div>
                     </td>
-                    <td className="py-1.5 pr-2">
+                    <td className="py-1.5 pr-2 max-sm:col-start-2 max-sm:p-0">
+                      <PhoneLabel>Velocity ({v})</PhoneLabel>
                       <CellInput
                         label={`Layer ${n} velocity (${v})`}
                         inputMode="decimal"
@@ -248,7 +253,8 @@ function ModelEditor({
                         {...register(`${p}.velocity`)}
                       />
                     </td>
-                    <td className="py-1.5 pr-2">
+                    <td className="py-1.5 pr-2 max-sm:p-0">
+                      <PhoneLabel>Thickness ({h})</PhoneLabel>
                       {last ? (
                         <span className="block pt-1.5 text-xs text-ink-soft italic">
                           half-space
@@ -262,7 +268,8 @@ function ModelEditor({
                         />
                       )}
                     </td>
-                    <td className="py-1.5 pr-2">
+                    <td className="py-1.5 pr-2 max-sm:p-0">
+                      <PhoneLabel>Dip (°)</PhoneLabel>
                       {last ? (
                         <span className="block pt-1.5 text-xs text-ink-soft">—</span>
                       ) : (
@@ -275,8 +282,8 @@ function ModelEditor({
                         />
                       )}
                     </td>
-                    <td className="py-1.5 whitespace-nowrap">
-                      <div className="flex flex-col items-start gap-1">
+                    <td className="py-1.5 whitespace-nowrap max-sm:col-span-3 max-sm:col-start-2 max-sm:p-0">
+                      <div className="flex flex-col items-start gap-1 max-sm:flex-row max-sm:items-center max-sm:gap-2">
                         {!readOnly ? (
                           <div className="flex gap-0.5">
                             <IconButton
@@ -310,9 +317,9 @@ function ModelEditor({
                     </td>
                   </tr>
                   {bounds ? (
-                    <tr className="border-b border-rule/60 align-top">
-                      <td />
-                      <td colSpan={5} className="pb-2">
+                    <tr className="border-b border-rule/60 align-top max-sm:block">
+                      <td className="max-sm:hidden" />
+                      <td colSpan={5} className="pb-2 max-sm:block">
                         <div className="flex flex-wrap items-start gap-x-4 gap-y-1 text-xs text-ink-soft">
                           <span className="pt-1.5">Sweep bounds:</span>
                           <RangeInputs
@@ -362,6 +369,13 @@ function ModelEditor({
     </div>
   );
 }
+
+/**
+ * A layer row on a phone: a grid of the number, then the name across, the three numbers
+ * side by side under it, and the buttons at the bottom.
+ */
+const PHONE_ROW =
+  "max-sm:grid max-sm:grid-cols-[1.25rem_repeat(3,minmax(0,1fr))] max-sm:gap-x-2 max-sm:gap-y-1.5 max-sm:border-t max-sm:border-rule/60 max-sm:py-2";
 
 function RangeInputs({
   label,
@@ -423,7 +437,7 @@ function IconButton({
       type="button"
       aria-label={label}
       title={label}
-      className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40"
+      className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40 max-sm:h-9 max-sm:w-9"
       {...props}
     >
       {children}

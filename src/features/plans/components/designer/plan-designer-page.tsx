@@ -28,7 +28,9 @@ import { ResultsPanel } from "./results-panel";
 import { SweepView } from "./sweep-view";
 import { CompareView } from "./compare-view";
 import { AnchorCommentsScope } from "./anchor-comments";
+import { PlanPrintRecord } from "./plan-print-record";
 import { warmModeller } from "../../lib/modeller-client";
+import { usePrintMedia } from "../../hooks/use-print-media";
 
 /** The designer route: loads the plan, then hands it to the editor keyed by plan and units. */
 export function PlanDesignerPage() {
@@ -105,6 +107,8 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
   useEffect(() => () => clearTimeout(markTimer.current), []);
   const livePlan = useLivePlan(form, units, baseline.name, exact, markAll);
   const analysis = usePlanAnalysis(livePlan);
+  // The printed record of the inputs exists only while printing (the form is not printed).
+  const printing = usePrintMedia();
 
   // Saving.
   const savePlan = useSavePlan(baseline.id);
@@ -152,7 +156,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
   return (
     <FormProvider {...form}>
       <div>
-        <p className="mb-2 text-sm">
+        <p className="mb-2 text-sm print:hidden">
           <Link to={paths.sites} className="text-ink underline">
             Sites
           </Link>{" "}
@@ -161,10 +165,12 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
             {baseline.siteName}
           </Link>
         </p>
-        <header className="mb-4 flex flex-wrap items-end justify-between gap-4 border-b border-rule pb-4">
-          <div>
-            <h1 className="text-2xl font-semibold tracking-tight text-ink-deep">{baseline.name}</h1>
-            <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-ink-soft">
+        <header className="mb-4 flex flex-wrap items-end justify-between gap-x-4 gap-y-3 border-b border-rule pb-4 print:mb-2 print:pb-2">
+          <div className="min-w-0">
+            <h1 className="text-2xl font-semibold tracking-tight break-words text-ink-deep">
+              {baseline.name}
+            </h1>
+            <p className="mt-1 flex flex-wrap items-center gap-x-2 gap-y-0.5 text-sm text-ink-soft print:hidden">
               <span>{PLAN_STATUS_LABELS[baseline.status]}</span>
               {baseline.sandbox ? (
                 <span className="rounded-full border border-ochre/60 bg-ochre-soft px-2 py-0.5 text-xs font-medium text-ink-deep">
@@ -174,17 +180,20 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
               <span>· by {baseline.author.name}</span>
               <span className="font-mono text-xs">· revision {baseline.revision}</span>
               {readOnly ? <span className="font-medium text-ink">· read only</span> : null}
-              <span>·</span>
-              <Link to={paths.planReview(baseline.id)} className="text-ink underline">
-                Review
-              </Link>
-              <span>·</span>
-              <Link to={paths.planField(baseline.id)} className="text-ink underline">
-                Field check
-              </Link>
+              {/* The two links stay together: on a phone they wrap as a pair, never one alone. */}
+              <span className="inline-flex items-center gap-2 whitespace-nowrap">
+                <span className="max-sm:hidden">·</span>
+                <Link to={paths.planReview(baseline.id)} className="text-ink underline">
+                  Review
+                </Link>
+                <span>·</span>
+                <Link to={paths.planField(baseline.id)} className="text-ink underline">
+                  Field check
+                </Link>
+              </span>
             </p>
           </div>
-          <div className="flex flex-wrap items-center gap-3">
+          <div className="flex flex-wrap items-center gap-x-3 gap-y-2 print:hidden">
             {!readOnly ? <HistoryButtons history={history as never} /> : null}
             <AnalysisState
               control={form.control}
@@ -271,7 +280,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
         ) : null}
         <UnsavedChangesGuard control={form.control} readOnly={readOnly} leaving={leaving} />
 
-        <nav aria-label="Designer views" className="mb-4 flex gap-1">
+        <nav aria-label="Designer views" className="mb-4 flex flex-wrap gap-1 print:hidden">
           {VIEWS.map((v) => (
             <button
               key={v.view}
@@ -288,8 +297,17 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
         </nav>
 
         <div hidden={view !== "design"}>
-          <div className="grid gap-5 xl:grid-cols-[minmax(0,5fr)_minmax(0,6fr)]">
-            <Card>
+          {view === "design" && printing ? (
+            <PlanPrintRecord
+              detail={baseline}
+              plan={livePlan}
+              analysis={analysis.current ? analysis.result : null}
+              units={units}
+            />
+          ) : null}
+          {/* One column up to xl; minmax(0, …) lets wide content shrink to a phone's width. */}
+          <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,5fr)_minmax(0,6fr)] print:block">
+            <Card className="print:hidden">
               <div
                 role="tablist"
                 aria-label="Plan inputs"

@@ -4,6 +4,7 @@ import type { AppliedSpread } from "../../lib/apply-recommendation";
 import { ApplyChoicesPanel } from "./apply-choices-panel";
 import { VerdictBadge, VERDICT_MEANINGS } from "../verdict-badge";
 import { AnchorCommentsChip } from "./anchor-comments";
+import { PhoneLabel } from "./cell-input";
 
 /** The cautions every design check carries (design.md). */
 export function Cautions() {
@@ -38,6 +39,11 @@ function segmentText(segment: Segment | null, units: UnitSystem): string {
     ? `from ${from} on`
     : `${from} – ${formatQuantity("length", segment.to, units, 1)}`;
 }
+
+/** A table row on a phone: the refractor across the top, the values two by two under it. */
+const PHONE_ROW = "max-sm:grid max-sm:grid-cols-2 max-sm:gap-x-3 max-sm:gap-y-1.5 max-sm:py-2";
+const PHONE_HEAD = "max-sm:col-span-2 max-sm:p-0";
+const PHONE_CELL = "max-sm:p-0 max-sm:text-left";
 
 /**
  * Resolvability: per refractor of one ground model its verdict, first-arrival segment and
@@ -74,9 +80,14 @@ export function ResolvabilityPanel({
 
   return (
     <div>
-      <div className="overflow-x-auto">
-        <table className="w-full text-sm" aria-label={`Resolvability of ${model.name}`}>
-          <thead className="text-left text-xs text-ink-soft">
+      {/* On a phone (below sm) each refractor is a card with its own labels: every column
+          stays in view, with no box that scrolls sideways. */}
+      <div className="sm:overflow-x-auto">
+        <table
+          className="w-full text-sm max-sm:block"
+          aria-label={`Resolvability of ${model.name}`}
+        >
+          <thead className="text-left text-xs text-ink-soft max-sm:hidden">
             <tr className="border-b border-rule">
               <th scope="col" className="py-1.5 pr-3 font-semibold">
                 Refractor
@@ -98,21 +109,31 @@ export function ResolvabilityPanel({
               </th>
             </tr>
           </thead>
-          <tbody className="font-mono text-xs">
-            <tr className="border-b border-rule/60 align-top">
-              <th scope="row" className="py-2 pr-3 text-left font-sans text-sm font-medium">
+          <tbody className="font-mono text-xs max-sm:block">
+            <tr className={`border-b border-rule/60 align-top ${PHONE_ROW}`}>
+              <th
+                scope="row"
+                className={`py-2 pr-3 text-left font-sans text-sm font-medium ${PHONE_HEAD}`}
+              >
                 Direct wave
                 <span className="block text-xs font-normal text-ink-soft">
                   layer 1 · {formatQuantity("velocity", model.direct.velocity, units)}
                 </span>
               </th>
-              <td className="py-2 pr-3">
+              <td className={`py-2 pr-3 ${PHONE_CELL}`}>
+                <PhoneLabel>Verdict</PhoneLabel>
                 <VerdictBadge verdict={model.direct.status} />
               </td>
-              <td className="py-2 pr-3">{segmentText(model.direct.segment, units)}</td>
-              <td className="py-2 pr-3 text-right">{model.direct.geophones}</td>
-              <td className="py-2 pr-3 text-right">—</td>
-              <td className="py-2 text-right">—</td>
+              <td className={`py-2 pr-3 ${PHONE_CELL}`}>
+                <PhoneLabel>Segment</PhoneLabel>
+                {segmentText(model.direct.segment, units)}
+              </td>
+              <td className={`py-2 pr-3 text-right ${PHONE_CELL}`}>
+                <PhoneLabel>Geophones</PhoneLabel>
+                {model.direct.geophones}
+              </td>
+              <td className="py-2 pr-3 text-right max-sm:hidden">—</td>
+              <td className="py-2 text-right max-sm:hidden">—</td>
             </tr>
             {model.refractors.map((r) => {
               const i = interpreted.get(r.layer);
@@ -120,10 +141,13 @@ export function ResolvabilityPanel({
               return (
                 <tr
                   key={r.layer}
-                  className="border-b border-rule/60 align-top"
+                  className={`border-b border-rule/60 align-top ${PHONE_ROW}`}
                   data-layer={r.layer}
                 >
-                  <th scope="row" className="py-2 pr-3 text-left font-sans text-sm font-medium">
+                  <th
+                    scope="row"
+                    className={`py-2 pr-3 text-left font-sans text-sm font-medium ${PHONE_HEAD}`}
+                  >
                     Layer {r.layer}
                     {r.name ? ` (${r.name})` : ""}
                     <span className="flex items-center justify-between gap-2 text-xs font-normal text-ink-soft">
@@ -136,14 +160,22 @@ export function ResolvabilityPanel({
                       />
                     </span>
                   </th>
-                  <td className="py-2 pr-3">
+                  <td className={`py-2 pr-3 ${PHONE_CELL}`}>
+                    <PhoneLabel>Verdict</PhoneLabel>
                     <span title={VERDICT_MEANINGS[r.status]}>
                       <VerdictBadge verdict={r.status} />
                     </span>
                   </td>
-                  <td className="py-2 pr-3">{segmentText(r.segment, units)}</td>
-                  <td className="py-2 pr-3 text-right">{r.geophones}</td>
-                  <td className="py-2 pr-3 text-right">
+                  <td className={`py-2 pr-3 ${PHONE_CELL}`}>
+                    <PhoneLabel>Segment</PhoneLabel>
+                    {segmentText(r.segment, units)}
+                  </td>
+                  <td className={`py-2 pr-3 text-right ${PHONE_CELL}`}>
+                    <PhoneLabel>Geophones</PhoneLabel>
+                    {r.geophones}
+                  </td>
+                  <td className={`py-2 pr-3 text-right ${PHONE_CELL}`}>
+                    <PhoneLabel>Depth</PhoneLabel>
                     <span className="block">{formatQuantity("length", r.depth, units)} true</span>
                     {i ? (
                       <>
@@ -175,7 +207,8 @@ export function ResolvabilityPanel({
                       </span>
                     )}
                   </td>
-                  <td className="py-2 text-right">
+                  <td className={`py-2 text-right ${PHONE_CELL}`}>
+                    <PhoneLabel>Min. thickness</PhoneLabel>
                     {r.minimumThickness === null
                       ? "—"
                       : formatQuantity("length", r.minimumThickness, units)}

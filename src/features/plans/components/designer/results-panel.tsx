@@ -11,7 +11,8 @@ import { SectionPanel } from "./section-panel";
 import { ResolvabilityPanel } from "./resolvability-panel";
 import { useLateFlag } from "../../hooks/use-late-flag";
 import { isSectionAnalysis } from "@engine";
-import { SectionAnswers } from "../section/section-answers";
+import { SectionAnswers, SectionReadOnly } from "../section/section-answers";
+import { usePrintMedia } from "../../hooks/use-print-media";
 
 type Tab = "arrivals" | "section" | "resolvability";
 const TABS: Array<{ tab: Tab; label: string }> = [
@@ -46,6 +47,9 @@ export function ResultsPanel({
   const { result, resultInput: plan, current, pending, error } = analysis;
   // Only an answer that takes a while is shown as "an earlier version" (no flicker per key).
   const outdated = useLateFlag(!current, 200);
+  // In print every view is shown, one after the other (the tabs themselves are not printed).
+  const printing = usePrintMedia();
+  const shows = (t: Tab) => printing || tab === t;
 
   if (!result || !plan) {
     return (
@@ -110,7 +114,13 @@ export function ResultsPanel({
           </div>
         </div>
 
-        <div className="mb-3 flex flex-wrap items-end justify-between gap-3 border-b border-rule">
+        {printing ? (
+          <p className="mb-2 hidden text-sm print:block">
+            Analysis of <span className="font-semibold">{model.name}</span>, charts for shot{" "}
+            {shot + 1} at {formatQuantity("length", plan.spread.shots[shot].position, units)}.
+          </p>
+        ) : null}
+        <div className="mb-3 flex flex-wrap items-end justify-between gap-3 border-b border-rule print:hidden">
           <div role="tablist" aria-label="Analysis views" className="flex gap-4">
             {TABS.map((t) => (
               <button
@@ -157,7 +167,21 @@ export function ResultsPanel({
           ) : null}
         </div>
 
-        {isSectionAnalysis(model) ? (
+        {isSectionAnalysis(model) && printing ? (
+          <ErrorBoundary title="The section answers failed to draw">
+            <SectionAnswers
+              plan={plan}
+              analysis={model}
+              modelIndex={modelIndex}
+              shotIndex={shot}
+              units={units}
+              tab="arrivals"
+            />
+            <PrintHeading>Section and resolvability</PrintHeading>
+            <SectionReadOnly plan={plan} analysis={model} modelIndex={modelIndex} units={units} />
+          </ErrorBoundary>
+        ) : null}
+        {isSectionAnalysis(model) && !printing ? (
           <ErrorBoundary title="The section answers failed to draw">
             <SectionAnswers
               plan={plan}
@@ -169,7 +193,7 @@ export function ResultsPanel({
             />
           </ErrorBoundary>
         ) : null}
-        {isSectionAnalysis(model) ? null : tab === "arrivals" ? (
+        {!isSectionAnalysis(model) && shows("arrivals") ? (
           <ErrorBoundary title="The Arrivals chart failed to draw">
             <ArrivalsPanel
               plan={plan}
@@ -180,13 +204,15 @@ export function ResultsPanel({
             />
           </ErrorBoundary>
         ) : null}
-        {!isSectionAnalysis(model) && tab === "section" ? (
+        {!isSectionAnalysis(model) && shows("section") ? (
           <ErrorBoundary title="The Section failed to draw">
+            {printing ? <PrintHeading>Section</PrintHeading> : null}
             <SectionPanel plan={plan} modelIndex={modelIndex} shotIndex={shot} units={units} />
           </ErrorBoundary>
         ) : null}
-        {!isSectionAnalysis(model) && tab === "resolvability" ? (
+        {!isSectionAnalysis(model) && shows("resolvability") ? (
           <ErrorBoundary title="The Resolvability table failed to draw">
+            {printing ? <PrintHeading>Resolvability</PrintHeading> : null}
             <ResolvabilityPanel
               plan={plan}
               analysis={result}
@@ -202,4 +228,9 @@ export function ResultsPanel({
       </div>
     </Card>
   );
+}
+
+/** A heading between the views printed one after the other. */
+function PrintHeading({ children }: { children: string }) {
+  return <h3 className="mt-4 mb-2 text-base font-semibold text-ink-deep">{children}</h3>;
 }

@@ -478,7 +478,7 @@ function Heatmap({
         role="grid"
         aria-label="Design sweep heatmap"
         tabIndex={0}
-        className="block max-w-full focus:outline-2 focus:outline-ochre"
+        className="block h-auto max-w-full focus:outline-2 focus:outline-ochre"
         onKeyDown={(e) => {
           const moves: Record<string, [number, number]> = {
             ArrowUp: [1, 0],

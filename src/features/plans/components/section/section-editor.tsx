@@ -8,7 +8,7 @@ import type { PlanForm, SectionDraft } from "../../lib/plan-form";
 import { insertPoint, movePoint, polylineOf, removePoint } from "../../lib/section-edit";
 import { buildSectionView, lineAt, lineLabel, layerName } from "../../lib/section-view";
 import type { Borehole } from "../../lib/section-import";
-import { CellInput } from "../designer/cell-input";
+import { CellInput, PhoneLabel } from "../designer/cell-input";
 import { SectionFigure, type PointRef } from "./section-figure";
 import { SectionImport } from "./section-import-box";
 import { BoreholeLogs } from "./section-overlays";
@@ -144,6 +144,7 @@ export function SectionEditor({
             section: draft,
             spread,
             shotIndex: null,
+            // below 360 px the axis labels collide; a narrower box scales the figure down
             width: Math.max(360, width),
             units,
             exaggeration: "auto",
@@ -269,9 +270,10 @@ export function SectionEditor({
       ) : null}
 
       <h3 className="mt-4 mb-1 text-sm font-semibold text-ink-deep">Layers</h3>
-      <div className="overflow-x-auto">
-        <table className="w-full min-w-[30rem] text-sm" aria-label="Section layers">
-          <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
+      {/* On a phone (below sm) each layer is a card (name across, velocities under it). */}
+      <div className="sm:overflow-x-auto">
+        <table className="w-full text-sm max-sm:block sm:min-w-[30rem]" aria-label="Section layers">
+          <thead className="text-left text-xs tracking-wide text-ink-soft uppercase max-sm:hidden">
             <tr className="border-b border-rule">
               <th className="w-6 py-1 font-semibold">#</th>
               <th className="py-1 pr-2 font-semibold">Layer</th>
@@ -279,11 +281,16 @@ export function SectionEditor({
               <th className="py-1 font-semibold">Velocity along the line</th>
             </tr>
           </thead>
-          <tbody>
+          <tbody className="max-sm:block">
             {draft.layers.map((layer, k) => (
-              <tr key={k} className="align-top">
-                <td className="py-1 pt-2 font-mono text-xs text-ink-soft">{k + 1}</td>
-                <td className="py-1 pr-2">
+              <tr
+                key={k}
+                className="align-top max-sm:grid max-sm:grid-cols-[1.25rem_minmax(0,2fr)_minmax(0,3fr)] max-sm:gap-x-2 max-sm:gap-y-1.5 max-sm:border-t max-sm:border-rule/60 max-sm:py-2"
+              >
+                <td className="py-1 pt-2 font-mono text-xs text-ink-soft max-sm:p-0 max-sm:pt-1.5">
+                  {k + 1}
+                </td>
+                <td className="py-1 pr-2 max-sm:col-span-2 max-sm:p-0">
                   <TextCell
                     label={`Layer ${k + 1} name`}
                     value={layer.name ?? ""}
@@ -291,7 +298,8 @@ export function SectionEditor({
                     onCommit={(name) => updateLayer(k, { name: name || undefined })}
                   />
                 </td>
-                <td className="py-1 pr-2">
+                <td className="py-1 pr-2 max-sm:col-start-2 max-sm:p-0">
+                  <PhoneLabel>Velocity ({v})</PhoneLabel>
                   <NumberCell
                     label={`Layer ${k + 1} velocity (${v})`}
                     quantity="velocity"
@@ -300,7 +308,8 @@ export function SectionEditor({
                     onCommit={(velocity) => updateLayer(k, { velocity })}
                   />
                 </td>
-                <td className="py-1">
+                <td className="py-1 max-sm:p-0">
+                  <PhoneLabel>Along the line</PhoneLabel>
                   <VelocityLaw
                     label={`Layer ${k + 1} velocity along the line`}
                     value={layer.velocityAt}

@@ -262,13 +262,18 @@ function SweepTable({ result, units }: { result: SectionSweepResult; units: Unit
       ? `Elevation of point ${(result.parameter.point ?? 0) + 1} of the base of layer ${result.parameter.layer}`
       : `Velocity of layer ${result.parameter.layer}`;
   return (
-    <div className="mt-3 overflow-x-auto">
-      <table className="text-xs" aria-label="Section sweep: worst verdict and depth error">
-        <caption className="mb-1 text-left text-ink-soft">
+    // On a phone (below sm) each row is a card: its value, then its cells four to a line, each
+    // with its spacing, so every column stays in view without a box that scrolls sideways.
+    <div className="mt-3 sm:overflow-x-auto">
+      <table
+        className="text-xs max-sm:block max-sm:w-full"
+        aria-label="Section sweep: worst verdict and depth error"
+      >
+        <caption className="mb-1 text-left text-ink-soft max-sm:block">
           Rows: {rowsLabel.toLowerCase()}; columns: geophone spacing. Each cell: worst verdict and
           worst interpreted depth error.
         </caption>
-        <thead>
+        <thead className="max-sm:hidden">
           <tr>
             <th className="px-2 py-1 text-left font-semibold text-ink-soft">{rowsLabel}</th>
             {Array.from(result.axis.values).map((s, j) => (
@@ -278,13 +283,19 @@ function SweepTable({ result, units }: { result: SectionSweepResult; units: Unit
             ))}
           </tr>
         </thead>
-        <tbody>
+        <tbody className="max-sm:block">
           {Array.from(result.parameter.values).map((p, i) => (
-            <tr key={i}>
-              <th scope="row" className="px-2 py-1 text-left font-mono font-semibold text-ink-deep">
+            <tr
+              key={i}
+              className="max-sm:grid max-sm:grid-cols-4 max-sm:gap-0.5 max-sm:border-t max-sm:border-rule/60 max-sm:py-2"
+            >
+              <th
+                scope="row"
+                className="px-2 py-1 text-left font-mono font-semibold text-ink-deep max-sm:col-span-4 max-sm:px-0"
+              >
                 {formatQuantity(q, p, units)}
               </th>
-              {Array.from(result.axis.values).map((_, j) => {
+              {Array.from(result.axis.values).map((s, j) => {
                 const code = result.status[i * result.cols + j];
                 const status = STATUSES[code];
                 const fill = status
@@ -301,9 +312,12 @@ function SweepTable({ result, units }: { result: SectionSweepResult; units: Unit
                 return (
                   <td
                     key={j}
-                    className="border border-card px-2 py-1.5 text-center"
+                    className="border border-card px-2 py-1.5 text-center max-sm:block max-sm:px-1"
                     style={{ background: fill }}
                   >
+                    <span className="block font-mono text-ink-soft sm:hidden">
+                      {formatQuantity("length", s, units)}
+                    </span>
                     <span className="block font-medium text-ink-deep">{word}</span>
                     <span className="font-mono text-ink-soft">
                       {Number.isFinite(err) ? formatSigned("length", err, units) : "—"}
