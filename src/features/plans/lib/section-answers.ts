@@ -23,6 +23,7 @@ import type {
   Status,
 } from "@engine";
 import type { SectionDraft } from "./plan-form";
+import { placeCallouts } from "./callout-placement";
 import { clipLine, type SectionView } from "./section-view";
 
 /** Colour and dash of a verdict on the section (colour is never the only cue: dashes too). */
@@ -176,18 +177,32 @@ export interface FeatureBand {
   geophones: number;
   /** The band along the interface between from and to (SVG path, px). */
   path: string;
-  /** Label above the interface, lifted a line per neighbour it would overlap. */
+  /** Label near the band (placeCallouts: off other labels, bands and the layers' names). */
   label: { x: number; y: number; text: string; anchor: "start" | "middle" | "end" };
-  /** Leader from the label down to the band. */
-  leader: { x: number; y1: number; y2: number };
+  /** Leader from the label's edge (x1, y1) to the band (x2, y2). */
+  leader: { x1: number; y1: number; x2: number; y2: number };
+}
+
+/** The screen box of a band drawn along a path (13 px wide stroke), px. */
+function bandBox(path: string) {
+  const pts = [...path.matchAll(/[ML](-?[\d.]+),(-?[\d.]+)/g)].map((m) => [+m[1], +m[2]]);
+  const xs = pts.map((p) => p[0]);
+  const ys = pts.map((p) => p[1]);
+  const half = 6.5;
+  return {
+    x0: Math.min(...xs),
+    x1: Math.max(...xs),
+    y0: Math.min(...ys) - half,
+    y1: Math.max(...ys) + half,
+  };
 }
 
 /**
  * Under-sampled interface features (judged feature stretches) as bands on the interface
  * itself, exactly from `from` to `to`, one per feature (branches that flag the same feature
- * share it), labelled "<feature>: <n> geophone(s)" above the interface; a label that would
- * overlap another, a layer's name, or one of the `avoid` marks' labels (stretchMarks), goes
- * a line higher. Features resolved by another branch are not drawn.
+ * share it), labelled "<feature>: <n> geophone(s)" on a leader, above the interface where
+ * there is room (placeCallouts): no label over another, a band, a layer's name or one of the
+ * `avoid` marks' labels (stretchMarks), and leaders kept off the text. Features resolved by another branch are not drawn.
  */
 export function featureBands(
   view: SectionView,
@@ -255,26 +270,31 @@ export function featureBands(
           text: `${s.feature}: ${geophoneWord(s.geophones)}`,
           anchor: "middle",
         },
-        leader: { x: px, y1: py, y2: py },
+        leader: { x1: px, y1: py, x2: px, y2: py },
       };
       seen.set(key, band);
       out.push(band);
     }
   }
-  // place the labels once their final text is known
-  for (const band of out) {
-    const w = band.label.text.length * charPx;
-    let x0 = band.label.x - w / 2;
-    if (x0 < left + 2) x0 = left + 2;
-    if (x0 + w > right - 2) x0 = right - 2 - w;
-    const base = band.leader.y1;
-    let y = base - 14;
-    while (placed.some((p) => Math.abs(p.y - y) < 12 && p.x0 < x0 + w + 6 && x0 < p.x1 + 6))
-      y -= 14;
-    placed.push({ x0, x1: x0 + w, y });
-    band.label = { x: x0, y, text: band.label.text, anchor: "start" };
-    band.leader = { x: band.leader.x, y1: y + 3, y2: base - 4 };
-  }
+  // place the labels once their final text is known: above or below the band, a row or a
+  // step sideways at a time, never over another label or band, leaders kept off the text
+  const bandBoxes = out.map((b) => bandBox(b.path));
+  const callouts = placeCallouts(
+    out.map((b, i) => ({
+      x: b.leader.x2,
+      top: bandBoxes[i].y0,
+      bottom: bandBoxes[i].y1,
+      width: b.label.text.length * charPx,
+      height: 12,
+    })),
+    [...placed.map((p) => ({ x0: p.x0, x1: p.x1, y0: p.y - 11, y1: p.y + 3 })), ...bandBoxes],
+    { left: left + 2, right: right - 2, top: 2, bottom: view.height - view.margin.bottom - 2 },
+  );
+  out.forEach((band, i) => {
+    const { box, leader } = callouts[i];
+    band.label = { x: box.x0, y: box.y1 - 3, text: band.label.text, anchor: "start" };
+    band.leader = leader;
+  });
   return out;
 }
 

@@ -171,7 +171,8 @@ export function StretchOverlay({
 /**
  * Under-sampled interface features (e.g. a channel floor) as a thick hatched ochre band on
  * the interface itself, exactly between the feature's ends, with a label
- * ("channel floor: 1 geophone") above the interface on a leader; labels never overlap.
+ * ("channel floor: 1 geophone") on a leader, placed so labels never overlap each other, a
+ * band or a layer's name (featureBands).
  */
 export function FeatureOverlay({
   view,
@@ -210,8 +211,8 @@ export function FeatureOverlay({
         >
           <Band d={b.path} stroke={`url(#${hatch})`} width={10} halo={13} />
           <line
-            x1={b.leader.x}
-            x2={b.leader.x}
+            x1={b.leader.x1}
+            x2={b.leader.x2}
             y1={b.leader.y1}
             y2={b.leader.y2}
             stroke={palette.inkDeep}
