@@ -11,6 +11,7 @@
  */
 import * as Comlink from "comlink";
 import type {
+  AnalyzeOptions,
   ArrivalCurves,
   GroundModel,
   Plan,
@@ -54,7 +55,7 @@ export interface SweepControl {
 /** The modeller as the client sees it (all times s, distances m, velocities m/s). */
 export interface Modeller {
   /** Full analysis of a validated plan (see parsePlan in the engine). */
-  analyze(plan: Plan): Promise<PlanAnalysis>;
+  analyze(plan: Plan, options?: AnalyzeOptions): Promise<PlanAnalysis>;
   /**
    * Full analysis that no later request supersedes (several plans at once, e.g. the revisions
    * on the Review screen); it still rejects as cancelled when the modeller is disposed.
@@ -325,11 +326,11 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
           : local((e) => e.readSectionOfPlan(plan, modelIndex, options)),
       ),
     sectionSweep,
-    analyze: (plan) =>
+    analyze: (plan, options) =>
       latestOnly("analyze", (stale) =>
         factory
-          ? (quickApi().analyzePlan(plan) as Promise<PlanAnalysis>)
-          : local((e) => e.analyzePlan(plan), stale),
+          ? (quickApi().analyzePlan(plan, options) as Promise<PlanAnalysis>)
+          : local((e) => e.analyzePlan(plan, options), stale),
       ),
     analyzeOne: (plan) =>
       latestOnly(`analyze-one:${++oneSeq}`, () =>

@@ -5,10 +5,18 @@
  * out (a spacing under 0.25 m, more channels than the team's seismograph records). Shots are
  * placed by their anchors (shot-anchors.ts): anchored shots follow, fixed shots stay.
  */
-import { MAX_CHANNELS, resolveShotPositions } from "@engine";
-import { formatQuantity, fromDisplay, toDisplay, type UnitSystem } from "@/lib/units";
-import { practicalSpacing } from "./apply-recommendation";
+import {
+  MAX_CHANNELS,
+  MAX_ROLL_ALONG_SPREADS,
+  lineStations,
+  resolveShotPositions,
+  rollAlongFor,
+  type RollAlong,
+} from "@engine";
+import { formatInput, formatQuantity, fromDisplay, toDisplay, type UnitSystem } from "@/lib/units";
+import { practicalSpacing, type AppliedSpread } from "./apply-recommendation";
 import type { Spread } from "./engine";
+import type { PlanForm } from "./plan-form";
 
 /** What an Apply keeps as it is. */
 export type ApplyChoice = "recommended" | "keep-spacing" | "keep-length" | "keep-channels";
@@ -18,6 +26,17 @@ export const MIN_PRACTICAL_SPACING = 0.25;
 
 /** The seismograph channel count assumed until the team sets one (common practice: 24 or 48). */
 export const DEFAULT_SEISMOGRAPH_CHANNELS = 48;
+
+/**
+ * Geophone stations two neighbouring spreads share when a line rolls along (common practice,
+ * no single source: a couple of shared stations tie one spread's first breaks to the next's).
+ */
+export const DEFAULT_ROLL_ALONG_OVERLAP = 2;
+
+/** A spread to apply: `rollAlong` null lays one spread (removing any roll-along), absent leaves it. */
+export interface AppliedChoice extends AppliedSpread {
+  rollAlong?: RollAlong | null;
+}
 
 export interface ApplyOption {
   choice: ApplyChoice;
@@ -34,6 +53,13 @@ export interface ApplyOption {
   flags: string[];
   /** True when the spread would not change. */
   unchanged: boolean;
+  /** The roll-along this option lays (null: one spread; a plan's roll-along is removed). */
+  rollAlong: RollAlong | null;
+  /**
+   * The same line laid as roll-along on the seismograph, when the option needs more channels
+   * than it records: `channels` per spread = the seismograph's count.
+   */
+  asRollAlong?: ApplyOption;
 }
 
 /**
@@ -47,6 +73,14 @@ export function applyChoices(
   seismographChannels: number = DEFAULT_SEISMOGRAPH_CHANNELS,
 ): ApplyOption[] {
   const len = (m: number) => formatQuantity("length", m, units);
+  // Options count the stations of the whole line: a plan that rolls along keeps its line.
+  const current = spread.rollAlong;
+  const stationsNow = lineStations(spread.channels, current);
+  spread = { ...spread, channels: stationsNow };
+  const overlap =
+    current && current.overlap < seismographChannels
+      ? current.overlap
+      : Math.min(DEFAULT_ROLL_ALONG_OVERLAP, seismographChannels - 1);
   const practical = (m: number) =>
     fromDisplay("length", practicalSpacing(toDisplay("length", m, units)), units);
   const needed = recommendation.spreadLength;
@@ -74,11 +108,12 @@ export function applyChoices(
       flags.push(
         `${len(spacing)} spacing is below ${len(MIN_PRACTICAL_SPACING)}: impractical to lay out (common practice).`,
       );
+    const roll = channels > seismographChannels ? rolled(channels) : undefined;
     if (channels > seismographChannels)
       flags.push(
-        `${channels} channels is more than the seismograph's ${seismographChannels}: lay the line as ${Math.ceil(
-          (channels - 1) / (seismographChannels - 1),
-        )} overlapping spreads (roll-along) or use a second recorder.`,
+        roll
+          ? `${channels} channels is more than the seismograph's ${seismographChannels}: lay it as roll-along (${roll.spreads} spreads, below) or use a second recorder.`
+          : `${channels} channels is more than the seismograph's ${seismographChannels}: use a second recorder.`,
       );
     if (spacing > spread.spacing + 1e-9)
       flags.push(`Coarser than the plan's ${len(spread.spacing)} spacing.`);
@@ -89,8 +124,63 @@ export function applyChoices(
         firstGeophone: spread.firstGeophone,
       }),
     );
-    const unchanged = Math.abs(spacing - spread.spacing) < 1e-9 && channels === spread.channels;
-    return { choice, title, spacing, channels, shots, consequence, flags, unchanged };
+    const unchanged =
+      !current && Math.abs(spacing - spread.spacing) < 1e-9 && channels === spread.channels;
+    const option: ApplyOption = {
+      choice,
+      title,
+      spacing,
+      channels,
+      shots,
+      consequence: current
+        ? `${consequence} One spread: the roll-along of ${current.spreads} spreads is removed.`
+        : consequence,
+      flags,
+      unchanged,
+      rollAlong: null,
+    };
+    if (roll) option.asRollAlong = rollAlongOption(option, roll);
+    return option;
+  };
+
+  // The line of `stations` on the seismograph: undefined when it would take too many spreads.
+  const rolled = (stations: number): RollAlong | undefined => {
+    const roll = rollAlongFor(stations, seismographChannels, overlap);
+    return roll && roll.spreads <= MAX_ROLL_ALONG_SPREADS ? roll : undefined;
+  };
+
+  const rollAlongOption = (line: ApplyOption, roll: RollAlong): ApplyOption => {
+    const channels = seismographChannels;
+    const dx = line.spacing;
+    const stations = lineStations(channels, roll);
+    const reach = (channels - 1) * dx;
+    const same =
+      !!current &&
+      current.spreads === roll.spreads &&
+      current.overlap === roll.overlap &&
+      Math.abs(dx - spread.spacing) < 1e-9 &&
+      lineStations(channels, roll) === stationsNow;
+    return {
+      choice: line.choice,
+      title: `${line.title}, as roll-along`,
+      spacing: dx,
+      channels,
+      shots: Array.from(
+        resolveShotPositions(spread.shots, {
+          spacing: dx,
+          channels,
+          firstGeophone: spread.firstGeophone,
+        }),
+      ),
+      consequence:
+        `${roll.spreads} spreads of ${channels} channels, overlapping by ${roll.overlap}, ${stations} stations over ${len((stations - 1) * dx)}.` +
+        (reach + 1e-9 < needed
+          ? ` Each shot is recorded by one spread of ${len(reach)}: offsets reach ${len(reach)}, short of the ${len(needed)} needed.`
+          : ""),
+      flags: line.flags.filter((f) => !/more than the seismograph/.test(f)),
+      unchanged: same,
+      rollAlong: roll,
+    };
   };
 
   const options: ApplyOption[] = [];
@@ -160,4 +250,40 @@ export function applyChoices(
     options.push(build("keep-channels", "Keep channel count", dx, n, consequence));
   }
   return options;
+}
+
+/**
+ * The form's spread after applying `applied` (SI) in the user's units, as one value so that
+ * the designer sets it in one step (one undo step): spacing, channels, the shots' positions
+ * (anchored rows keep their offsets) and the roll-along (null switches it off, keeping what
+ * was typed; absent leaves it).
+ */
+export function appliedFormSpread(
+  form: PlanForm["spread"],
+  applied: AppliedChoice,
+  units: UnitSystem,
+): PlanForm["spread"] {
+  const next: PlanForm["spread"] = {
+    ...form,
+    spacing: formatInput("length", applied.spacing, units),
+    channels: String(applied.channels),
+    shots: form.shots.map((row, i) =>
+      applied.shots[i] === undefined
+        ? row
+        : { ...row, position: formatInput("length", applied.shots[i], units) },
+    ),
+  };
+  if (applied.rollAlong === null)
+    next.rollAlong = {
+      on: false,
+      spreads: form.rollAlong?.spreads ?? "",
+      overlap: form.rollAlong?.overlap ?? "",
+    };
+  else if (applied.rollAlong)
+    next.rollAlong = {
+      on: true,
+      spreads: String(applied.rollAlong.spreads),
+      overlap: String(applied.rollAlong.overlap),
+    };
+  return next;
 }

@@ -77,6 +77,8 @@ export interface PlanForm {
     /** Site noise for the sources' reach; "" or absent = not stated. */
     noise?: string;
     shots: ShotRow[];
+    /** Roll-along (roll-along.ts) as typed; off or absent = one spread. */
+    rollAlong?: RollAlongRow;
   };
   criteria: {
     minGeophones: string;
@@ -84,6 +86,15 @@ export interface PlanForm {
     pickError: string;
     depthTolerance: string;
   };
+}
+
+/** The roll-along boxes: off keeps what was typed so switching it back on restores it. */
+export interface RollAlongRow {
+  on: boolean;
+  /** Number of spreads along the line. */
+  spreads: string;
+  /** Geophone stations shared by neighbouring spreads. */
+  overlap: string;
 }
 
 export const emptyLayer = (velocity = ""): LayerRow => ({
@@ -147,6 +158,13 @@ export function planToForm(plan: Plan, units: UnitSystem): PlanForm {
           : {}),
         ...(shot.source ? { source: shot.source } : {}),
       })),
+      rollAlong: plan.spread.rollAlong
+        ? {
+            on: true,
+            spreads: String(plan.spread.rollAlong.spreads),
+            overlap: String(plan.spread.rollAlong.overlap),
+          }
+        : { on: false, spreads: "", overlap: "" },
     },
     criteria: {
       minGeophones: String(plan.criteria.minGeophones),
@@ -285,6 +303,14 @@ export function formToPlanInput(
         if (depth !== undefined && depth !== 0) out.depth = depth;
         return out;
       }),
+      ...(form.spread.rollAlong?.on
+        ? {
+            rollAlong: {
+              spreads: required(parseInput("count", form.spread.rollAlong.spreads, units)),
+              overlap: required(parseInput("count", form.spread.rollAlong.overlap, units)),
+            },
+          }
+        : {}),
     },
     criteria: {
       minGeophones: required(parseInput("count", form.criteria.minGeophones, units)),

@@ -1,15 +1,16 @@
 import { useState } from "react";
 import { Button } from "@/components/button";
 import type { UnitSystem } from "@/lib/units";
-import type { AppliedSpread } from "../../lib/apply-recommendation";
-import { applyChoices } from "../../lib/apply-choices";
+import { applyChoices, type AppliedChoice, type ApplyOption } from "../../lib/apply-choices";
 import type { Spread } from "../../lib/engine";
 import { useSeismographChannels } from "../../hooks/use-seismograph-channels";
 import { formatQuantity } from "@/lib/units";
 
 /**
  * Apply the recommendation in one of three ways (keep spacing, keep spread length, keep
- * channel count), each with its one-line consequence and any practical flags.
+ * channel count), each with its one-line consequence and any practical flags. An option that
+ * needs more channels than the seismograph records is offered again as roll-along: spreads of
+ * the seismograph's channel count along the same line.
  */
 export function ApplyChoicesPanel({
   spread,
@@ -22,7 +23,7 @@ export function ApplyChoicesPanel({
   recommendation: { maxSpacing: number | null; spreadLength: number };
   units: UnitSystem;
   current: boolean;
-  onApply: (spread: AppliedSpread) => void;
+  onApply: (spread: AppliedChoice) => void;
 }) {
   const [channels, setChannels] = useSeismographChannels();
   const [typed, setTyped] = useState<string | null>(null);
@@ -31,25 +32,17 @@ export function ApplyChoicesPanel({
     <div className="mt-2">
       <ul className="flex flex-col gap-2" aria-label="Ways to apply">
         {options.map((o) => (
-          <li key={o.choice} className="flex flex-wrap items-start gap-x-3 gap-y-1">
-            <Button
-              variant="secondary"
-              className="px-2.5! py-1! text-xs!"
-              onClick={() => onApply({ spacing: o.spacing, channels: o.channels, shots: o.shots })}
-              disabled={!current || o.unchanged}
-              aria-describedby={`apply-${o.choice}`}
-            >
-              {o.title}: {formatQuantity("length", o.spacing, units)} × {o.channels}
-            </Button>
-            <span id={`apply-${o.choice}`} className="min-w-0 flex-1 text-xs text-ink-soft">
-              {o.unchanged ? "The spread already is this. " : ""}
-              {o.consequence}
-              {o.flags.map((f) => (
-                <span key={f} role="note" className="block font-medium text-brick">
-                  ⚠ {f}
-                </span>
-              ))}
-            </span>
+          <li key={o.choice} className="flex flex-col gap-1">
+            <ApplyRow option={o} id={`apply-${o.choice}`} {...{ units, current, onApply }} />
+            {o.asRollAlong ? (
+              <div className="ml-4 border-l-2 border-rule pl-3">
+                <ApplyRow
+                  option={o.asRollAlong}
+                  id={`apply-${o.choice}-roll`}
+                  {...{ units, current, onApply }}
+                />
+              </div>
+            ) : null}
           </li>
         ))}
       </ul>
@@ -67,6 +60,51 @@ export function ApplyChoicesPanel({
           onBlur={() => setTyped(null)}
         />
       </label>
+    </div>
+  );
+}
+
+function ApplyRow({
+  option: o,
+  id,
+  units,
+  current,
+  onApply,
+}: {
+  option: ApplyOption;
+  id: string;
+  units: UnitSystem;
+  current: boolean;
+  onApply: (spread: AppliedChoice) => void;
+}) {
+  return (
+    <div className="flex flex-wrap items-start gap-x-3 gap-y-1">
+      <Button
+        variant="secondary"
+        className="px-2.5! py-1! text-xs!"
+        onClick={() =>
+          onApply({
+            spacing: o.spacing,
+            channels: o.channels,
+            shots: o.shots,
+            rollAlong: o.rollAlong,
+          })
+        }
+        disabled={!current || o.unchanged}
+        aria-describedby={id}
+      >
+        {o.title}: {formatQuantity("length", o.spacing, units)} ×{" "}
+        {o.rollAlong ? `${o.rollAlong.spreads} × ${o.channels}` : o.channels}
+      </Button>
+      <span id={id} className="min-w-0 flex-1 text-xs text-ink-soft">
+        {o.unchanged ? "The spread already is this. " : ""}
+        {o.consequence}
+        {o.flags.map((f) => (
+          <span key={f} role="note" className="block font-medium text-brick">
+            ⚠ {f}
+          </span>
+        ))}
+      </span>
     </div>
   );
 }

@@ -9,13 +9,14 @@ import { Button } from "@/components/button";
 import { ErrorBoundary } from "@/components/error-boundary";
 import { Card, ErrorNotice, Loading, Notice } from "@/components/feedback";
 import { paths } from "@/app/paths";
-import { formatInput, type UnitSystem } from "@/lib/units";
+import type { UnitSystem } from "@/lib/units";
 import { planQueryOptions, usePlan } from "../../api/get-plan";
 import { isRevisionConflict, useSavePlan } from "../../api/save-plan";
 import { useCreatePlan } from "../../api/create-plan";
 import { useDuplicatePlan } from "../../api/duplicate-plan";
 import { exactValues, planFormResolver, planToForm, type PlanForm } from "../../lib/plan-form";
-import type { AppliedSpread } from "../../lib/apply-recommendation";
+import { appliedFormSpread, type AppliedChoice } from "../../lib/apply-choices";
+import { shownSpreadParam } from "../../lib/roll-along-view";
 import { useLivePlan } from "../../hooks/use-live-plan";
 import { useSaveShortcut } from "../../hooks/use-save-shortcut";
 import { usePlanHistory } from "../../hooks/use-plan-history";
@@ -106,7 +107,7 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
   }, [trigger]);
   useEffect(() => () => clearTimeout(markTimer.current), []);
   const livePlan = useLivePlan(form, units, baseline.name, exact, markAll);
-  const analysis = usePlanAnalysis(livePlan);
+  const analysis = usePlanAnalysis(livePlan, { spread: shownSpreadParam(search) });
   // The printed record of the inputs exists only while printing (the form is not printed).
   const printing = usePrintMedia();
 
@@ -142,13 +143,10 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
   const history = usePlanHistory(form, !readOnly);
 
   const applyRecommendation = useCallback(
-    (spread: AppliedSpread) => {
-      const opts = { shouldDirty: true, shouldValidate: true };
-      form.setValue("spread.spacing", formatInput("length", spread.spacing, units), opts);
-      form.setValue("spread.channels", String(spread.channels), opts);
-      spread.shots.forEach((position, i) =>
-        form.setValue(`spread.shots.${i}.position`, formatInput("length", position, units), opts),
-      );
+    (spread: AppliedChoice) => {
+      // One value, so Apply (spacing, channels, shots, roll-along) is one undo step.
+      const next = appliedFormSpread(form.getValues("spread"), spread, units);
+      form.setValue("spread", next, { shouldDirty: true, shouldValidate: true });
     },
     [form, units],
   );

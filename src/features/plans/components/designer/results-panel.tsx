@@ -8,6 +8,8 @@ import type { AppliedSpread } from "../../lib/apply-recommendation";
 import { VerdictBadge } from "../verdict-badge";
 import { ArrivalsPanel } from "./arrivals-panel";
 import { SectionPanel } from "./section-panel";
+import { RollAlongTable } from "./roll-along-panel";
+import { chartPlan } from "../../lib/roll-along-view";
 import { ResolvabilityPanel } from "./resolvability-panel";
 import { useLateFlag } from "../../hooks/use-late-flag";
 import { isSectionAnalysis } from "@engine";
@@ -44,7 +46,9 @@ export function ResultsPanel({
   const [search, setSearch] = useSearchParams();
   const tab = (TABS.find((t) => t.tab === search.get("panel"))?.tab ?? "arrivals") as Tab;
   const [shotIndex, setShotIndex] = useState(0);
-  const { result, resultInput: plan, current, pending, error } = analysis;
+  const { result, resultInput: typed, current, pending, error } = analysis;
+  // The charts draw the spread the analysis details (roll-along: one spread of the line).
+  const plan = typed && result ? chartPlan(typed, result) : typed;
   // Only an answer that takes a while is shown as "an earlier version" (no flicker per key).
   const outdated = useLateFlag(!current, 200);
   // In print every view is shown, one after the other (the tabs themselves are not printed).
@@ -120,6 +124,7 @@ export function ResultsPanel({
             {shot + 1} at {formatQuantity("length", plan.spread.shots[shot].position, units)}.
           </p>
         ) : null}
+        <RollAlongTable plan={typed ?? plan} analysis={result} units={units} />
         <div className="mb-3 flex flex-wrap items-end justify-between gap-3 border-b border-rule print:hidden">
           <div role="tablist" aria-label="Analysis views" className="flex gap-4">
             {TABS.map((t) => (
@@ -214,7 +219,7 @@ export function ResultsPanel({
           <ErrorBoundary title="The Resolvability table failed to draw">
             {printing ? <PrintHeading>Resolvability</PrintHeading> : null}
             <ResolvabilityPanel
-              plan={plan}
+              plan={typed ?? plan}
               analysis={result}
               model={model}
               modelIndex={modelIndex}

@@ -9,6 +9,7 @@ import { useDesignerSlots } from "../../designer-slots";
 import { AnchorCommentsChip } from "./anchor-comments";
 import { CellInput } from "./cell-input";
 import { SourceReachPanel } from "./source-reach-panel";
+import { RollAlongFields } from "./roll-along-panel";
 import { ANCHOR_CHOICES, anchorChange, rowPosition } from "../../lib/shot-rows";
 import { errorAt } from "./ground-models-panel";
 
@@ -115,6 +116,8 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
           </p>
         ) : null}
       </fieldset>
+
+      <RollAlongFields units={units} />
 
       <fieldset>
         <legend className="mb-2 text-sm font-semibold text-ink">Shots</legend>

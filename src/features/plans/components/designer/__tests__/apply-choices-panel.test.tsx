@@ -48,7 +48,13 @@ describe("ApplyChoicesPanel", () => {
     ).toBeDisabled();
     await userEvent.click(keep);
     // The end shot follows: 34 × 3 + 1.5 = 103.5 m.
-    expect(onApply).toHaveBeenCalledWith({ spacing: 3, channels: 35, shots: [-1.5, 103.5] });
+    // One spread: any roll-along is removed (rollAlong null).
+    expect(onApply).toHaveBeenCalledWith({
+      spacing: 3,
+      channels: 35,
+      shots: [-1.5, 103.5],
+      rollAlong: null,
+    });
   });
 
   it("flags more channels than the team's seismograph and takes a new channel count", async () => {
@@ -69,5 +75,34 @@ describe("ApplyChoicesPanel", () => {
     await userEvent.clear(box);
     await userEvent.type(box, "96");
     await waitFor(() => expect(screen.queryByText(/more than the seismograph/)).toBeNull());
+  });
+
+  it("offers an option beyond the seismograph as roll-along and applies it", async () => {
+    localStorage.clear();
+    const onApply = vi.fn();
+    renderPanel(
+      <ApplyChoicesPanel
+        spread={spread}
+        recommendation={{ maxSpacing: 5, spreadLength: 405 }}
+        units="metric"
+        current
+        onApply={onApply}
+      />,
+    );
+    // 405 m at 3 m → 136 channels; on 48: 3 spreads sharing 2 (default) = 140 stations over
+    // 417 m (by hand).
+    const roll = await screen.findByRole("button", {
+      name: /^Keep spacing \(add channels\), as roll-along: 3\.00 m × 3 × 48$/,
+    });
+    expect(roll).toHaveAccessibleDescription(
+      /^3 spreads of 48 channels, overlapping by 2, 140 stations over 417\.00 m\./,
+    );
+    await userEvent.click(roll);
+    expect(onApply).toHaveBeenCalledWith({
+      spacing: 3,
+      channels: 48,
+      shots: [-1.5, 142.5],
+      rollAlong: { spreads: 3, overlap: 2 },
+    });
   });
 });
