@@ -11,6 +11,7 @@ import { pdfText, reportFonts } from "./fonts";
 import { ink, reportUnits, ReportWriter, type Cell, type ReportUnits } from "./layout";
 import type { PlanReportInput } from "./types";
 import { drawInterpretation } from "./field-interpretation";
+import { drawRollAlongTable } from "./roll-along-table";
 
 /** Section headings, in order (the tests look for them). */
 export const REPORT_SECTIONS = [
@@ -141,6 +142,7 @@ export function renderPlanReport(
   sitePlan(w, input, u);
   groundModels(w, input.document, u);
   spreadSection(w, input.document, u);
+  drawRollAlongTable(w, input.document, input.analysis.ok ? input.analysis.value : null, u.system);
   figures(w, input, u);
   resolvability(w, input, u);
   recommendation(w, input, u);
