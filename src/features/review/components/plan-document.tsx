@@ -4,6 +4,11 @@ import { formatQuantity, type UnitSystem } from "@/lib/units";
 /** The revision's document, read-only: ground models, spread and acceptance criteria. */
 export function PlanDocumentView({ document, units }: { document: Plan; units: UnitSystem }) {
   const { spread, criteria } = document;
+  // A roll-along line's stations (workers/engine/roll-along.ts lineStations; kept out of this chunk).
+  const roll = spread.rollAlong;
+  const stations = roll
+    ? spread.channels + (roll.spreads - 1) * (spread.channels - roll.overlap)
+    : 0;
   return (
     <div className="flex flex-col gap-4 text-sm">
       <div className="grid gap-4 md:grid-cols-2">
@@ -74,6 +79,13 @@ export function PlanDocumentView({ document, units }: { document: Plan; units: U
           label="Spread length"
           value={formatQuantity("length", spread.spacing * (spread.channels - 1), units, 1)}
         />
+        {spread.rollAlong ? (
+          <Fact
+            label="Roll-along"
+            value={`${spread.rollAlong.spreads} spreads of ${spread.channels}, overlap ${spread.rollAlong.overlap}: stations 1–${stations} over ${formatQuantity("length", spread.spacing * (stations - 1), units, 1)}`}
+            wide
+          />
+        ) : null}
         <Fact
           label="Shots"
           value={spread.shots.map((s) => formatQuantity("length", s.position, units, 1)).join(", ")}
