@@ -4,7 +4,13 @@
  */
 import "./zod-jitless";
 import { expose, transfer } from "comlink";
-import { modellerApi, type Plan, type SectionSweepSpec, type SweepSpec } from "./engine";
+import {
+  modellerApi,
+  type Plan,
+  type SectionModelAnalysis,
+  type SectionSweepSpec,
+  type SweepSpec,
+} from "./engine";
 import { readSectionOfPlan, type SectionReadingOptions } from "./field/section-reading";
 
 function buffersOf(value: unknown, out: ArrayBuffer[] = []): ArrayBuffer[] {
@@ -34,9 +40,17 @@ const api = {
     const result = modellerApi.runSectionSweep(plan, spec, onProgress);
     return transfer(result, buffersOf(result));
   },
-  /** The crew's reading of a section model by the reciprocal methods (plain JSON). */
-  sectionReading(plan: Plan, modelIndex: number, options?: SectionReadingOptions) {
-    return readSectionOfPlan(plan, modelIndex, options);
+  /**
+   * The crew's reading of a section model by the reciprocal methods (plain JSON), from the
+   * analysis' arrivals when the page passes them (no second analysis).
+   */
+  sectionReading(
+    plan: Plan,
+    modelIndex: number,
+    options?: SectionReadingOptions,
+    analysis?: Pick<SectionModelAnalysis, "arrivals">,
+  ) {
+    return readSectionOfPlan(plan, modelIndex, options, analysis);
   },
 };
 

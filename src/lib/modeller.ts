@@ -17,6 +17,7 @@ import type {
   Plan,
   PlanAnalysis,
   RayPath,
+  SectionModelAnalysis,
   SectionShotField,
   SectionSweepResult,
   SectionSweepSpec,
@@ -88,6 +89,8 @@ export interface Modeller {
     plan: Plan,
     modelIndex: number,
     options?: { grm?: boolean },
+    /** The model's analysis already made (its arrivals are read; no second analysis). */
+    analysis?: Pick<SectionModelAnalysis, "arrivals">,
   ): Promise<SectionReading>;
   /**
    * Section design sweep in its own worker; a new one supersedes (ends) a running one, and
@@ -319,11 +322,16 @@ export function createModeller(options: ModellerOptions = {}): Modeller {
           ? (quickApi().sectionShotField(plan, modelIndex, shot) as Promise<SectionShotField>)
           : local((e) => e.sectionShotField(plan, modelIndex, shot)),
       ),
-    sectionReading: (plan, modelIndex, options) =>
+    sectionReading: (plan, modelIndex, options, analysis) =>
       latestOnly("sectionReading", () =>
         factory
-          ? (quickApi().sectionReading(plan, modelIndex, options) as Promise<SectionReading>)
-          : local((e) => e.readSectionOfPlan(plan, modelIndex, options)),
+          ? (quickApi().sectionReading(
+              plan,
+              modelIndex,
+              options,
+              analysis && { arrivals: analysis.arrivals },
+            ) as Promise<SectionReading>)
+          : local((e) => e.readSectionOfPlan(plan, modelIndex, options, analysis)),
       ),
     sectionSweep,
     analyze: (plan, options) =>

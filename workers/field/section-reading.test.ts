@@ -101,6 +101,38 @@ describe("sectionReading", () => {
     expect(trueTopAt(model, 2, 27.5)).toBeCloseTo(GROUND - 5 - (6 * 7.5) / 15, 9);
   });
 
+  it("reads from the analysis' arrivals when given them, as from a fresh analysis", () => {
+    const plan = planWith([
+      [-25, GROUND - 5],
+      [30, GROUND - 8],
+      [95, GROUND - 5],
+    ]);
+    const model = plan.models[0] as SectionModel;
+    const analysis = analyzeSection(model, 0, plan.spread, plan.criteria);
+    expect(readSectionOfPlan(plan, 0, {}, analysis)).toEqual(readSectionOfPlan(plan, 0));
+  });
+
+  it("uses the arrivals it is given instead of analysing the model again", () => {
+    const plan = planWith([
+      [-25, GROUND - 5],
+      [95, GROUND - 5],
+    ]);
+    const model = plan.models[0] as SectionModel;
+    const analysis = analyzeSection(model, 0, plan.spread, plan.criteria);
+    // every arrival 4 ms later than modelled: the plus-minus depths come out deeper
+    const late = {
+      arrivals: analysis.arrivals.map((s) => ({
+        ...s,
+        geophones: s.geophones.map((g) => ({ ...g, time: g.time + 0.004 })),
+      })),
+    };
+    const depth = (r: ReturnType<typeof readSectionOfPlan>) =>
+      r.readings[0].interfaces.find((i) => i.layer === 2)!.points[0].depth;
+    expect(depth(readSectionOfPlan(plan, 0, {}, late))).toBeGreaterThan(
+      depth(readSectionOfPlan(plan, 0)) + 0.1,
+    );
+  });
+
   it("rejects a model that is not a section", () => {
     const plan = planWith([
       [-25, 95],

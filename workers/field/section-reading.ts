@@ -188,18 +188,20 @@ export function sectionReading(
 }
 
 /**
- * Analyses a plan's section model and reads it (the worker's entry point).
+ * Reads a plan's section model (the worker's entry point): from `analysis`, the model's
+ * analysis already made (the page has it), or else analysing the model first.
  * @throws RangeError when the model is not a section model
  */
 export function readSectionOfPlan(
   plan: Plan,
   modelIndex: number,
   options: SectionReadingOptions = {},
+  analysis?: Pick<SectionModelAnalysis, "arrivals">,
 ): SectionReading {
   const model = plan.models[modelIndex];
   if (!model || model.kind !== "section") {
     throw new RangeError(`model ${modelIndex + 1} is not a section model`);
   }
-  const analysis = analyzeSection(model, modelIndex, plan.spread, plan.criteria);
-  return sectionReading(plan, modelIndex, analysis, options);
+  const arrivals = analysis ?? analyzeSection(model, modelIndex, plan.spread, plan.criteria);
+  return sectionReading(plan, modelIndex, arrivals, options);
 }

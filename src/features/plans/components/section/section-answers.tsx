@@ -369,10 +369,11 @@ export function SectionAnswerFigure({
     rays ? `${objectId(plan)}:${modelIndex}:${shotIndex}` : null,
     (r) => modeller().sectionField(r.plan, r.modelIndex, r.shotIndex),
   );
+  // read from the arrivals of the analysis on the page, not a second analysis in the worker
   const reading = useLatestResult(
-    interpreted ? { plan, modelIndex } : null,
-    interpreted ? `${objectId(plan)}:${modelIndex}:reading` : null,
-    async (r) => modeller().sectionReading(r.plan, r.modelIndex),
+    interpreted ? { plan, modelIndex, analysis } : null,
+    interpreted ? `${objectId(plan)}:${objectId(analysis)}:${modelIndex}:reading` : null,
+    async (r) => modeller().sectionReading(r.plan, r.modelIndex, undefined, r.analysis),
   );
   const plusMinus =
     interpreted && reading.result && reading.current

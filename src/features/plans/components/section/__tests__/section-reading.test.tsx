@@ -89,10 +89,12 @@ describe("the crew's plus-minus reading on the section", () => {
 
   it("draws the reading dashed with its legend entry and the worst-error line", async () => {
     const asked: number[] = [];
+    const given: unknown[] = [];
     setModeller({
       sectionField: () => new Promise(() => {}),
-      sectionReading: (_p: Plan, m: number) => {
+      sectionReading: (_p: Plan, m: number, _o: unknown, a: { arrivals: unknown }) => {
         asked.push(m);
+        given.push(a?.arrivals);
         return Promise.resolve(reading);
       },
     } as unknown as ModellerClient);
@@ -110,6 +112,8 @@ describe("the crew's plus-minus reading on the section", () => {
       await screen.findByText(/Worst depth error of a plus-minus reading/),
     ).toBeInTheDocument();
     expect(asked).toEqual([0]);
+    // read from the arrivals already on the page, not a second analysis in the worker
+    expect(given).toEqual([analysis.arrivals]);
     expect(screen.getByText("crew's reading: plus-minus")).toBeInTheDocument();
     const overlay = document.querySelector('g[aria-label="Crew\'s reading: plus-minus"]');
     expect(overlay).not.toBeNull();
