@@ -2,9 +2,11 @@
  * Command line: analyse a plan file and print the analysis as JSON.
  *
  *   npm run --silent analyze -- FILE.json     (FILE "-" reads standard input)
+ *   npm run --silent analyze -- --spread 3 FILE.json   (roll-along: spread 3 in detail)
  *
  * Exit 0 with the analysis (exactly analyzePlan's output, the same object the worker
- * returns) on stdout. Invalid input (unreadable file, bad JSON, a bad field) prints one line
+ * returns) on stdout; a roll-along plan adds `rollAlong` (every spread's verdict), and
+ * `--spread N` picks the spread whose details `models` give (analyzePlan's `spread` option). Invalid input (unreadable file, bad JSON, a bad field) prints one line
  * per problem naming the field (or the line and column of bad JSON) on stderr and exits 2.
  * An unexpected internal error exits 1.
  */
@@ -20,7 +22,9 @@ export interface CliIo {
   readStdin(): Promise<string>;
 }
 
-const USAGE = "usage: npm run --silent analyze -- FILE.json   (FILE - reads standard input)";
+const USAGE =
+  "usage: npm run --silent analyze -- [--spread N] FILE.json   (FILE - reads standard input; " +
+  "--spread N shows spread N of a roll-along line in detail)";
 
 /** Line and column (1-based) of a character offset in a text. */
 export function lineColumn(text: string, offset: number): { line: number; column: number } {
@@ -137,7 +141,19 @@ export function describeJsonError(text: string, error: unknown): string {
 }
 
 /** Run the command with its arguments (after `--`); resolves to the exit code. */
-export async function runAnalyzeCli(args: string[], io: CliIo): Promise<number> {
+export async function runAnalyzeCli(argv: string[], io: CliIo): Promise<number> {
+  const args = [...argv];
+  let spread: number | undefined;
+  const at = args.indexOf("--spread");
+  if (at >= 0) {
+    const value = args[at + 1] ?? "";
+    if (!/^[1-9]\d*$/.test(value)) {
+      io.stderr(`--spread: give the spread of the roll-along line as a whole number from 1\n`);
+      return 2;
+    }
+    spread = Number(value);
+    args.splice(at, 2);
+  }
   if (args.length !== 1 || args[0] === "--help" || args[0] === "-h") {
     io.stderr(`${USAGE}\n`);
     return 2;
@@ -169,7 +185,8 @@ export async function runAnalyzeCli(args: string[], io: CliIo): Promise<number> 
     return 2;
   }
   try {
-    io.stdout(`${JSON.stringify(analyzePlan(parsed.plan), null, 2)}\n`);
+    const analysis = analyzePlan(parsed.plan, spread === undefined ? {} : { spread });
+    io.stdout(`${JSON.stringify(analysis, null, 2)}\n`);
     return 0;
   } catch (error) {
     io.stderr(

@@ -38,6 +38,15 @@ describe("worked examples", () => {
     }
   });
 
+  it("every example the plan format's table names exists and analyses (exit 0)", async () => {
+    const named = namedExamples("docs/plan-format.md");
+    expect(named).toContain("roll-along.json");
+    for (const name of named) {
+      const { code, err } = await run(`docs/examples/${name}`);
+      expect({ name, code, err }).toEqual({ name, code: 0, err: [] });
+    }
+  }, 60_000);
+
   it("the thin layer is under-sampled at 4 m spacing, as the closed forms say", async () => {
     const plan = JSON.parse(readFileSync(`${root}docs/examples/thin-layer.json`, "utf8"));
     const [l1, l2, l3] = plan.models[0].layers as Array<{ velocity: number; thickness?: number }>;
