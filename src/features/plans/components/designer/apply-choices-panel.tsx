@@ -96,7 +96,7 @@ function ApplyRow({
         {o.title}: {formatQuantity("length", o.spacing, units)} ×{" "}
         {o.rollAlong ? `${o.rollAlong.spreads} × ${o.channels}` : o.channels}
       </Button>
-      <span id={id} className="min-w-0 flex-1 text-xs text-ink-soft">
+      <span id={id} className="min-w-0 grow basis-48 text-xs text-ink-soft">
         {o.unchanged ? "The spread already is this. " : ""}
         {o.consequence}
         {o.flags.map((f) => (

@@ -144,8 +144,8 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
             </Button>
           </div>
         ) : null}
-        <table className="w-full text-sm">
-          <thead className="text-left text-xs tracking-wide text-ink-soft uppercase">
+        <table className="w-full text-sm max-sm:block">
+          <thead className="text-left text-xs tracking-wide text-ink-soft uppercase max-sm:hidden">
             <tr className="border-b border-rule">
               <th scope="col" className="w-8 py-1.5 font-semibold">
                 #
@@ -166,13 +166,18 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
               </th>
             </tr>
           </thead>
-          <tbody>
+          <tbody className="max-sm:block">
             {shots.fields.map((field, i) => {
               const f = figures?.shots[i];
               return (
-                <tr key={field.id} className="border-b border-rule/60 align-top">
-                  <td className="py-1.5 pt-2.5 font-mono text-xs text-ink-soft">{i + 1}</td>
-                  <td className="py-1.5 pr-2">
+                <tr
+                  key={field.id}
+                  className="border-b border-rule/60 align-top max-sm:grid max-sm:grid-cols-[1.25rem_minmax(0,1fr)_auto] max-sm:gap-x-2 max-sm:gap-y-1 max-sm:py-2"
+                >
+                  <td className="py-1.5 pt-2.5 font-mono text-xs text-ink-soft max-sm:p-0 max-sm:pt-1.5">
+                    {i + 1}
+                  </td>
+                  <td className="py-1.5 pr-2 max-sm:p-0">
                     <div className="flex items-start gap-1">
                       <select
                         aria-label={`Shot ${i + 1} placed`}
@@ -223,7 +228,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                       </span>
                     ) : null}
                   </td>
-                  <td className="py-1.5 pr-2">
+                  <td className="py-1.5 pr-2 max-sm:col-start-2 max-sm:p-0">
                     <CellInput
                       label={`Shot ${i + 1} label`}
                       className="font-sans!"
@@ -231,7 +236,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                       {...register(`spread.shots.${i}.label`)}
                     />
                   </td>
-                  <td className="py-1.5 pr-2 pt-2 font-mono text-xs text-ink-soft">
+                  <td className="py-1.5 pt-2 pr-2 font-mono text-xs text-ink-soft max-sm:col-start-2 max-sm:p-0">
                     {f && Number.isFinite(f.position) ? (
                       <>
                         {formatQuantity("length", f.nearestOffset, units)} to{" "}
@@ -246,7 +251,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                       "—"
                     )}
                   </td>
-                  <td className="py-1.5">
+                  <td className="py-1.5 max-sm:col-start-3 max-sm:row-start-1 max-sm:p-0">
                     <div className="flex justify-end gap-1">
                       <AnchorCommentsChip
                         anchor={{ kind: "shot", model: 0, index: i }}
@@ -259,7 +264,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                           title={`Remove shot ${i + 1}`}
                           disabled={shots.fields.length <= 1}
                           onClick={() => shots.remove(i)}
-                          className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40"
+                          className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40 max-sm:h-9 max-sm:w-9"
                         >
                           ✕
                         </button>
