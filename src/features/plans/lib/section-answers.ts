@@ -183,6 +183,28 @@ export interface FeatureBand {
   leader: { x1: number; y1: number; x2: number; y2: number };
 }
 
+/** Boxes `step` px long covering a stroke `half` px either side of a path (M/L only), px. */
+function pathPieces(path: string, step: number, half: number) {
+  const pts = [...path.matchAll(/[ML](-?[\d.]+),(-?[\d.]+)/g)].map((m) => [+m[1], +m[2]]);
+  const out: Array<{ x0: number; x1: number; y0: number; y1: number }> = [];
+  for (let i = 0; i + 1 < pts.length; i++) {
+    const [ax, ay] = pts[i];
+    const [bx, by] = pts[i + 1];
+    const n = Math.max(1, Math.ceil(Math.hypot(bx - ax, by - ay) / step));
+    for (let k = 0; k < n; k++) {
+      const [x0, y0] = [ax + ((bx - ax) * k) / n, ay + ((by - ay) * k) / n];
+      const [x1, y1] = [ax + ((bx - ax) * (k + 1)) / n, ay + ((by - ay) * (k + 1)) / n];
+      out.push({
+        x0: Math.min(x0, x1),
+        x1: Math.max(x0, x1),
+        y0: Math.min(y0, y1) - half,
+        y1: Math.max(y0, y1) + half,
+      });
+    }
+  }
+  return out;
+}
+
 /** The screen box of a band drawn along a path (13 px wide stroke), px. */
 function bandBox(path: string) {
   const pts = [...path.matchAll(/[ML](-?[\d.]+),(-?[\d.]+)/g)].map((m) => [+m[1], +m[2]]);
@@ -287,7 +309,12 @@ export function featureBands(
       width: b.label.text.length * charPx,
       height: 12,
     })),
-    [...placed.map((p) => ({ x0: p.x0, x1: p.x1, y0: p.y - 11, y1: p.y + 3 })), ...bandBoxes],
+    [
+      ...placed.map((p) => ({ x0: p.x0, x1: p.x1, y0: p.y - 11, y1: p.y + 3 })),
+      ...bandBoxes,
+      // the branch rows' bands, in short pieces, so a label does not sit on one
+      ...avoid.flatMap((m) => pathPieces(m.path, 12, 2.5)),
+    ],
     { left: left + 2, right: right - 2, top: 2, bottom: view.height - view.margin.bottom - 2 },
   );
   out.forEach((band, i) => {
