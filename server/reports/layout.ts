@@ -3,7 +3,7 @@
  * key–value lists and tables that break across pages, with Spreadsight's colours.
  */
 import type PDFDocument from "pdfkit";
-import { localiseMessage, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
+import { toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import { pdfText, type ReportFonts } from "./fonts";
 
 type Doc = InstanceType<typeof PDFDocument>;
@@ -43,7 +43,7 @@ export interface ReportUnits {
   vel(v: number | null | undefined): string;
   /** A velocity with its unit: "1500 m/s", "4921 ft/s". */
   velU(v: number | null | undefined): string;
-  /** A message of the engine (SI figures) with the reader's figures beside them. */
+  /** A message of the engine (SI figures) with its lengths and velocities in the reader's unit. */
   text(message: string): string;
 }
 
@@ -78,7 +78,15 @@ export function reportUnits(system: UnitSystem = "metric"): ReportUnits {
       const text = vel(v);
       return text === "–" ? text : `${text} ${velocity}`;
     },
-    text: (message) => (system === "metric" ? message : localiseMessage(message, system)),
+    // "18 m (19 m offset)" → "59.06 ft (62.34 ft offset)": the SI figure replaced, not doubled.
+    text: (message) =>
+      system === "metric"
+        ? message
+        : message.replace(/(-?\d+(?:\.\d+)?) (m\/s|m)\b/g, (_, value: string, unit: string) =>
+            unit === "m/s"
+              ? `${vel(Number(value))} ${velocity}`
+              : `${len(Number(value))} ${length}`,
+          ),
   };
 }
 

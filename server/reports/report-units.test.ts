@@ -146,9 +146,9 @@ describe("report text in the reader's units", () => {
     expect(lines.join("\n")).toContain("Geophone (m) | Depth (m)");
   });
 
-  it("adds the feet figure beside an engine message's metres", () => {
-    expect(reportUnits("imperial").text("offset 12 m, 1500 m/s")).toBe(
-      "offset 12 m (39.37 ft), 1500 m/s (4921 ft/s)",
+  it("writes an engine message's metres in feet for a feet reader", () => {
+    expect(reportUnits("imperial").text("geophone 18 m (19 m offset), 1500 m/s, 5 ms")).toBe(
+      "geophone 59.06 ft (62.34 ft offset), 4921 ft/s, 5 ms",
     );
     expect(reportUnits("metric").text("offset 12 m")).toBe("offset 12 m");
   });

@@ -315,4 +315,65 @@ describe("Field check in the browser", () => {
     );
     expect(lines.length).toBeGreaterThan(5);
   });
+
+  it("shows a lead who prefers feet the Field check and the report in ft and ft/s", async () => {
+    const { page } = browser;
+    const setUnits = async (units: "metric" | "imperial") => {
+      const response = await page.request.fetch(`${app.url}/api/me/preferences`, {
+        method: "PUT",
+        headers: { Origin: app.url, "Content-Type": "application/json" },
+        data: JSON.stringify({ units }),
+      });
+      expect(response.status()).toBeLessThan(300);
+    };
+    await setUnits("imperial");
+    try {
+      await page.goto(`${app.url}/plans/${planId}/field`);
+      await page.getByTestId("td-chart").getByText("position along the line (ft)").waitFor();
+      await page.getByText("geophone position (ft)").waitFor();
+      // Geophones 0–46 m (docs/examples/two-layer-simple.json) = 0–150.9 ft (1 ft = 0.3048 m):
+      // the residual chart's axis is numbered in round feet up to past 100 ft.
+      const xTicks = (
+        await page.getByTestId("residual-x-ticks").locator("text").allTextContents()
+      ).map((t) => Number(t.replace("−", "-")));
+      expect(xTicks.length).toBeGreaterThanOrEqual(3);
+      expect(Math.max(...xTicks)).toBeGreaterThan(100);
+      expect(Math.max(...xTicks)).toBeLessThan(170);
+      // Its residual ticks sit on round ms values through zero.
+      const yTicks = (
+        await page.getByTestId("residual-y-ticks").locator("text").allTextContents()
+      ).map((t) => Number(t.replace("−", "-")));
+      expect(yTicks).toContain(0);
+      const step = yTicks[1] - yTicks[0];
+      for (const t of yTicks) expect(Math.abs(t / step - Math.round(t / step))).toBeLessThan(1e-6);
+      await page.getByRole("heading", { name: /Residuals per geophone/ }).scrollIntoViewIfNeeded();
+      await screenshot(page, "field-check-feet");
+      // The interpretation under the line reads feet too.
+      const table = page.getByRole("table", { name: /Under every geophone/ });
+      await table.waitFor();
+      expect(await table.locator("tbody tr").first().innerText()).toContain("ft");
+
+      // The report follows the preference: the 2 m spacing is 6.56 ft.
+      const report = await page.request.fetch(`${app.url}/api/plans/${planId}/report.pdf`, {
+        headers: { Origin: app.url },
+      });
+      expect(report.status()).toBe(200);
+      const pdfPath = path.join(work, "report-feet.pdf");
+      writeFileSync(pdfPath, await report.body());
+      let text: string;
+      try {
+        text = execFileSync("pdftotext", ["-layout", pdfPath, "-"], { encoding: "utf8" });
+      } catch {
+        console.warn(
+          "pdftotext is not installed (poppler-utils): the report text check is skipped",
+        );
+        return;
+      }
+      expect(text).toContain("6.56 ft spacing");
+      expect(text).toContain("Velocity (ft/s)");
+      expect(text).toContain("Geophone (ft)");
+    } finally {
+      await setUnits("metric");
+    }
+  });
 });

@@ -4,7 +4,7 @@
  * dashed) hung from the same ground, positions and elevations in the user's units.
  */
 import { palette, chartFont } from "@/lib/chart/palette";
-import { formatQuantity, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
+import { formatQuantity, fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import { useMemo } from "react";
 import type { PlanInterpretation } from "../../../../workers/field/index";
 import type { Candidate } from "../lib/comparison";
@@ -97,7 +97,12 @@ export function InterpretedSection({
   const path = (pts: [number, number][]) =>
     pts.map(([x, y], i) => `${i ? "L" : "M"}${sx(x).toFixed(1)},${sy(y).toFixed(1)}`).join("");
   const lenUnit = unitLabel("length", units);
-  const show = (v: number) => Number(toDisplay("length", v, units).toFixed(1));
+  // Ticks at round values of the unit read ([SI m, shown]): 0, 20, 40 ft, not the feet of 0, 5, 10 m.
+  const lengthTicks = (lo: number, hi: number): [number, number][] =>
+    ticks(toDisplay("length", lo, units), toDisplay("length", hi, units)).map((shown) => [
+      fromDisplay("length", shown, units),
+      Number(shown.toFixed(6)),
+    ]);
 
   return (
     <figure className="m-0">
@@ -109,7 +114,7 @@ export function InterpretedSection({
         style={{ fontFamily: chartFont }}
       >
         <rect x={0} y={0} width={W} height={H} fill={palette.card} />
-        {ticks(yBottom, yTop).map((t) => (
+        {lengthTicks(yBottom, yTop).map(([t, shown]) => (
           <g key={`y${t}`}>
             <line x1={M.left} x2={W - M.right} y1={sy(t)} y2={sy(t)} stroke={palette.rule} />
             <text
@@ -119,11 +124,11 @@ export function InterpretedSection({
               textAnchor="end"
               fill={palette.inkSoft}
             >
-              {show(t)}
+              {shown}
             </text>
           </g>
         ))}
-        {ticks(x0, x1).map((t) => (
+        {lengthTicks(x0, x1).map(([t, shown]) => (
           <text
             key={`x${t}`}
             x={sx(t)}
@@ -132,7 +137,7 @@ export function InterpretedSection({
             textAnchor="middle"
             fill={palette.inkSoft}
           >
-            {show(t)}
+            {shown}
           </text>
         ))}
         <text

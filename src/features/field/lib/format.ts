@@ -2,7 +2,7 @@
  * Number formatting of the Field check screen: stored values are SI; lengths and velocities are
  * shown in the user's unit (src/lib/units.ts), times in ms in both systems.
  */
-import { localiseMessage, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
+import { toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type { LineMethod } from "../../../../workers/field/index";
 
 /** "12.3 ms" from seconds; "–" for null. */
@@ -53,11 +53,15 @@ export function speed(v: number | null | undefined, units: UnitSystem): string {
 }
 
 /**
- * A message of the field core, which states lengths and velocities in SI, with the user's figure
- * beside each ("offset 12 m (39.37 ft)"); unchanged for a metric user.
+ * A message of the field core, which states lengths and velocities in SI, in the user's unit:
+ * "geophone 18 m (19 m offset)" reads "geophone 59.1 ft (62.3 ft offset)" for a feet user.
+ * Unchanged for a metric user.
  */
 export function localise(message: string, units: UnitSystem): string {
-  return units === "metric" ? message : localiseMessage(message, units);
+  if (units === "metric") return message;
+  return message.replace(/(-?\d+(?:\.\d+)?) (m\/s|m)\b/g, (_, value: string, unit: string) =>
+    unit === "m/s" ? speed(Number(value), units) : length(Number(value), units),
+  );
 }
 
 /** "± 12 m/s" style uncertainty, empty when unknown. */

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { scaleLinear } from "d3-scale";
 import { lengthTicks, residualScales } from "../td-chart";
-import { length, speed } from "../format";
+import { length, localise, speed } from "../format";
 
 const frame = { width: 600, height: 200, margin: { left: 50, right: 10, top: 10, bottom: 40 } };
 
@@ -42,5 +42,13 @@ describe("field format", () => {
     expect(speed(1500, "imperial")).toBe("4921 ft/s");
     expect(speed(1500, "metric")).toBe("1500 m/s");
     expect(length(null, "metric")).toBe("–");
+  });
+
+  it("writes a field-core message's metres in feet, leaving times alone", () => {
+    // 18 m = 59.06 ft, 19 m = 62.34 ft, 2800 m/s = 9186 ft/s (÷ 0.3048).
+    expect(localise("geophone 18 m (19 m offset) is 7.8 ms late; 2800 m/s", "imperial")).toBe(
+      "geophone 59.1 ft (62.3 ft offset) is 7.8 ms late; 9186 ft/s",
+    );
+    expect(localise("geophone 18 m", "metric")).toBe("geophone 18 m");
   });
 });
