@@ -894,7 +894,7 @@ function analyzeRollAlong(plan: Plan, options: AnalyzeOptions): PlanAnalysis {
       ` Spread${shotless.length === 1 ? "" : "s"} ${listNumbers(shotless)} record${shotless.length === 1 ? "s" : ""} no shot: ` +
       "anchor shots to the spread's ends so that every spread is shot.";
   }
-  text += ` Details below are for spread ${shownPart.index}.`;
+  text += ` The detailed results are for spread ${shownPart.index}.`;
 
   return {
     format: "spreadsight-analysis/1",

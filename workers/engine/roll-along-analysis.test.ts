@@ -119,7 +119,7 @@ describe("analyzePlan with roll-along: a refractor out of reach under spread 3 o
     expect(a.recommendation.text).toMatch(/3 roll-along spreads/);
     expect(a.recommendation.text).toMatch(/stations 1–72 from 0 m to 142 m/);
     expect(a.recommendation.text).toMatch(/worst verdict \(under-sampled\) is on spread 3\./);
-    expect(a.recommendation.text).toMatch(/Details below are for spread 3\./);
+    expect(a.recommendation.text).toMatch(/The detailed results are for spread 3\./);
   });
 });
 
