@@ -409,7 +409,7 @@ function recommendation(w: ReportWriter, input: PlanReportInput, u: ReportUnits)
       ],
       [
         "Offset each branch must reach",
-        `${u.lenU(r.spreadLength, 1)} (${r.lengthOk ? "reached" : "not reached"})`,
+        `${u.lenU(r.spreadLength)} (${r.lengthOk ? "reached" : "not reached"})`,
       ],
     ]);
     for (const hidden of r.hidden) w.callout(u.text(hidden.statement), "hidden");
