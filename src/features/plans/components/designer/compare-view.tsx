@@ -345,7 +345,11 @@ function Comparison({
                 <span className="sr-only">Row</span>
               </th>
               {scenarios.map((s, i) => (
-                <th key={s.key} scope="col" className="py-1.5 pr-3 font-semibold normal-case">
+                <th
+                  key={s.key}
+                  scope="col"
+                  className="py-1.5 pr-3 pl-1.5 font-semibold normal-case"
+                >
                   <span
                     className="mr-1 inline-block h-2 w-2 rounded-full"
                     style={{ background: overlay.lines[i]?.colour }}
@@ -364,7 +368,7 @@ function Comparison({
                 {row.cells.map((c, i) => (
                   <td
                     key={i}
-                    className={`py-2 pr-3 ${c.differs ? "bg-ochre-soft/70 outline-1 -outline-offset-2 outline-ochre" : ""}`}
+                    className={`py-2 pr-3 pl-1.5 ${c.differs ? "bg-ochre-soft/70 outline-1 -outline-offset-2 outline-ochre" : ""}`}
                     data-differs={c.differs ? "true" : undefined}
                   >
                     {c.status && row.key !== "worst" ? <VerdictBadge verdict={c.status} /> : null}

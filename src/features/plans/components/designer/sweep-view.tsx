@@ -213,7 +213,8 @@ function SweepEditor({
 
   return (
     <div className="grid gap-5 xl:grid-cols-[minmax(0,2fr)_minmax(0,5fr)]">
-      <Card>
+      {/* The sweep's settings are a form, not printed; the heatmap's caption names its axes. */}
+      <Card className="print:hidden">
         <h2 className="mb-3 text-lg font-semibold text-ink-deep">Design sweep</h2>
         <form
           noValidate
@@ -465,7 +466,7 @@ function Heatmap({
       <h2 className="mb-1 text-lg font-semibold text-ink-deep">
         {plan.models[modelIndex].name}: verdict over the grid
       </h2>
-      <p className="mb-2 text-sm text-ink-soft">
+      <p className="mb-2 text-sm text-ink-soft print:hidden">
         {mayCopy
           ? "Click a cell (or move with the arrow keys and press Enter) to open a copy of the plan with those values."
           : "Point at a cell to read its verdict and depth error."}
