@@ -91,5 +91,52 @@ describe("roll-along", () => {
     );
     // Station 23 is channel 23 of spread 1 and channel 1 of spread 2, at 66 m.
     expect(geophones[22]).toMatch(/^geophone,23,[^,]*,66,1;2,23;1$/);
+
+    // The Review screen shows the saved roll-along (read only).
+    await page.getByRole("link", { name: "Review", exact: true }).click();
+    await page
+      .getByText("3 spreads of 24, overlap 2: stations 1–68 over 201.0 m", { exact: true })
+      .waitFor();
+    await screenshot(page, "roll-along-review");
+  });
+
+  it("applies an option beyond the seismograph as roll-along, in one undo step", async () => {
+    const { page } = browser;
+    await page.goto(app.url);
+    await page.getByRole("link", { name: "Sites" }).first().click();
+    await page.getByRole("link", { name: SITE }).click();
+    await page.getByRole("heading", { name: "Plans" }).waitFor();
+    await page.getByRole("button", { name: "New plan" }).click();
+    await page.getByLabel("Plan name").fill("Rolling by Apply");
+    await page.getByRole("button", { name: "Create plan" }).click();
+    await page.getByRole("heading", { name: "Rolling by Apply" }).waitFor();
+    await upToDate(page);
+    await page.getByRole("tab", { name: "Spread" }).click();
+    // 30 geophones per segment asks for a spacing of about 0.34 m (the engine's figure), so
+    // following the recommendation at 0.30 m needs more than the team's 48 channels.
+    await page.getByLabel("Minimum geophones per segment").fill("30");
+    await upToDate(page);
+    await page.getByRole("tab", { name: "Resolvability" }).click();
+    const apply = page.getByRole("button", {
+      name: /^Follow the recommendation, as roll-along: 0\.30 m × \d+ spreads of 48$/,
+    });
+    await apply.waitFor();
+    const spreads = Number(/× (\d+) spreads of 48$/.exec((await apply.innerText()).trim())![1]);
+    expect(spreads).toBeGreaterThanOrEqual(2);
+    await screenshot(page, "roll-along-apply");
+    await apply.click();
+    await upToDate(page);
+    const roll = page.getByRole("checkbox", { name: /several spreads/ });
+    expect(await roll.isChecked()).toBe(true);
+    expect(await page.getByLabel("Channels", { exact: true }).inputValue()).toBe("48");
+    expect(await page.getByLabel("Spreads", { exact: true }).inputValue()).toBe(String(spreads));
+    await page.getByText(`Roll-along: ${spreads} spreads`, { exact: false }).first().waitFor();
+
+    // One undo step takes back spacing, channels and the roll-along together.
+    await page.getByRole("button", { name: "↶ Undo" }).click();
+    expect(await page.getByLabel("Channels", { exact: true }).inputValue()).toBe("24");
+    expect(await page.getByLabel("Spacing (m)", { exact: true }).inputValue()).toBe("3");
+    expect(await roll.isChecked()).toBe(false);
+    expect(await page.getByLabel("Minimum geophones per segment").inputValue()).toBe("30");
   });
 });

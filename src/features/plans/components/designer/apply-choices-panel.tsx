@@ -94,7 +94,7 @@ function ApplyRow({
         aria-describedby={id}
       >
         {o.title}: {formatQuantity("length", o.spacing, units)} ×{" "}
-        {o.rollAlong ? `${o.rollAlong.spreads} × ${o.channels}` : o.channels}
+        {o.rollAlong ? `${o.rollAlong.spreads} spreads of ${o.channels}` : o.channels}
       </Button>
       <span id={id} className="min-w-0 grow basis-48 text-xs text-ink-soft">
         {o.unchanged ? "The spread already is this. " : ""}

@@ -92,7 +92,7 @@ describe("ApplyChoicesPanel", () => {
     // 405 m at 3 m → 136 channels; on 48: 3 spreads sharing 2 (default) = 140 stations over
     // 417 m (by hand).
     const roll = await screen.findByRole("button", {
-      name: /^Keep spacing \(add channels\), as roll-along: 3\.00 m × 3 × 48$/,
+      name: /^Keep spacing \(add channels\), as roll-along: 3\.00 m × 3 spreads of 48$/,
     });
     expect(roll).toHaveAccessibleDescription(
       /^3 spreads of 48 channels, overlapping by 2, 140 stations over 417\.00 m\./,
