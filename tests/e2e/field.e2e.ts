@@ -348,6 +348,17 @@ describe("Field check in the browser", () => {
       for (const t of yTicks) expect(Math.abs(t / step - Math.round(t / step))).toBeLessThan(1e-6);
       await page.getByRole("heading", { name: /Residuals per geophone/ }).scrollIntoViewIfNeeded();
       await screenshot(page, "field-check-feet");
+      await page
+        .getByTestId("residual-chart")
+        .screenshot({ path: path.join(screenshotDir, "field-residuals-feet.png") });
+      // The shot record's geophone row is numbered in feet and says so.
+      await page.getByRole("button", { name: "Open" }).first().click();
+      await page.getByTestId("record-section").waitFor();
+      await page.getByRole("option", { name: /ft/ }).first().waitFor({ state: "attached" });
+      await page
+        .getByRole("heading", { name: "Shot record" })
+        .locator("xpath=../../..")
+        .screenshot({ path: path.join(screenshotDir, "field-record-feet.png") });
       // The interpretation under the line reads feet too.
       const table = page.getByRole("table", { name: /Under every geophone/ });
       await table.waitFor();
