@@ -624,6 +624,7 @@ function analyzeModel(
   layout: Layout,
   criteria: Criteria,
   options: AnalyzeOptions,
+  summary = false,
 ): ModelAnalysis {
   const extent = layoutExtent(layout);
   const earth = checkedEarth(model, extent.from, extent.to);
@@ -651,7 +652,7 @@ function analyzeModel(
     segment: segmentOf(primary.pieces, 0),
     geophones: primary.counts[0],
     status: statusFromCode(worstCode(0)),
-    branches: states.map((s) => branchVerdict(layout, s, 0)),
+    branches: summary ? [] : states.map((s) => branchVerdict(layout, s, 0)),
   };
   const thicknesses =
     options.minimumThickness !== false
@@ -675,10 +676,10 @@ function analyzeModel(
       status: statusFromCode(worstCode(m)),
       blindEverywhere: prep.rule[m] === 1 && states.every((s) => s.codes[m] === STATUS_CODE.blind),
       minimumThickness: thicknesses ? thicknesses[m] : null,
-      branches: states.map((s) => branchVerdict(layout, s, m)),
+      branches: summary ? [] : states.map((s) => branchVerdict(layout, s, m)),
     });
   }
-  const interp = interpret(earth, layout, criteria, primary, states);
+  const interp = summary ? null : interpret(earth, layout, criteria, primary, states);
 
   const piecesList = states.map((s) => s.pieces);
   const maxSpacing = maxSpacingFor(piecesList, n, min);
@@ -748,12 +749,17 @@ export function analyzePlan(plan: Plan, options: AnalyzeOptions = {}): PlanAnaly
   };
 }
 
-/** Every model of the plan analysed on one spread (without roll-along). */
+/**
+ * Every model of the plan analysed on one spread (without roll-along). `summary`: a layered
+ * model's verdicts and recommendation only (no branch lists, interpretation or uncertainty),
+ * for the spreads of a roll-along line that are not shown in detail.
+ */
 function analyzeModels(
   plan: Plan,
   spread: Omit<Plan["spread"], "rollAlong">,
   options: AnalyzeOptions,
   reuse: (ModelAnalysis | null)[] = [],
+  summary = false,
 ): ModelAnalysis[] {
   const layout = layoutOf(spread);
   return plan.models.map(
@@ -761,7 +767,7 @@ function analyzeModels(
       reuse[i] ??
       (m.kind === "section"
         ? analyzeSection(m, i, spread, plan.criteria)
-        : analyzeModel(m, i, layout, plan.criteria, options)),
+        : analyzeModel(m, i, layout, plan.criteria, options, summary)),
   );
 }
 
@@ -820,12 +826,13 @@ function analyzeRollAlong(plan: Plan, options: AnalyzeOptions): PlanAnalysis {
     throw new RangeError("spread: the spread to show is a whole number from 1");
   }
   const line = rollAlongLayout(spread);
-  // Minimum thicknesses only for the spread shown in detail: no other figure needs them.
+  // Verdicts and recommendation figures only (no minimum thicknesses, branch lists or
+  // interpretation) for every spread; the spread shown is analysed in full below.
   const quick: AnalyzeOptions = { ...options, minimumThickness: false };
   const perSpread = line.spreads.map((part) => {
     if (part.shots.length === 0) return null;
     try {
-      return analyzeModels(plan, spreadOfLine(spread, part.index, line), quick);
+      return analyzeModels(plan, spreadOfLine(spread, part.index, line), quick, [], true);
     } catch (error) {
       if (error instanceof RangeError)
         throw new RangeError(`spread ${part.index}: ${error.message}`);
@@ -846,15 +853,13 @@ function analyzeRollAlong(plan: Plan, options: AnalyzeOptions): PlanAnalysis {
   const shownPart = line.spreads[shownIndex];
   const shownSpread = spreadOfLine(spread, shownPart.index, line);
   const quickModels = perSpread[shownIndex] as ModelAnalysis[];
-  const models =
-    options.minimumThickness === false
-      ? quickModels
-      : analyzeModels(
-          plan,
-          shownSpread,
-          options,
-          quickModels.map((m) => (isSectionAnalysis(m) ? m : null)),
-        );
+  // Section models are reused (solved once per spread); layered ones are analysed in full.
+  const models = analyzeModels(
+    plan,
+    shownSpread,
+    options,
+    quickModels.map((m) => (isSectionAnalysis(m) ? m : null)),
+  );
 
   const analysed = perSpread.flatMap((m, k) => (m ? [{ k, models: m }] : []));
   const combined = combineModels(
