@@ -7,6 +7,7 @@ import { analyzePlan, type PlanAnalysis } from "./analysis";
 import type { PlanInput } from "./plan-schema";
 import { sectionShotField } from "./section-analysis";
 import { runSweep } from "./sweep";
+import { runSectionSweep } from "./section-sweep";
 import { parsePlan } from "./validate";
 
 function parse(input: unknown) {
@@ -287,6 +288,24 @@ describe("analyzePlan with roll-along: section models", () => {
     expect(ray[0]).toBeCloseTo(47, 6);
     expect(ray[ray.length - 2]).toBeCloseTo(70, 6);
     expect(() => sectionShotField(plan, 0, 0, 4)).toThrow(/no spread 4/);
+  });
+
+  it("sweeps the line's first spread with the shots it records (runSectionSweep)", () => {
+    // a fixed shot at 60 m is nearest spread 3's centre (59 m): spread 1 does not record it
+    const shots = [...input.spread.shots, { position: 60, label: "fixed" }];
+    const spec = {
+      modelIndex: 0,
+      spacings: [2],
+      parameter: { kind: "velocity" as const, layer: 2, values: [2500] },
+    };
+    const rolled = runSectionSweep(parse({ ...input, spread: { ...input.spread, shots } }), spec);
+    const { rollAlong: _roll, ...first } = input.spread;
+    const alone = runSectionSweep(parse({ ...input, spread: first }), spec);
+    expect(Array.from(rolled.status)).toEqual(Array.from(alone.status));
+    expect(Array.from(rolled.depthError)).toEqual(Array.from(alone.depthError));
+    const allShots = runSectionSweep(parse({ ...input, spread: { ...first, shots } }), spec);
+    // recording the far shot on spread 1 would read the channel floor into its depth error
+    expect(Math.abs(allShots.depthError[0] - alone.depthError[0])).toBeGreaterThan(1);
   });
 
   it("refuses a section shorter than the whole line, naming the surface", () => {

@@ -14,6 +14,7 @@ import { sectionIssues } from "./section-schema";
 import type { SectionSweepResult, SectionSweepSpec } from "./section-types";
 import { CELL_INVALID, CELL_NOT_COMPUTED, STATUS_CODE } from "./statuses";
 import type { SweepHooks } from "./sweep";
+import { spreadOfLine } from "./roll-along";
 
 /** Most cells a section sweep may hold (each is a full 2-D analysis). */
 export const MAX_SECTION_SWEEP_CELLS = 400;
@@ -73,6 +74,8 @@ export function runSectionSweep(
   spec: SectionSweepSpec,
   hooks: SweepHooks = {},
 ): SectionSweepResult {
+  // A roll-along line: cells analyse its first spread with the shots it records (as runSweep).
+  if (plan.spread.rollAlong) plan = { ...plan, spread: spreadOfLine(plan.spread, 1) };
   const base = checkSpec(plan, spec);
   const rows = spec.parameter.values.length;
   const cols = spec.spacings.length;
