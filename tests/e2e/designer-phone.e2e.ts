@@ -94,7 +94,7 @@ async function expectNoSidewaysScroll(page: Page, name: string) {
 }
 
 /** The element is shown and lies wholly within the phone's width. */
-async function expectInView(page: Page, locator: ReturnType<Page["locator"]>, what: string) {
+async function expectInView(locator: ReturnType<Page["locator"]>, what: string) {
   const box = await locator.boundingBox();
   expect(box, `${what} is not shown`).not.toBeNull();
   expect(box!.x, `${what} starts left of the screen`).toBeGreaterThanOrEqual(0);
@@ -114,29 +114,28 @@ describe("the designer at 390 px", () => {
     await openDesigner(page, LAYERED);
     await expectNoSidewaysScroll(page, "layered");
     // The header's own controls and the inputs, in view.
-    await expectInView(page, page.getByRole("heading", { level: 1 }), "the plan's name");
-    await expectInView(page, page.getByRole("button", { name: "Save" }), "Save");
-    await expectInView(page, page.getByRole("link", { name: "Field check" }), "Field check");
+    await expectInView(page.getByRole("heading", { level: 1 }), "the plan's name");
+    await expectInView(page.getByRole("button", { name: "Save" }), "Save");
+    await expectInView(page.getByRole("link", { name: "Field check" }), "Field check");
     for (const label of [
       "Layer 2 name",
       "Layer 2 velocity (m/s)",
       "Layer 2 thickness (m)",
       "Layer 2 base dip (degrees)",
     ]) {
-      await expectInView(page, page.getByLabel(label), label);
+      await expectInView(page.getByLabel(label), label);
     }
     const remove = page.getByRole("button", { name: "Remove layer 2" });
-    await expectInView(page, remove, "Remove layer 2");
+    await expectInView(remove, "Remove layer 2");
     const tap = (await remove.boundingBox())!;
     expect(tap.width).toBeGreaterThanOrEqual(TAP);
     expect(tap.height).toBeGreaterThanOrEqual(TAP);
     await expectInView(
-      page,
       page.getByRole("button", { name: "Add layer above the half-space" }),
       "Add layer",
     );
     // The Arrivals chart is drawn to the card's width.
-    await expectInView(page, page.getByRole("img", { name: /^Arrivals, / }), "the Arrivals chart");
+    await expectInView(page.getByRole("img", { name: /^Arrivals, / }), "the Arrivals chart");
   });
 
   it("keeps the layered plan's Section and Resolvability views, verdicts included, on the screen", async () => {
@@ -152,19 +151,15 @@ describe("the designer at 390 px", () => {
     // Each refractor's verdict (the column the issue found cut off) and its depths are in view.
     const rows = table.locator("tbody tr");
     expect(await rows.count()).toBe(4);
-    await expectInView(
-      page,
-      table.locator('tr[data-layer="2"]').getByText("Blind"),
-      "layer 2's verdict",
-    );
+    await expectInView(table.locator('tr[data-layer="2"]').getByText("Blind"), "layer 2's verdict");
     for (let i = 0; i < 4; i++) {
-      await expectInView(page, rows.nth(i).locator("td").first(), `row ${i + 1}'s verdict`);
+      await expectInView(rows.nth(i).locator("td").first(), `row ${i + 1}'s verdict`);
     }
     // The refractors' depths and minimum thickness (the direct wave has none on a phone).
     for (const layer of [2, 3, 4]) {
       const cells = table.locator(`tr[data-layer="${layer}"] td`);
-      await expectInView(page, cells.nth(3), `layer ${layer}'s depths`);
-      await expectInView(page, cells.last(), `layer ${layer}'s minimum thickness`);
+      await expectInView(cells.nth(3), `layer ${layer}'s depths`);
+      await expectInView(cells.last(), `layer ${layer}'s minimum thickness`);
     }
   });
 
@@ -174,27 +169,21 @@ describe("the designer at 390 px", () => {
     await page.getByRole("img", { name: /^Section being edited/ }).waitFor();
     await expectNoSidewaysScroll(page, "section");
     await expectInView(
-      page,
       page.getByRole("img", { name: /^Section being edited/ }),
       "the section being edited",
     );
-    await expectInView(page, page.getByLabel("Layer 2 velocity (m/s)"), "layer 2's velocity");
+    await expectInView(page.getByLabel("Layer 2 velocity (m/s)"), "layer 2's velocity");
     await expectInView(
-      page,
       page.getByLabel("Layer 2 velocity along the line"),
       "layer 2's velocity along the line",
     );
-    await expectInView(
-      page,
-      page.getByLabel("surface point 3 elevation (m)"),
-      "a point's elevation",
-    );
+    await expectInView(page.getByLabel("surface point 3 elevation (m)"), "a point's elevation");
 
     await openDesigner(page, SECTION, "?panel=resolvability");
     const stretches = page.getByRole("table", { name: "Stretches of the top of layer 3" });
     await stretches.waitFor({ timeout: 30_000 });
     await expectNoSidewaysScroll(page, "section-resolvability");
-    await expectInView(page, stretches.getByText("Under-sampled").first(), "a stretch's verdict");
+    await expectInView(stretches.getByText("Under-sampled").first(), "a stretch's verdict");
 
     await openDesigner(page, SECTION, "?panel=section");
     await page
@@ -210,7 +199,7 @@ describe("the designer at 390 px", () => {
     const heatmap = page.getByRole("grid", { name: "Design sweep heatmap" });
     await heatmap.waitFor({ timeout: 90_000 });
     await expectNoSidewaysScroll(page, "sweep");
-    await expectInView(page, heatmap, "the sweep heatmap");
+    await expectInView(heatmap, "the sweep heatmap");
 
     await openDesigner(page, SECTION, "?view=sweep");
     await page.getByRole("button", { name: "Run section sweep" }).click();
@@ -222,7 +211,7 @@ describe("the designer at 390 px", () => {
     const n = await rows.count();
     expect(n).toBeGreaterThanOrEqual(2);
     for (let i = 0; i < n; i++) {
-      await expectInView(page, rows.nth(i).locator("td").last(), `row ${i + 1}'s last cell`);
+      await expectInView(rows.nth(i).locator("td").last(), `row ${i + 1}'s last cell`);
     }
   });
 
@@ -232,7 +221,7 @@ describe("the designer at 390 px", () => {
     const table = page.getByRole("table", { name: "Verdicts and depth errors side by side" });
     await table.waitFor({ timeout: 30_000 });
     await expectNoSidewaysScroll(page, "compare");
-    await expectInView(page, table.locator("thead th").last(), "the last scenario's column");
+    await expectInView(table.locator("thead th").last(), "the last scenario's column");
   });
 });
 
