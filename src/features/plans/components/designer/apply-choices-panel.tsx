@@ -29,7 +29,7 @@ export function ApplyChoicesPanel({
   const [typed, setTyped] = useState<string | null>(null);
   const options = applyChoices(spread, recommendation, units, channels);
   return (
-    <div className="mt-2">
+    <div className="mt-2 print:hidden">
       <ul className="flex flex-col gap-2" aria-label="Ways to apply">
         {options.map((o) => (
           <li key={o.choice} className="flex flex-col gap-1">
