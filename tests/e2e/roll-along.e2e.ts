@@ -67,6 +67,16 @@ describe("roll-along", () => {
     expect(page.url()).toContain("spread=2");
     await screenshot(page, "roll-along-designer");
 
+    // On a 390 px phone the table stacks: nothing of it lies past the screen's edge.
+    await page.setViewportSize({ width: 390, height: 844 });
+    await table.scrollIntoViewIfNeeded();
+    const widest = await table.evaluate((el) =>
+      Math.max(...Array.from(el.querySelectorAll("*")).map((e) => e.getBoundingClientRect().right)),
+    );
+    expect(widest).toBeLessThanOrEqual(390);
+    await table.screenshot({ path: "tests/e2e/screenshots/roll-along-phone.png" });
+    await page.setViewportSize({ width: 1360, height: 900 });
+
     await page.getByRole("button", { name: "Save" }).click();
     await page.getByText("Saved", { exact: true }).waitFor();
     await page.reload();

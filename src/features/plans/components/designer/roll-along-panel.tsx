@@ -8,6 +8,12 @@ import { DEFAULT_ROLL_ALONG_OVERLAP } from "../../lib/apply-choices";
 import { SHOWN_SPREAD_PARAM, rollAlongRows, typedRollAlongLine } from "../../lib/roll-along-view";
 import { VerdictBadge } from "../verdict-badge";
 import { errorAt } from "./ground-models-panel";
+import { PhoneLabel } from "./cell-input";
+
+/** A table row on a phone: the spread across the top, the values two by two under it. */
+const PHONE_ROW = "max-sm:grid max-sm:grid-cols-2 max-sm:gap-x-3 max-sm:gap-y-1 max-sm:py-1.5";
+const PHONE_HEAD = "max-sm:col-span-2 max-sm:p-0";
+const PHONE_CELL = "max-sm:p-0 max-sm:text-left max-sm:whitespace-normal";
 
 /**
  * Roll-along boxes of the Spread panel: off by default; on, the number of spreads and the
@@ -136,9 +142,9 @@ export function RollAlongTable({
           </label>
         ) : null}
       </div>
-      <div className="overflow-x-auto">
-        <table className="w-full text-xs">
-          <thead className="text-left tracking-wide text-ink-soft uppercase">
+      <div className="sm:overflow-x-auto">
+        <table className="w-full text-xs max-sm:block">
+          <thead className="text-left tracking-wide text-ink-soft uppercase max-sm:hidden">
             <tr className="border-b border-rule">
               <th scope="col" className="py-1 pr-2 font-semibold">
                 Spread
@@ -159,31 +165,39 @@ export function RollAlongTable({
               ) : null}
             </tr>
           </thead>
-          <tbody>
+          <tbody className="max-sm:block">
             {rows.map((r) => (
               <tr
                 key={r.index}
-                className={`border-b border-rule/60 align-top ${
+                className={`border-b border-rule/60 align-top ${PHONE_ROW} ${
                   roll?.shown === r.index ? "bg-paper-deep" : ""
                 }`}
                 aria-current={roll?.shown === r.index ? "true" : undefined}
               >
-                <th scope="row" className="py-1 pr-2 text-left font-mono font-medium">
+                <th
+                  scope="row"
+                  className={`py-1 pr-2 text-left font-mono font-medium ${PHONE_HEAD}`}
+                >
+                  <span className="sm:hidden">Spread </span>
                   {r.index}
                 </th>
-                <td className="py-1 pr-2 font-mono whitespace-nowrap">
+                <td className={`py-1 pr-2 font-mono whitespace-nowrap ${PHONE_CELL}`}>
+                  <PhoneLabel>Stations</PhoneLabel>
                   {r.firstStation}–{r.lastStation}
                 </td>
-                <td className="py-1 pr-2 font-mono whitespace-nowrap">
+                <td className={`py-1 pr-2 font-mono whitespace-nowrap ${PHONE_CELL}`}>
+                  <PhoneLabel>Geophones</PhoneLabel>
                   {len(r.firstGeophone)} to {len(r.lastGeophone)}
                 </td>
-                <td className="py-1 pr-2">
+                <td className={`py-1 pr-2 ${PHONE_CELL}`}>
+                  <PhoneLabel>Shots it records</PhoneLabel>
                   {r.shots.length === 0
                     ? "none"
                     : r.shots.map((s) => `${s.label} at ${len(s.position)}`).join(", ")}
                 </td>
                 {judged ? (
-                  <td className="py-1">
+                  <td className={`py-1 ${PHONE_CELL}`}>
+                    <PhoneLabel>Verdict</PhoneLabel>
                     {r.worstStatus ? <VerdictBadge verdict={r.worstStatus} /> : "—"}
                   </td>
                 ) : null}
