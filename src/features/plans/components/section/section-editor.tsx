@@ -649,7 +649,7 @@ function PolylineTable({
                       type="button"
                       aria-label={`Add a point after point ${i + 1} of the ${label}`}
                       title="Add a point after this one"
-                      className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40"
+                      className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40 max-sm:h-9 max-sm:w-9"
                       disabled={i === points.length - 1}
                       onClick={() => {
                         const q = points[i + 1];
@@ -666,7 +666,7 @@ function PolylineTable({
                       type="button"
                       aria-label={`Remove point ${i + 1} of the ${label}`}
                       title="Remove this point"
-                      className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40"
+                      className="h-7 w-7 rounded-md border border-rule bg-card text-sm text-ink hover:bg-paper-deep disabled:opacity-40 max-sm:h-9 max-sm:w-9"
                       disabled={points.length <= 2}
                       onClick={() => onChange(points.filter((_, k) => k !== i))}
                     >
