@@ -2,9 +2,9 @@
  * Phone width (issue 14, item 3): at 390 px CSS width (a common phone viewport, common practice)
  * the sign-in page, the site list, a site's plan list, the Review screen, the Team page, Team
  * activity and the inbox scroll only up and down — nothing is wider than the screen, and no
- * table hides columns in a box that scrolls sideways. The
- * designer is being reworked and is not covered here yet. Also: the print stylesheet hides the
- * navigation and buttons on the Review screen and prints on a white page.
+ * table hides columns in a box that scrolls sideways. The designer at this width and in print
+ * is covered by designer-phone.e2e.ts. Also: the print stylesheet hides the navigation and
+ * buttons on the Review screen and prints on a white page.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Page } from "playwright-core";
