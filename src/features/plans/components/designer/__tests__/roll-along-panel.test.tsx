@@ -6,17 +6,18 @@ import { analyzePlan } from "@engine";
 import { planFormResolver, planToForm, type PlanForm } from "../../../lib/plan-form";
 import { threeLayerPlan } from "../../../__tests__/fixtures";
 import type { Plan } from "../../../lib/engine";
+import type { UnitSystem } from "@/lib/units";
 import { RollAlongFields, RollAlongTable } from "../roll-along-panel";
 
-function Fields({ values }: { values: PlanForm }) {
+function Fields({ values, units = "metric" }: { values: PlanForm; units?: UnitSystem }) {
   const form = useForm<PlanForm>({
     defaultValues: values,
     mode: "onChange",
-    resolver: planFormResolver("metric", "t") as never,
+    resolver: planFormResolver(units, "t") as never,
   });
   return (
     <FormProvider {...form}>
-      <RollAlongFields units="metric" />
+      <RollAlongFields units={units} />
     </FormProvider>
   );
 }
@@ -64,6 +65,16 @@ describe("RollAlongFields (light)", () => {
     expect(screen.getByLabelText("Spreads")).toHaveValue("3");
     // 24 + 2 · 20 = 64 stations over 63 · 5 = 315 m (by hand).
     expect(screen.getByText(/64 stations, numbered 1–64, over 315\.00 m/)).toBeVisible();
+  });
+
+  it("gives the line in feet for a user who chose feet", () => {
+    const plan: Plan = {
+      ...threeLayerPlan(),
+      spread: { ...threeLayerPlan().spread, rollAlong: { spreads: 3, overlap: 4 } },
+    };
+    render(<Fields values={planToForm(plan, "imperial")} units="imperial" />);
+    // From the boxes as shown: 5 m reads 16.40 ft, and 63 · 16.40 = 1,033.20 ft (by hand).
+    expect(screen.getByText(/64 stations, numbered 1–64, over 1,033\.20 ft/)).toBeVisible();
   });
 });
 
