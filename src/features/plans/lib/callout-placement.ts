@@ -1,11 +1,13 @@
 /**
  * Places callout labels (text boxes joined to a mark by a leader line) so that no label
  * overlaps another label or an obstacle (text already on the chart), and no leader runs
- * through a label or an obstacle where another place avoids it. Pure; px, y down.
+ * through a label or an obstacle where another place avoids it. Pure; px, y down. Obstacles
+ * may weigh less than text (a band a label may cover sooner than another label).
  *
  * Each callout tries places above its mark (a row at a time, then shifted sideways), then
- * below it; every place is scored (overlaps, then leader crossings, then leader length and
- * shift) and the cheapest one is kept, one callout after the other.
+ * below it; every place is scored (overlaps, then leader crossings, covering a mark still to
+ * be labelled, then leader length and shift) and the cheapest one is kept, one callout after
+ * the other (so crowded labels step away from each other like a staircase).
  */
 
 export interface Box {
@@ -13,6 +15,11 @@ export interface Box {
   x1: number;
   y0: number;
   y1: number;
+}
+
+/** Something already on the chart; `weight` scales what covering it costs (default 1: text). */
+export interface Obstacle extends Box {
+  weight?: number;
 }
 
 export interface CalloutRequest {
@@ -87,6 +94,7 @@ const shrink = (b: Box, by: number): Box => ({
 
 const SHIFTS = [0, -0.5, 0.5, -1, 1, -1.5, 1.5]; // sideways, in label widths
 const ROWS = 8;
+const CLEARANCE = 1.5; // px kept clear around a label
 
 /**
  * Places every callout in order, each avoiding the labels and leaders placed before it and
@@ -95,14 +103,16 @@ const ROWS = 8;
  */
 export function placeCallouts(
   requests: readonly CalloutRequest[],
-  obstacles: readonly Box[],
+  obstacles: readonly Obstacle[],
   bounds: { left: number; right: number; top: number; bottom: number },
   options: { gap?: number; rowGap?: number } = {},
 ): PlacedCallout[] {
   const gap = options.gap ?? 4; // between the mark and the nearest row
-  const rowGap = options.rowGap ?? 2;
+  const rowGap = options.rowGap ?? 3; // more than the clearance below, so rows never clash
   const placed: PlacedCallout[] = [];
-  for (const r of requests) {
+  requests.forEach((r, index) => {
+    // marks still to be labelled: a label over one would leave its leader no clear way out
+    const pending = requests.slice(index + 1).map((q) => q.x);
     let best: { cost: number; callout: PlacedCallout } | null = null;
     for (const side of ["above", "below"] as const)
       for (let row = 0; row < ROWS; row++)
@@ -122,20 +132,22 @@ export function placeCallouts(
           let cost = 0;
           if (box.y0 < bounds.top || box.y1 > bounds.bottom) cost += 10_000;
           for (const o of obstacles) {
-            if (boxesOverlap(box, o, 2)) cost += 1000;
-            else if (segmentCrossesBox(leader, shrink(o, 1))) cost += 200;
+            const weight = o.weight ?? 1;
+            if (boxesOverlap(box, o, CLEARANCE)) cost += 1000 * weight;
+            else if (segmentCrossesBox(leader, shrink(o, 1))) cost += 600 * weight;
           }
           for (const p of placed) {
-            if (boxesOverlap(box, p.box, 2)) cost += 1000;
-            if (segmentCrossesBox(leader, shrink(p.box, 1))) cost += 200;
-            if (segmentCrossesBox(p.leader, shrink(box, 1))) cost += 200;
+            if (boxesOverlap(box, p.box, CLEARANCE)) cost += 1000;
+            if (segmentCrossesBox(leader, shrink(p.box, 1))) cost += 600;
+            if (segmentCrossesBox(p.leader, shrink(box, 1))) cost += 600;
             if (segmentsCross(leader, p.leader)) cost += 50;
           }
-          cost += Math.hypot(leader.x2 - leader.x1, leader.y2 - leader.y1) * 0.5;
+          for (const x of pending) if (x >= box.x0 && x <= box.x1) cost += 40;
+          cost += Math.hypot(leader.x2 - leader.x1, leader.y2 - leader.y1);
           cost += Math.abs(shift) * 10 + (side === "below" ? 15 : 0);
           if (!best || cost < best.cost) best = { cost, callout: { box, leader, side } };
         }
     placed.push(best!.callout);
-  }
+  });
   return placed;
 }

@@ -312,8 +312,9 @@ export function featureBands(
     [
       ...placed.map((p) => ({ x0: p.x0, x1: p.x1, y0: p.y - 11, y1: p.y + 3 })),
       ...bandBoxes,
-      // the branch rows' bands, in short pieces, so a label does not sit on one
-      ...avoid.flatMap((m) => pathPieces(m.path, 12, 2.5)),
+      // the branch rows' bands, in short pieces, so a label sits on one only when the other
+      // places are worse (a leader through text, a label over a label)
+      ...avoid.flatMap((m) => pathPieces(m.path, 12, 2.5).map((b) => ({ ...b, weight: 0.03 }))),
     ],
     { left: left + 2, right: right - 2, top: 2, bottom: view.height - view.margin.bottom - 2 },
   );

@@ -42,12 +42,15 @@ export function SectionAxes({
   yTicks,
   xLabel,
   yLabel,
+  xLabelAt = "middle",
 }: {
   frame: SectionFrame;
   xTicks: SectionTick[];
   yTicks: SectionTick[];
   xLabel: string;
   yLabel: string;
+  /** Where the x axis title sits: centred under the plot, or from its left edge. */
+  xLabelAt?: "middle" | "start";
 }) {
   const { margin, width, height } = frame;
   const bottom = height - margin.bottom;
@@ -91,9 +94,9 @@ export function SectionAxes({
         </text>
       ))}
       <text
-        x={(margin.left + right) / 2}
+        x={xLabelAt === "start" ? margin.left : (margin.left + right) / 2}
         y={height - 6}
-        textAnchor="middle"
+        textAnchor={xLabelAt}
         fontSize={12}
         fill={palette.inkSoft}
       >

@@ -66,6 +66,8 @@ export function SectionFigure({
   }, [selectedKey]);
   const bottom = height - margin.bottom;
   const right = width - margin.right;
+  // on a phone-width chart the axis title and the vertical scale share the bottom line
+  const narrow = width < 520;
 
   const toModel = (e: { clientX: number; clientY: number }) => {
     const rect = svg.current?.getBoundingClientRect();
@@ -267,9 +269,12 @@ export function SectionFigure({
           yTicks={view.yTicks}
           xLabel={view.xLabel}
           yLabel={view.yLabel}
+          xLabelAt={narrow ? "start" : "middle"}
         />
         <text x={right} y={height - 6} textAnchor="end" fontSize={11} fill={palette.inkSoft}>
-          {view.exaggeration === 1 ? "true scale" : `vertical scale ×${view.exaggeration}`}
+          {view.exaggeration === 1
+            ? "true scale"
+            : `${narrow ? "vertical" : "vertical scale"} ×${view.exaggeration}`}
         </text>
       </svg>
       {caption ? <figcaption className="mt-1 text-xs text-ink-soft">{caption}</figcaption> : null}

@@ -70,6 +70,18 @@ describe("callout placement", () => {
     expectClear(placed);
   });
 
+  it("stacks labels below their marks, row on row, when there is no room above", () => {
+    // a narrow chart: marks near the top, three wide labels on marks 15 px apart
+    const narrow = { left: 0, right: 360, top: 240, bottom: 400 };
+    const placed = placeCallouts(
+      [163, 178, 193].map((x) => ({ x, top: 250, bottom: 298, width: 170, height: 12 })),
+      [],
+      narrow,
+    );
+    expect(placed.every((c) => c.side === "below")).toBe(true);
+    expectClear(placed);
+  });
+
   it("keeps labels inside the bounds", () => {
     const [c] = placeCallouts(
       [{ x: 590, top: 20, bottom: 30, width: 120, height: 12 }],
