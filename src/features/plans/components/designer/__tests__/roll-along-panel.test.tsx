@@ -7,6 +7,7 @@ import { planFormResolver, planToForm, type PlanForm } from "../../../lib/plan-f
 import { threeLayerPlan } from "../../../__tests__/fixtures";
 import type { Plan } from "../../../lib/engine";
 import type { UnitSystem } from "@/lib/units";
+import { usePlanHistory } from "../../../hooks/use-plan-history";
 import { RollAlongFields, RollAlongTable } from "../roll-along-panel";
 
 function Fields({ values, units = "metric" }: { values: PlanForm; units?: UnitSystem }) {
@@ -15,9 +16,13 @@ function Fields({ values, units = "metric" }: { values: PlanForm; units?: UnitSy
     mode: "onChange",
     resolver: planFormResolver(units, "t") as never,
   });
+  const history = usePlanHistory(form, true);
   return (
     <FormProvider {...form}>
       <RollAlongFields units={units} />
+      <button type="button" onClick={() => history.undo()}>
+        undo
+      </button>
     </FormProvider>
   );
 }
@@ -40,6 +45,16 @@ describe("RollAlongFields (light)", () => {
         "Line of 2 spreads: 46 stations, numbered 1–46, over 225.00 m from 0.00 m to 225.00 m; each spread moves on 22 stations (110.00 m).",
       ),
     ).toBeVisible();
+  });
+
+  it("is a form field: undo switches it off again", () => {
+    render(<Fields values={form()} />);
+    const box = screen.getByRole("checkbox", { name: /several spreads/ });
+    fireEvent.click(box);
+    expect(box).toBeChecked();
+    fireEvent.click(screen.getByRole("button", { name: "undo" }));
+    expect(screen.getByRole("checkbox", { name: /several spreads/ })).not.toBeChecked();
+    expect(screen.queryByLabelText("Spreads")).toBeNull();
   });
 
   it("names the box that is wrong", async () => {
