@@ -113,6 +113,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
             Spread length {formatQuantity("length", figures.length, units)} · geophones from{" "}
             {formatQuantity("length", figures.first, units)} to{" "}
             {formatQuantity("length", figures.last, units)}
+            {spread?.rollAlong?.on ? " · spread 1 of the line, as are the shot offsets below" : ""}
           </p>
         ) : null}
       </fieldset>
