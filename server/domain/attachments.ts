@@ -19,6 +19,7 @@ import {
   type AttachmentKind,
   type AttachmentSummary,
   type AttachmentUploadResponse,
+  type InterpretationChoices,
   type PickSetView,
   type picksSaveSchema,
 } from "@/contracts/field";
@@ -313,6 +314,7 @@ function toPickSetView(planId: string, row: PickSet | null): PickSetView {
       picks: [],
       attachmentId: null,
       picker: null,
+      interpretation: null,
       updatedBy: null,
       updatedAt: null,
     };
@@ -323,6 +325,7 @@ function toPickSetView(planId: string, row: PickSet | null): PickSetView {
     picks: row.picks,
     attachmentId: row.attachmentId,
     picker: row.picker,
+    interpretation: row.interpretation ?? null,
     updatedBy: { id: row.updatedById, name: row.updatedBy?.name ?? "" },
     updatedAt: row.updatedAt.toISOString(),
   };
@@ -371,6 +374,8 @@ export async function savePicks(
       picks: input.picks,
       attachmentId,
       picker: input.picker ?? null,
+      // Absent: the stored interpretation choices stay; null clears them.
+      ...(input.interpretation !== undefined ? { interpretation: input.interpretation } : {}),
       updatedById: actor.userId,
       updatedAt: new Date(),
     };
@@ -384,7 +389,56 @@ export async function savePicks(
       action: "picks.save",
       targetType: "plan",
       targetId: planId,
-      detail: { picks: input.picks.length, ...counts, revision: plan.latestRevision },
+      detail: {
+        picks: input.picks.length,
+        ...counts,
+        revision: plan.latestRevision,
+        ...(input.interpretation !== undefined
+          ? { method: input.interpretation?.method ?? null }
+          : {}),
+      },
+    });
+  });
+  return getPicks(dataSource, actor, planId);
+}
+
+/**
+ * Sets (or, with null, clears) the interpretation choices kept with the plan's saved picks;
+ * 409 when no picks are saved yet. The picks themselves and their revision stay as they are.
+ */
+export async function saveInterpretationChoices(
+  dataSource: DataSource,
+  actor: Actor,
+  planId: string,
+  interpretation: InterpretationChoices | null,
+): Promise<PickSetView> {
+  requireFieldRole(actor);
+  await inTransaction(dataSource, async (manager) => {
+    const plan = await findVisiblePlan(manager, actor, planId);
+    requireFieldEditor(actor, plan);
+    const repo = manager.getRepository(PickSet);
+    const existing = await repo.findOneBy({ planId, teamId: actor.teamId });
+    if (!existing) {
+      throw new AppError(
+        409,
+        "no_picks",
+        "save the plan's picks first: the interpretation choices are kept with them",
+      );
+    }
+    await repo.update(
+      { id: existing.id },
+      { interpretation, updatedById: actor.userId, updatedAt: new Date() },
+    );
+    await recordAudit(manager, {
+      teamId: actor.teamId,
+      actorId: actor.userId,
+      action: "picks.choose_interpretation",
+      targetType: "plan",
+      targetId: planId,
+      detail: {
+        method: interpretation?.method ?? null,
+        assignments: interpretation?.assignments?.length ?? null,
+      },
     });
   });
   return getPicks(dataSource, actor, planId);

@@ -1,7 +1,7 @@
 /**
  * The interpreted section under the line as CSV (GET /api/plans/:id/interpretation.csv): the
- * saved picks of the plan interpreted with the defaults the report uses
- * (server/reports/field-interpretation.ts). Only those who may export the plan may call it.
+ * saved picks of the plan interpreted as the report does (server/reports/field-interpretation.ts):
+ * with the choices stored with the picks, else the defaults. Only those who may export the plan may call it.
  */
 import type { DataSource } from "typeorm";
 import { PickSet } from "../data/entities/pick-set";
@@ -25,7 +25,7 @@ export async function exportInterpretationCsv(
     time: p.time,
   }));
   return {
-    csv: interpretationCsv(interpretationSummary(picks, document)),
+    csv: interpretationCsv(interpretationSummary(picks, document, pickSet?.interpretation ?? null)),
     fileName: `${fileSlug(plan.name)}-rev${revision}-interpretation.csv`,
   };
 }

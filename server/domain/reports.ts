@@ -100,6 +100,7 @@ export async function gatherReportSource(
     review,
     approval,
     picks: pickSet ? pickSet.picks : null,
+    interpretation: pickSet?.interpretation ?? null,
   };
 }
 

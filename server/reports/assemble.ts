@@ -9,6 +9,7 @@ import {
   modelFirstArrival,
   type ObservedPick,
 } from "../../workers/field/index";
+import type { InterpretationChoices } from "@/contracts/field";
 import type { UnitSystem } from "@/lib/units";
 import { interpretationSummary } from "./field-interpretation";
 import { reportUnits } from "./layout";
@@ -18,6 +19,8 @@ import type { PlanReportInput, ReportFieldCheck } from "./types";
 export type ReportSource = Omit<PlanReportInput, "analysis" | "fieldCheck"> & {
   /** The plan's saved first-break picks, or null when none were saved. */
   picks: ObservedPick[] | null;
+  /** The interpretation choices stored with the picks; null or absent: the defaults. */
+  interpretation?: InterpretationChoices | null;
 };
 
 /** Best model, RMS per model and misfit warnings (written in `units`) for the saved picks. */
@@ -26,6 +29,7 @@ export function fieldCheckSummary(
   models: PlanReportInput["document"]["models"],
   pickError: number,
   units: UnitSystem = "metric",
+  choices: InterpretationChoices | null = null,
 ): ReportFieldCheck | null {
   const u = reportUnits(units);
   if (picks.length === 0) return null;
@@ -52,13 +56,13 @@ export function fieldCheckSummary(
     })),
     best: bestIndex === null ? null : fits[bestIndex].name,
     warnings,
-    interpretation: interpretationSummary(picks, { models, criteria: { pickError } }),
+    interpretation: interpretationSummary(picks, { models, criteria: { pickError } }, choices),
   };
 }
 
 /** Adds the analysis (or why there is none) and the field check to what the database gave. */
 export function completeReportInput(source: ReportSource): PlanReportInput {
-  const { picks, ...rest } = source;
+  const { picks, interpretation, ...rest } = source;
   let analysis: PlanReportInput["analysis"];
   try {
     analysis = { ok: true, value: analyzePlan(source.document) };
@@ -74,6 +78,7 @@ export function completeReportInput(source: ReportSource): PlanReportInput {
           source.document.models,
           source.document.criteria.pickError,
           source.units,
+          interpretation ?? null,
         )
       : null,
   };

@@ -50,7 +50,7 @@ describe("interpretationCsv", () => {
     const s = interpretationSummary(picks, plan);
     const lines = interpretationCsv(s).trimEnd().split("\r\n");
     expect(lines[0]).toBe(
-      "layer,method,position_m,depth_m,elevation_m,sigma_m,velocity_m_s,phantom",
+      "layer,method,position_m,depth_m,elevation_m,sigma_m,velocity_m_s,phantom,datum_m",
     );
     expect(lines.length - 1).toBe(s?.ok ? s.refractors[0].rows.length : -1);
     const first = lines[1].split(",");

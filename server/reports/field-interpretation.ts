@@ -1,14 +1,18 @@
 /**
  * The interpreted section under the line in the plan report and its CSV export: pure functions
  * of data. `interpretationSummary` runs the same interpretation as the Field check screen and
- * the `interpret` command (workers/field/plan-interpretation.ts) with its defaults (picks
- * assigned as the best-fitting candidate suggests, plus-minus method, the plan's pick error,
- * elevations from the plan's section surface or flat); `drawInterpretation` draws it with the
- * report writer; `interpretationCsv` writes one row per refractor and geophone.
+ * the `interpret` command (workers/field/plan-interpretation.ts) with the choices stored with
+ * the picks (method, GRM XY, datum, assignment, station elevations) or, for what was not
+ * chosen, its defaults (picks assigned as the best-fitting candidate suggests, plus-minus
+ * method, the plan's pick error, elevations from the plan's section surface or flat, datum the
+ * lowest station); `drawInterpretation` draws it with the report writer, naming the method and
+ * datum and whether they were chosen; `interpretationCsv` writes one row per refractor and
+ * geophone.
  * Units: m, m/s, s; the PDF prints lengths and velocities in the reader's units (`ReportUnits`)
  * and times in ms; the CSV stays SI.
  */
 import Papa from "papaparse";
+import type { InterpretationChoices } from "@/contracts/field";
 import {
   interpretPlanPicks,
   LINE_METHODS,
@@ -23,6 +27,9 @@ export type ReportInterpretation =
   | {
       ok: true;
       method: LineMethod;
+      /** Whether the method, datum and XY were chosen on the Field check (else defaults). */
+      methodChosen: boolean;
+      datumChosen: boolean;
       suggestedFrom: string | null;
       elevationSource: "csv" | "plan" | "flat";
       datum: number;
@@ -31,6 +38,8 @@ export type ReportInterpretation =
         layer: number;
         shots: [number, number];
         meanVelocity: number;
+        /** GRM: XY used and the two-layer estimate, m; whether the user fixed it. */
+        xy: { used: number; expected: number; fixed: boolean } | null;
         rows: {
           position: number;
           depth: number;
@@ -52,17 +61,30 @@ export type ReportInterpretation =
     }
   | { ok: false; reason: string };
 
-/** Runs the default interpretation of saved picks (null when there are none). */
+/**
+ * Interprets saved picks with the stored choices (`choices`; null or absent: the defaults).
+ * Null when there are no picks.
+ */
 export function interpretationSummary(
   picks: readonly ObservedPick[],
   plan: PlanForInterpretation,
+  choices?: InterpretationChoices | null,
 ): ReportInterpretation | null {
   if (picks.length === 0) return null;
   try {
-    const r = interpretPlanPicks(plan, picks);
+    const xy = choices?.method === "grm" ? (choices.xy ?? null) : null;
+    const r = interpretPlanPicks(plan, picks, {
+      method: choices?.method,
+      datum: choices?.datum ?? null,
+      xy,
+      assignments: choices?.assignments ?? null,
+      elevations: choices?.elevations ?? null,
+    });
     return {
       ok: true,
       method: r.result.method,
+      methodChosen: Boolean(choices),
+      datumChosen: choices?.datum !== undefined && choices.datum !== null,
       suggestedFrom: r.suggestedFrom,
       elevationSource: r.elevationSource,
       datum: r.result.datum,
@@ -71,6 +93,7 @@ export function interpretationSummary(
         layer: ref.layer,
         shots: ref.shots,
         meanVelocity: ref.meanVelocity,
+        xy: ref.xy ? { used: ref.xy.used, expected: ref.xy.expected, fixed: xy !== null } : null,
         rows: ref.depth.map((d) => ({
           position: d.position,
           depth: d.depth,
@@ -117,11 +140,14 @@ export function drawInterpretation(
     return;
   }
   w.paragraph(
-    `${LINE_METHODS[data.method]}, picks assigned to refractors ${data.suggestedFrom ? `as “${data.suggestedFrom}” (the best-fitting candidate) suggests` : "by the user"}; top-layer velocity ${u.velU(data.topVelocity)}; elevations ${data.elevationSource === "csv" ? "from the station CSV" : data.elevationSource === "plan" ? "from the plan's section surface" : `taken as flat at 0 ${u.length}`}, datum ${u.lenU(data.datum)}. Depths are below the ground, ± one standard error from the pick error.`,
+    `Method: ${LINE_METHODS[data.method]} (${data.methodChosen ? "as chosen on the Field check" : "the default; no choice was saved on the Field check"}), picks assigned to refractors ${data.suggestedFrom ? `as “${data.suggestedFrom}” (the best-fitting candidate) suggests` : "by the user"}; top-layer velocity ${u.velU(data.topVelocity)}; elevations ${data.elevationSource === "csv" ? "from the station CSV" : data.elevationSource === "plan" ? "from the plan's section surface" : `taken as flat at 0 ${u.length}`}; datum ${u.lenU(data.datum)} (${data.datumChosen ? "chosen" : "the lowest station"}). Depths are below the ground, ± one standard error from the pick error.`,
   );
   for (const ref of data.refractors) {
+    const xy = ref.xy
+      ? ` XY ${u.lenU(ref.xy.used)} (${ref.xy.fixed ? "fixed on the Field check" : "the optimum of the search"}; two-layer estimate ${u.lenU(ref.xy.expected)}).`
+      : "";
     w.paragraph(
-      `Top of layer ${ref.layer}, from the shots at ${u.len(ref.shots[0])} and ${u.lenU(ref.shots[1])}: mean velocity ${u.velU(ref.meanVelocity)}.`,
+      `Top of layer ${ref.layer}, from the shots at ${u.len(ref.shots[0])} and ${u.lenU(ref.shots[1])}: mean velocity ${u.velU(ref.meanVelocity)}.${xy}`,
     );
     w.table(
       [
@@ -182,7 +208,8 @@ export function drawInterpretation(
 
 /**
  * One CSV row per refractor and geophone: layer, method, position_m, depth_m, elevation_m,
- * sigma_m, velocity_m_s, phantom (RFC 4180, CRLF). Empty (header only) without an interpretation.
+ * sigma_m, velocity_m_s, phantom, datum_m (RFC 4180, CRLF). Empty (header only) without an
+ * interpretation.
  */
 export function interpretationCsv(data: ReportInterpretation | null): string {
   const fields = [
@@ -194,6 +221,7 @@ export function interpretationCsv(data: ReportInterpretation | null): string {
     "sigma_m",
     "velocity_m_s",
     "phantom",
+    "datum_m",
   ];
   const rows: (string | number)[][] = [];
   if (data?.ok) {
@@ -208,6 +236,7 @@ export function interpretationCsv(data: ReportInterpretation | null): string {
           Number(r.sigma.toFixed(3)),
           r.velocity === null ? "" : Number(r.velocity.toFixed(1)),
           r.phantom ? "yes" : "no",
+          Number(data.datum.toFixed(3)),
         ]);
       }
     }

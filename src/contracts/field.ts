@@ -109,6 +109,82 @@ export type FirstBreakPickInput = z.input<typeof pickSchema>;
 /** Most picks in one save (25 shots × about 200 geophones; keeps the body under the 1 MB JSON limit). */
 export const MAX_PICKS = 5000;
 
+/** Interpretation methods under the line (as workers/field/line-interpretation.ts LineMethod). */
+export const INTERPRETATION_METHODS = ["plus-minus", "delay-time", "grm"] as const;
+export type InterpretationMethod = (typeof INTERPRETATION_METHODS)[number];
+
+/** Most assignment segments and station elevations kept with the choices. */
+export const MAX_ASSIGNMENTS = 2000;
+export const MAX_ELEVATIONS = 5000;
+
+const finite = (label: string) =>
+  z
+    .number({ error: `${label} must be a number` })
+    .refine(Number.isFinite, `${label} must be a finite number`);
+
+/** One segment of one shot's picks assigned to a layer (workers/field LayerAssignment), m. */
+export const layerAssignmentSchema = z
+  .strictObject({
+    shot: position("shot"),
+    layer: z
+      .number({ error: "layer must be a number" })
+      .int("layer must be a whole number")
+      .min(1, "layer must be 1 (direct wave) to 12")
+      .max(12, "layer must be 1 (direct wave) to 12"),
+    from: position("from"),
+    to: position("to"),
+  })
+  .refine((a) => a.from <= a.to, { message: "from must not be after to", path: ["to"] });
+
+/**
+ * The choices made on the Field check's "Under the line" card, kept with the saved picks so
+ * that the report and interpretation.csv use them. SI: datum, xy and positions in m. Absent or
+ * null fields take the defaults (workers/field/plan-interpretation.ts).
+ */
+export const interpretationChoicesSchema = z.strictObject({
+  method: z.enum(INTERPRETATION_METHODS, {
+    error: "method must be plus-minus, delay-time or grm",
+  }),
+  /** Datum elevation, m; null: the lowest station. */
+  datum: finite("datum")
+    .refine((v) => Math.abs(v) <= 10000, "datum must be within ±10 km")
+    .nullable()
+    .optional(),
+  /** GRM only: a fixed XY distance, m; null: the optimum of the search. */
+  xy: finite("xy")
+    .refine((v) => v >= 0 && v <= 1000, "xy must be between 0 and 1000 m")
+    .nullable()
+    .optional(),
+  /** The user's assignment of picks to refractors; null: the suggestion of the best candidate. */
+  assignments: z
+    .array(layerAssignmentSchema)
+    .max(MAX_ASSIGNMENTS, `at most ${MAX_ASSIGNMENTS} assignment segments`)
+    .nullable()
+    .optional(),
+  /** Station elevations loaded from a CSV, m; null: the plan's section surface, else flat. */
+  elevations: z
+    .array(
+      z.strictObject({
+        position: position("position"),
+        elevation: finite("elevation").refine(
+          (v) => Math.abs(v) <= 10000,
+          "elevation must be within ±10 km",
+        ),
+      }),
+    )
+    .max(MAX_ELEVATIONS, `at most ${MAX_ELEVATIONS} station elevations`)
+    .nullable()
+    .optional(),
+});
+export type InterpretationChoices = z.output<typeof interpretationChoicesSchema>;
+export type InterpretationChoicesInput = z.input<typeof interpretationChoicesSchema>;
+
+/** PUT /api/plans/:id/picks/interpretation — sets or clears (null) the stored choices. */
+export const interpretationSaveSchema = z.strictObject({
+  interpretation: interpretationChoicesSchema.nullable(),
+});
+export type InterpretationSaveInput = z.input<typeof interpretationSaveSchema>;
+
 /** PUT /api/plans/:id/picks — replaces the plan's saved picks. */
 export const picksSaveSchema = z
   .strictObject({
@@ -117,6 +193,8 @@ export const picksSaveSchema = z
     attachmentId: z.uuid({ error: "attachmentId must be a UUID" }).nullable().optional(),
     /** Picker used for the automatic picks, e.g. "sta-lta". */
     picker: z.string().trim().max(40).optional(),
+    /** The interpretation choices; absent: the stored ones stay; null: cleared (defaults). */
+    interpretation: interpretationChoicesSchema.nullable().optional(),
   })
   .superRefine((body, ctx) => {
     const seen = new Map<string, number>();
@@ -141,6 +219,8 @@ export interface PickSetView {
   picks: FirstBreakPick[];
   attachmentId: string | null;
   picker: string | null;
+  /** The interpretation choices made on screen; null: the defaults (the server always sends it). */
+  interpretation?: InterpretationChoices | null;
   updatedBy: { id: string; name: string } | null;
   updatedAt: string | null;
 }

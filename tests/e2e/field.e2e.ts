@@ -311,7 +311,7 @@ describe("Field check in the browser", () => {
     expect(csv.status()).toBe(200);
     const lines = (await csv.text()).trimEnd().split("\r\n");
     expect(lines[0]).toBe(
-      "layer,method,position_m,depth_m,elevation_m,sigma_m,velocity_m_s,phantom",
+      "layer,method,position_m,depth_m,elevation_m,sigma_m,velocity_m_s,phantom,datum_m",
     );
     expect(lines.length).toBeGreaterThan(5);
   });

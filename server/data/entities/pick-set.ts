@@ -1,5 +1,5 @@
 import { Column, Entity, JoinColumn, ManyToOne, PrimaryColumn } from "typeorm";
-import type { FirstBreakPick } from "@/contracts/field";
+import type { FirstBreakPick, InterpretationChoices } from "@/contracts/field";
 import { TIMESTAMP, UUID } from "../columns";
 import { User } from "./user";
 
@@ -15,6 +15,8 @@ export class PickSet {
   /** The record or CSV the picks came from; null when deleted or not given. */
   @Column({ ...UUID, nullable: true }) attachmentId: string | null;
   @Column({ type: "varchar", length: 40, nullable: true }) picker: string | null;
+  /** The interpretation choices made on the Field check; null: the defaults. */
+  @Column({ type: "simple-json", nullable: true }) interpretation: InterpretationChoices | null;
   @Column(UUID) updatedById: string;
   @Column({ type: TIMESTAMP }) updatedAt: Date;
 

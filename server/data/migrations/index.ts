@@ -9,6 +9,7 @@ import { RateLimits1796169600000 } from "./1796169600000-rate-limits";
 import { ObjectStorage1796256000000 } from "./1796256000000-object-storage";
 import { MailOutbox1796428800000 } from "./1796428800000-mail-outbox";
 import { TeamSettings1796342400000 } from "./1796342400000-team-settings";
+import { InterpretationChoices1796515200000 } from "./1796515200000-interpretation-choices";
 
 export const migrations = [
   Foundation1733097600000,
@@ -18,4 +19,5 @@ export const migrations = [
   ObjectStorage1796256000000,
   TeamSettings1796342400000,
   MailOutbox1796428800000,
+  InterpretationChoices1796515200000,
 ];

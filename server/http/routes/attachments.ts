@@ -10,6 +10,7 @@ import {
   ATTACHMENT_KIND_LABELS,
   ATTACHMENT_LIMITS,
   attachmentFieldsSchema,
+  interpretationSaveSchema,
   picksSaveSchema,
   type AttachmentKind,
 } from "@/contracts/field";
@@ -20,6 +21,7 @@ import {
   listAttachments,
   requireFieldEditor,
   requireFieldRole,
+  saveInterpretationChoices,
   savePicks,
   uploadAttachment,
   type UploadedFile,
@@ -251,6 +253,14 @@ export function attachmentsRouter(ctx: RouteContext): Router {
     const { id } = parseParams(idParamSchema, req);
     const input = parseBody(picksSaveSchema, req);
     res.json(await savePicks(dataSource, actor, id, input));
+  });
+
+  router.put("/plans/:id/picks/interpretation", async (req, res) => {
+    const actor = requireActor(res);
+    requireFieldRole(actor);
+    const { id } = parseParams(idParamSchema, req);
+    const { interpretation } = parseBody(interpretationSaveSchema, req);
+    res.json(await saveInterpretationChoices(dataSource, actor, id, interpretation));
   });
 
   return router;

@@ -34,7 +34,7 @@ describe("interpretation CSV export", () => {
     expect(res.headers["content-type"]).toContain("text/csv");
     expect(res.headers["content-disposition"]).toMatch(/filename=\S+-rev1-interpretation\.csv/);
     expect(res.text.trimEnd()).toBe(
-      "layer,method,position_m,depth_m,elevation_m,sigma_m,velocity_m_s,phantom",
+      "layer,method,position_m,depth_m,elevation_m,sigma_m,velocity_m_s,phantom,datum_m",
     );
   });
 
