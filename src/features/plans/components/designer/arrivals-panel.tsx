@@ -97,7 +97,7 @@ export function ArrivalsPanel({
   );
 
   return (
-    <div ref={ref} className="min-w-0">
+    <div ref={ref} className="min-w-0 print:break-inside-avoid">
       <div className="mb-2 flex flex-wrap items-center gap-4 text-sm">
         <div role="group" aria-label="Offsets shown" className="flex gap-1">
           {(

@@ -74,7 +74,9 @@ export function ResultsPanel({
   const shot = Math.min(shotIndex, plan.spread.shots.length - 1);
 
   return (
-    <Card className="min-w-0">
+    // In print the card runs over several pages (it holds every view), so it may break
+    // (print-flow, index.css).
+    <Card className="min-w-0 print-flow">
       <div className={outdated ? "opacity-70" : ""}>
         {outdated ? (
           <div className="mb-3">
@@ -237,5 +239,9 @@ export function ResultsPanel({
 
 /** A heading between the views printed one after the other. */
 function PrintHeading({ children }: { children: string }) {
-  return <h3 className="mt-4 mb-2 text-base font-semibold text-ink-deep">{children}</h3>;
+  return (
+    <h3 className="mt-4 mb-2 text-base font-semibold text-ink-deep print:break-after-avoid">
+      {children}
+    </h3>
+  );
 }

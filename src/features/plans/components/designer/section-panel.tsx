@@ -46,7 +46,7 @@ export function SectionPanel({
   );
 
   return (
-    <div ref={ref} className="min-w-0">
+    <div ref={ref} className="min-w-0 print:break-inside-avoid">
       <div className="mb-2 flex flex-wrap items-center gap-4 text-sm">
         <label htmlFor={geophoneId} className="flex items-center gap-2">
           Ray path to geophone
