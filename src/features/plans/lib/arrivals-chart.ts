@@ -332,7 +332,11 @@ export function buildArrivalsChart(input: ArrivalsChartInput): ArrivalsChartMode
     y,
     xTicks,
     yTicks,
-    xLabel: `Offset from the shot (${unitLabel("length", units)}; negative towards the line start)`,
+    // the long form needs about 380 px at 12 px text; a phone's chart gets the short one
+    xLabel:
+      width >= 420
+        ? `Offset from the shot (${unitLabel("length", units)}; negative towards the line start)`
+        : `Offset from the shot (${unitLabel("length", units)}; − towards the start)`,
     yLabel: "Time (ms)",
     shotX: 0 >= x.domain()[0] && 0 <= x.domain()[1] ? x(0) : null,
     curves: curvesOut,
