@@ -23,8 +23,10 @@ const isChannelCount = (n: number) =>
  *
  * The setter shows the new count at once and saves it after a short pause; it does nothing for
  * a role that may not change team settings (only an admin may) or for a count outside 2…1024.
+ * The third element says whether this user may change it (screens show the count read-only
+ * otherwise).
  */
-export function useSeismographChannels(): [number, (n: number) => void] {
+export function useSeismographChannels(): [number, (n: number) => void, boolean] {
   const { data: me } = useMe();
   const queryClient = useQueryClient();
   const settings = useQuery({ ...teamSettingsQueryOptions, enabled: Boolean(me) });
@@ -62,5 +64,5 @@ export function useSeismographChannels(): [number, (n: number) => void] {
     [mayChange, queryClient, flush],
   );
 
-  return [settings.data?.seismographChannels ?? DEFAULT_SEISMOGRAPH_CHANNELS, set];
+  return [settings.data?.seismographChannels ?? DEFAULT_SEISMOGRAPH_CHANNELS, set, mayChange];
 }

@@ -25,7 +25,7 @@ export function ApplyChoicesPanel({
   current: boolean;
   onApply: (spread: AppliedChoice) => void;
 }) {
-  const [channels, setChannels] = useSeismographChannels();
+  const [channels, setChannels, mayChange] = useSeismographChannels();
   const [typed, setTyped] = useState<string | null>(null);
   const options = applyChoices(spread, recommendation, units, channels);
   return (
@@ -46,20 +46,29 @@ export function ApplyChoicesPanel({
           </li>
         ))}
       </ul>
-      <label className="mt-2 flex items-center gap-2 text-xs text-ink-soft">
-        Seismograph channels (team setting, this browser)
-        <input
-          className="field-input w-20! px-2! py-0.5! font-mono text-xs!"
-          inputMode="numeric"
-          value={typed ?? String(channels)}
-          onChange={(e) => {
-            setTyped(e.target.value);
-            const n = Number(e.target.value);
-            if (Number.isInteger(n) && n >= 2) setChannels(n);
-          }}
-          onBlur={() => setTyped(null)}
-        />
-      </label>
+      {mayChange ? (
+        <div className="mt-2 flex flex-wrap items-center gap-2 text-xs text-ink-soft">
+          <label htmlFor="seismograph-channels">Seismograph channels (team setting)</label>
+          <input
+            id="seismograph-channels"
+            className="field-input w-20! px-2! py-0.5! font-mono text-xs!"
+            inputMode="numeric"
+            value={typed ?? String(channels)}
+            onChange={(e) => {
+              setTyped(e.target.value);
+              const n = Number(e.target.value);
+              if (Number.isInteger(n) && n >= 2) setChannels(n);
+            }}
+            onBlur={() => setTyped(null)}
+          />
+          <span>saved for the whole team, also on the Team page</span>
+        </div>
+      ) : (
+        <p className="mt-2 text-xs text-ink-soft" data-testid="seismograph-channels">
+          The team&rsquo;s seismograph records {channels} channels (a team setting an admin changes
+          on the Team page).
+        </p>
+      )}
     </div>
   );
 }

@@ -6,12 +6,12 @@ import { renderWithApp, stubFetch, testMe } from "@/testing/render";
 import { ApplyChoicesPanel } from "../apply-choices-panel";
 
 /** The panel reads the team's seismograph channel count (48 here); an admin may change it. */
-function renderPanel(panel: ReactElement) {
+function renderPanel(panel: ReactElement, role: "admin" | "lead" = "admin") {
   stubFetch({
     "GET /api/team/settings": () => ({ status: 200, body: { seismographChannels: 48 } }),
     "PATCH /api/team/settings": (body) => ({ status: 200, body }),
   });
-  return renderWithApp(panel, { me: testMe({ role: "admin" }) });
+  return renderWithApp(panel, { me: testMe({ role }) });
 }
 
 const spread = {
@@ -71,10 +71,25 @@ describe("ApplyChoicesPanel", () => {
     expect(
       (await screen.findAllByText(/68 channels is more than the seismograph's 48/))[0],
     ).toBeVisible();
-    const box = screen.getByLabelText("Seismograph channels (team setting, this browser)");
+    const box = screen.getByLabelText("Seismograph channels (team setting)");
     await userEvent.clear(box);
     await userEvent.type(box, "96");
     await waitFor(() => expect(screen.queryByText(/more than the seismograph/)).toBeNull());
+  });
+
+  it("shows a lead the team's count as text, with no box to change it", async () => {
+    renderPanel(
+      <ApplyChoicesPanel
+        spread={spread}
+        recommendation={{ maxSpacing: 5, spreadLength: 200 }}
+        units="metric"
+        current
+        onApply={() => {}}
+      />,
+      "lead",
+    );
+    expect(await screen.findByText(/The team’s seismograph records 48 channels/)).toBeVisible();
+    expect(screen.queryByLabelText(/^Seismograph channels/)).toBeNull();
   });
 
   it("offers an option beyond the seismograph as roll-along and applies it", async () => {
