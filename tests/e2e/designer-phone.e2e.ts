@@ -130,6 +130,8 @@ describe("the designer at 390 px", () => {
     const tap = (await remove.boundingBox())!;
     expect(tap.width).toBeGreaterThanOrEqual(TAP);
     expect(tap.height).toBeGreaterThanOrEqual(TAP);
+    const undo = (await page.getByRole("button", { name: /Undo/ }).boundingBox())!;
+    expect(undo.height).toBeGreaterThanOrEqual(TAP);
     await expectInView(
       page.getByRole("button", { name: "Add layer above the half-space" }),
       "Add layer",

@@ -14,7 +14,7 @@ export const HistoryButtons = memo(function HistoryButtons({
     <div className="flex gap-1" role="group" aria-label="Edit history">
       <Button
         variant="quiet"
-        className="px-2.5! py-1! text-xs!"
+        className="px-2.5! py-1! text-xs! max-sm:py-2.5!"
         disabled={!canUndo}
         title="Undo the last edit (Ctrl+Z)"
         onClick={() => history.undo()}
@@ -23,7 +23,7 @@ export const HistoryButtons = memo(function HistoryButtons({
       </Button>
       <Button
         variant="quiet"
-        className="px-2.5! py-1! text-xs!"
+        className="px-2.5! py-1! text-xs! max-sm:py-2.5!"
         disabled={!canRedo}
         title="Redo (Ctrl+Shift+Z or Ctrl+Y)"
         onClick={() => history.redo()}
