@@ -675,6 +675,8 @@ function FieldCheck({
               picks to refractors, choose the method and the datum.
             </p>
             <InterpretationPanel
+              planId={plan.id}
+              canSave={rights.edit}
               picks={picks}
               models={doc.models}
               candidates={candidates}

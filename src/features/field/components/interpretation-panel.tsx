@@ -4,10 +4,13 @@
  * `interpret` command. The user chooses the method and the datum, may load station elevations,
  * and assigns picks to refractors by segment (suggested by the best-fitting candidate). Shows
  * the interpreted interfaces on a section over the candidate models, a table per geophone, the
- * misfit of each candidate and the reciprocal-time checks, in the user's units.
+ * misfit of each candidate and the reciprocal-time checks, in the user's units. The choices
+ * (method, GRM XY, datum, station elevations, the user's assignment) are restored from the
+ * saved picks and, for a user who may change field data, kept with them a moment after they
+ * change, so the report and interpretation.csv use the same interpretation.
  */
 import { useEffect, useMemo, useState } from "react";
-import type { FirstBreakPick } from "@/contracts/field";
+import type { FirstBreakPick, InterpretationChoices } from "@/contracts/field";
 import { Button } from "@/components/button";
 import { Notice } from "@/components/feedback";
 import { errorMessage } from "@/lib/api-client";
@@ -25,6 +28,8 @@ import type {
   LineMethod,
   PlanInterpretation,
 } from "../../../../workers/field/index";
+import { usePicks } from "../api/get-picks";
+import { useSaveInterpretation } from "../api/save-interpretation";
 import type { Candidate } from "../lib/comparison";
 import { fieldWorker } from "../lib/field-worker";
 import { LINE_METHODS, lengthDigits } from "../lib/format";
@@ -34,14 +39,52 @@ import { InterpretedSection } from "./interpreted-section";
 const length = (v: number | null | undefined, units: UnitSystem, digits = lengthDigits(units)) =>
   formatQuantity("length", v, units, digits);
 
+/** A stored length in the user's unit for an input box ("" for none). */
+const lengthText = (v: number | null | undefined, units: UnitSystem) =>
+  v === null || v === undefined
+    ? ""
+    : String(Number(toDisplay("length", v, units).toFixed(inputDigits("length", units))));
+
+/** A number typed in an input box (comma or point), null when empty, NaN when not a number. */
+const typed = (text: string) => (text.trim() === "" ? null : Number(text.replace(",", ".")));
+
+/** Choices in one comparable form; null when they are all the defaults. */
+function canonicalChoices(c: InterpretationChoices | null | undefined): string | null {
+  if (!c) return null;
+  const round = (v: number | null | undefined) =>
+    v === null || v === undefined ? null : Math.round(v * 1e4) / 1e4;
+  const form = {
+    method: c.method,
+    datum: round(c.datum),
+    xy: c.method === "grm" ? round(c.xy) : null,
+    assignments: c.assignments ?? null,
+    elevations: c.elevations ?? null,
+  };
+  const isDefault =
+    form.method === "plus-minus" &&
+    form.datum === null &&
+    form.assignments === null &&
+    form.elevations === null;
+  return isDefault ? null : JSON.stringify(form);
+}
+
+/** Wait after the last change before the choices are saved, ms. */
+const SAVE_DELAY = 700;
+
 /** The interpretation card of the Field check. */
 export function InterpretationPanel({
+  planId,
+  canSave = false,
   picks,
   models,
   candidates,
   pickError,
   units,
 }: {
+  /** The plan whose saved picks hold the choices. */
+  planId: string;
+  /** Whether the user may change the plan's field data (the choices are then saved). */
+  canSave?: boolean;
   picks: readonly FirstBreakPick[];
   /** The plan's models as stored (layered and section). */
   models: readonly unknown[];
@@ -49,17 +92,38 @@ export function InterpretationPanel({
   pickError: number;
   units: UnitSystem;
 }) {
-  const [method, setMethod] = useState<LineMethod>("plus-minus");
-  const [datumText, setDatumText] = useState("");
-  const [elevations, setElevations] = useState<ElevationPoint[] | null>(null);
-  const [elevationNote, setElevationNote] = useState<string | null>(null);
-  const [assignments, setAssignments] = useState<LayerAssignment[] | null>(null);
+  const savedSet = usePicks(planId).data;
+  const stored = savedSet?.interpretation ?? null;
+  const [method, setMethod] = useState<LineMethod>(stored?.method ?? "plus-minus");
+  const [datumText, setDatumText] = useState(() => lengthText(stored?.datum, units));
+  const [xyText, setXyText] = useState(() =>
+    stored?.method === "grm" ? lengthText(stored.xy, units) : "",
+  );
+  const [elevations, setElevations] = useState<ElevationPoint[] | null>(stored?.elevations ?? null);
+  const [elevationNote, setElevationNote] = useState<string | null>(
+    stored?.elevations?.length
+      ? `${stored.elevations.length} station elevations saved with the picks.`
+      : null,
+  );
+  const [assignments, setAssignments] = useState<LayerAssignment[] | null>(
+    stored?.assignments ?? null,
+  );
   const [result, setResult] = useState<PlanInterpretation | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [running, setRunning] = useState(false);
+  const saveChoices = useSaveInterpretation(planId);
 
-  const datum = datumText.trim() === "" ? null : Number(datumText.replace(",", "."));
+  const datum = typed(datumText);
   const datumBad = datum !== null && !Number.isFinite(datum);
+  const xyShown = typed(xyText);
+  const xyMetres =
+    method === "grm" && xyShown !== null && Number.isFinite(xyShown)
+      ? fromDisplay("length", xyShown, units)
+      : null;
+  const xyBad =
+    method === "grm" &&
+    xyShown !== null &&
+    (!Number.isFinite(xyShown) || xyMetres === null || xyMetres < 0 || xyMetres > 1000);
   const observed = useMemo(
     () =>
       picks.map((p) => ({
@@ -70,8 +134,11 @@ export function InterpretationPanel({
     [picks],
   );
 
+  const datumMetres = datum === null || datumBad ? null : fromDisplay("length", datum, units);
+  const xyUsed = xyBad ? null : xyMetres;
+
   useEffect(() => {
-    if (datumBad || observed.length === 0) return;
+    if (datumBad || xyBad || observed.length === 0) return;
     let live = true;
     setRunning(true);
     fieldWorker()
@@ -79,7 +146,8 @@ export function InterpretationPanel({
         method,
         assignments,
         elevations,
-        datum: datum === null ? null : fromDisplay("length", datum, units),
+        datum: datumMetres,
+        xy: xyUsed,
       })
       .then((r) => {
         if (!live) return;
@@ -95,7 +163,42 @@ export function InterpretationPanel({
     return () => {
       live = false;
     };
-  }, [observed, models, pickError, method, assignments, elevations, datum, datumBad, units]);
+  }, [
+    observed,
+    models,
+    pickError,
+    method,
+    assignments,
+    elevations,
+    datumMetres,
+    datumBad,
+    xyUsed,
+    xyBad,
+  ]);
+
+  // Keep the choices with the saved picks a moment after they change (not while a box is bad).
+  const pickSetSaved = savedSet?.revision !== null && savedSet?.revision !== undefined;
+  const current: InterpretationChoices = {
+    method,
+    datum: datumMetres,
+    xy: method === "grm" ? xyUsed : null,
+    assignments,
+    elevations,
+  };
+  const currentKey = canonicalChoices(current);
+  const storedKey = canonicalChoices(stored);
+  const unsaved = currentKey !== storedKey;
+  const { mutate: mutateChoices } = saveChoices;
+  useEffect(() => {
+    if (!canSave || !pickSetSaved || datumBad || xyBad || currentKey === storedKey) return;
+    const timer = setTimeout(() => {
+      mutateChoices({
+        interpretation:
+          currentKey === null ? null : (JSON.parse(currentKey) as InterpretationChoices),
+      });
+    }, SAVE_DELAY);
+    return () => clearTimeout(timer);
+  }, [canSave, pickSetSaved, datumBad, xyBad, currentKey, storedKey, mutateChoices]);
 
   const shown = assignments ?? result?.assignments ?? [];
   const maxLayer = Math.max(2, ...candidates.map((c) => c.model.layers.length));
@@ -133,6 +236,19 @@ export function InterpretationPanel({
             ))}
           </select>
         </label>
+        {method === "grm" ? (
+          <label className="flex flex-col gap-1">
+            <span className="font-medium text-ink">XY distance ({unitL})</span>
+            <input
+              className="field-input w-28 py-1"
+              inputMode="decimal"
+              placeholder="optimum"
+              value={xyText}
+              aria-invalid={xyBad}
+              onChange={(e) => setXyText(e.target.value)}
+            />
+          </label>
+        ) : null}
         <label className="flex flex-col gap-1">
           <span className="font-medium text-ink">Datum elevation ({unitL})</span>
           <input
@@ -162,6 +278,28 @@ export function InterpretationPanel({
         ) : null}
       </div>
       {datumBad ? <Notice tone="caution">The datum must be a number of {unitL}.</Notice> : null}
+      {xyBad ? (
+        <Notice tone="caution">
+          The XY distance must be a number of {unitL} from 0 to{" "}
+          {formatQuantity("length", 1000, units, 0)}, or empty for the optimum.
+        </Notice>
+      ) : null}
+      <p className="text-xs text-ink-soft" role="status">
+        {!canSave
+          ? "Your choices here are for this view only: the report and interpretation.csv use the ones saved with the picks."
+          : !pickSetSaved
+            ? "Save the picks to keep these choices for the report and interpretation.csv."
+            : saveChoices.isPending || (unsaved && !datumBad && !xyBad)
+              ? "Keeping your choices with the picks…"
+              : stored
+                ? "Your choices are kept with the picks; the report and interpretation.csv use them."
+                : "The defaults are in use; the report and interpretation.csv use them too."}
+      </p>
+      {saveChoices.isError ? (
+        <Notice tone="caution">
+          Your choices could not be kept: {errorMessage(saveChoices.error)}
+        </Notice>
+      ) : null}
       {elevationNote ? <p className="text-xs text-ink-soft">{elevationNote}</p> : null}
 
       <div>
