@@ -304,6 +304,16 @@ describe("Field check in the browser", () => {
     await table.scrollIntoViewIfNeeded();
     await screenshot(page, "field-interpretation-table");
 
+    // The choice is kept with the picks: a reload shows GRM again, and the exports use it.
+    await page.getByText("Your choices are kept with the picks", { exact: false }).waitFor();
+    await page.reload();
+    await page.getByRole("heading", { name: "Under the line" }).waitFor();
+    await expect(page.getByLabel("Method").inputValue()).resolves.toBe("grm");
+    await page
+      .getByRole("columnheader", { name: /Generalized reciprocal method/ })
+      .first()
+      .waitFor();
+
     // The CSV export carries the interpreted section.
     const csv = await page.request.fetch(`${app.url}/api/plans/${planId}/interpretation.csv`, {
       headers: { Origin: app.url },
@@ -314,6 +324,7 @@ describe("Field check in the browser", () => {
       "layer,method,position_m,depth_m,elevation_m,sigma_m,velocity_m_s,phantom,datum_m",
     );
     expect(lines.length).toBeGreaterThan(5);
+    for (const line of lines.slice(1)) expect(line.split(",")[1]).toBe("grm");
   });
 
   it("shows a lead who prefers feet the Field check and the report in ft and ft/s", async () => {
