@@ -215,3 +215,97 @@ describe("section models in a plan", () => {
     );
   });
 });
+
+describe("boreholes stored on a section model", () => {
+  const withBoreholes = (boreholes: unknown) => {
+    const p = good();
+    p.models[0].boreholes = boreholes;
+    return p;
+  };
+  const bh = (over: Record<string, unknown> = {}) => ({
+    name: "BH1",
+    position: 30,
+    depths: [5, 9],
+    ...over,
+  });
+
+  it("keeps boreholes with and without a top elevation, null depths included", () => {
+    const r = parsePlan(
+      withBoreholes([bh(), { name: "BH2", position: 90, top: 98.2, depths: [4.5, null] }]),
+    );
+    if (!r.ok) throw new Error(r.issues.join("\n"));
+    expect(r.plan.format).toBe("spreadsight-plan/2");
+    const model = r.plan.models[0];
+    expect(model.kind === "section" ? model.boreholes : null).toEqual([
+      { name: "BH1", position: 30, depths: [5, 9] },
+      { name: "BH2", position: 90, top: 98.2, depths: [4.5, null] },
+    ]);
+  });
+
+  it("does not change the analysis (boreholes are evidence only)", () => {
+    const plain = parsePlan(good());
+    const logged = parsePlan(withBoreholes([bh()]));
+    if (!plain.ok || !logged.ok) throw new Error("both plans should parse");
+    expect(JSON.stringify(analyzePlan(logged.plan))).toBe(JSON.stringify(analyzePlan(plain.plan)));
+  });
+
+  it("names the borehole and the field of a bad position, top or depth", () => {
+    const issues = issuesOf(
+      withBoreholes([
+        bh(),
+        bh({ name: "BH2", position: "far", top: NaN }),
+        bh({ name: "BH3", depths: [5, -1] }),
+        bh({ name: "BH4", depths: [6, 3] }),
+        bh({ name: "BH5", depths: [null, null] }),
+        bh({ name: " ", colour: "red" }),
+      ]),
+    );
+    expect(issues).toEqual(
+      expect.arrayContaining([
+        'models[0].boreholes[1].position: borehole "BH2" position must be a finite number',
+        'models[0].boreholes[1].top: borehole "BH2" top elevation must be a finite number (or left out: the surface there)',
+        'models[0].boreholes[2].depths[1]: borehole "BH3" depth 2 must not be negative',
+        'models[0].boreholes[3].depths[1]: borehole "BH4" depth 2 (3 m) is above the base of the layer over it (6 m)',
+        'models[0].boreholes[4].depths: borehole "BH5" logs no depths',
+        "models[0].boreholes[5].name: borehole 6 needs a name (1 to 80 characters)",
+        'models[0].boreholes[5].colour: borehole 6: unknown field "colour"',
+      ]),
+    );
+  });
+
+  it("refuses a borehole beyond the surface's extent, naming it", () => {
+    expect(issuesOf(withBoreholes([bh(), bh({ name: "BH9", position: 130 })]))).toEqual([
+      'models[0].boreholes[1].position: borehole "BH9" at 130 m stands beyond the section\'s surface (0 to 120 m)',
+    ]);
+  });
+
+  it("limits the count of boreholes and of logged bases", () => {
+    const many = Array.from({ length: 51 }, (_, i) => bh({ name: `B${i}`, position: i }));
+    expect(issuesOf(withBoreholes(many))).toContain(
+      "models[0].boreholes: a section has at most 50 boreholes",
+    );
+    const deep = Array.from({ length: 41 }, (_, i) => i + 1);
+    expect(issuesOf(withBoreholes([bh({ depths: deep })]))).toContain(
+      'models[0].boreholes[0].depths: borehole "BH1" logs at most 40 bases (it has 41)',
+    );
+    expect(issuesOf(withBoreholes("BH1"))).toContain(
+      "models[0].boreholes: boreholes must be a list of boreholes",
+    );
+  });
+
+  it("is not a field of a layered model", () => {
+    expect(
+      issuesOf({
+        name: "layered",
+        models: [
+          {
+            name: "two",
+            layers: [{ velocity: 500, thickness: 3 }, { velocity: 2000 }],
+            boreholes: [bh()],
+          },
+        ],
+        spread: { spacing: 2, channels: 12, firstGeophone: 0, shots: [{ position: -1 }] },
+      }),
+    ).toContain("models[0].boreholes: unknown field");
+  });
+});

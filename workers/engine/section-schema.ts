@@ -61,6 +61,119 @@ export const sectionLayerSchema = z.strictObject({
   base: polyline("base").optional(),
 });
 
+/** At most this many boreholes on a section, and this many logged bases per borehole. */
+export const MAX_BOREHOLES = 50;
+export const MAX_BOREHOLE_DEPTHS = 40;
+
+/**
+ * A borehole stored with a section model: evidence the interfaces were drawn from, never an
+ * input to the analysis. The same shape as a borehole file's row (section-import.ts).
+ */
+export interface SectionBorehole {
+  /** Free label, e.g. "BH2". */
+  name: string;
+  /** Position along the line, m. */
+  position: number;
+  /** Elevation of the borehole's top, m; omitted: the model's surface at `position`. */
+  top?: number;
+  /**
+   * Depth below the top of the base of layer 1, 2, … as logged, m; `null` where the layer is
+   * absent (it pinches out onto the one above) or the log does not say.
+   */
+  depths: Array<number | null>;
+}
+
+const isFiniteNumber = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
+
+/**
+ * Field checks of the stored boreholes, each message naming the borehole (e.g. `borehole
+ * "BH2" position must be a finite number`). Written by hand rather than as a zod object so
+ * the messages can say which borehole, which a per-field zod message cannot know.
+ */
+function boreholeFieldIssues(boreholes: readonly unknown[]): SectionIssue[] {
+  const issues: SectionIssue[] = [];
+  boreholes.forEach((raw, i) => {
+    if (!raw || typeof raw !== "object" || Array.isArray(raw)) {
+      issues.push({
+        path: [i],
+        message: `borehole ${i + 1} must be an object with name, position and depths`,
+      });
+      return;
+    }
+    const b = raw as Record<string, unknown>;
+    const nameOk = typeof b.name === "string" && b.name.trim() !== "" && b.name.length <= 80;
+    const label = nameOk ? `borehole "${(b.name as string).trim()}"` : `borehole ${i + 1}`;
+    if (!nameOk) {
+      issues.push({
+        path: [i, "name"],
+        message: `${label} needs a name (1 to 80 characters)`,
+      });
+    }
+    for (const key of Object.keys(b)) {
+      if (!["name", "position", "top", "depths"].includes(key))
+        issues.push({ path: [i, key], message: `${label}: unknown field "${key}"` });
+    }
+    if (!isFiniteNumber(b.position))
+      issues.push({ path: [i, "position"], message: `${label} position must be a finite number` });
+    if (b.top !== undefined && !isFiniteNumber(b.top))
+      issues.push({
+        path: [i, "top"],
+        message: `${label} top elevation must be a finite number (or left out: the surface there)`,
+      });
+    if (!Array.isArray(b.depths)) {
+      issues.push({ path: [i, "depths"], message: `${label} depths must be a list of depths` });
+      return;
+    }
+    if (b.depths.length > MAX_BOREHOLE_DEPTHS) {
+      issues.push({
+        path: [i, "depths"],
+        message: `${label} logs at most ${MAX_BOREHOLE_DEPTHS} bases (it has ${b.depths.length})`,
+      });
+      return;
+    }
+    let previous = 0;
+    b.depths.forEach((d, k) => {
+      if (d === null) return;
+      if (!isFiniteNumber(d)) {
+        issues.push({
+          path: [i, "depths", k],
+          message: `${label} depth ${k + 1} must be a finite number or null (layer absent)`,
+        });
+        return;
+      }
+      if (d < 0) {
+        issues.push({
+          path: [i, "depths", k],
+          message: `${label} depth ${k + 1} must not be negative`,
+        });
+      } else if (d < previous) {
+        issues.push({
+          path: [i, "depths", k],
+          message: `${label} depth ${k + 1} (${fmt(d)} m) is above the base of the layer over it (${fmt(previous)} m)`,
+        });
+      }
+      previous = Math.max(previous, d);
+    });
+    if (b.depths.every((d) => d === null))
+      issues.push({ path: [i, "depths"], message: `${label} logs no depths` });
+  });
+  return issues;
+}
+
+/** The stored boreholes of a section: a list checked borehole by borehole (see above). */
+export const sectionBoreholesSchema = z
+  .array(
+    z.custom<SectionBorehole>(() => true),
+    {
+      error: "boreholes must be a list of boreholes",
+    },
+  )
+  .max(MAX_BOREHOLES, `a section has at most ${MAX_BOREHOLES} boreholes`)
+  .superRefine((boreholes, ctx) => {
+    for (const issue of boreholeFieldIssues(boreholes))
+      ctx.addIssue({ code: "custom", path: issue.path, message: issue.message });
+  });
+
 /** Exported for the plan schema: the part of a section model zod checks field by field. */
 export const sectionModelShape = {
   kind: z.literal("section"),
@@ -76,6 +189,11 @@ export const sectionModelShape = {
   cellSize: positive("cell size")
     .refine((v) => v >= 0.02 && v <= 10, "cell size must be between 0.02 and 10 m")
     .optional(),
+  /**
+   * Optional boreholes along the line (name, position, optional top elevation, logged depths
+   * of the layer bases): stored as evidence for the interfaces, no effect on the analysis.
+   */
+  boreholes: sectionBoreholesSchema.optional(),
 };
 
 type Point = readonly [number, number];
@@ -175,6 +293,7 @@ function firstRise(
 export function sectionIssues(model: {
   surface: readonly Point[];
   layers: readonly { base?: readonly Point[]; velocityAt?: readonly Point[] }[];
+  boreholes?: readonly { name?: unknown; position?: unknown }[];
 }): SectionIssue[] {
   const issues: SectionIssue[] = [];
   const surface = model.surface;
@@ -189,6 +308,17 @@ export function sectionIssues(model: {
   const to = surface[surface.length - 1][0];
   if (issues.length === 0 && !(to > from)) {
     issues.push({ path: ["surface"], message: "the surface must span more than one position" });
+  }
+  if (issues.length === 0 && Array.isArray(model.boreholes)) {
+    model.boreholes.forEach((b, i) => {
+      const x = b?.position;
+      if (!isFiniteNumber(x) || (x >= from && x <= to)) return;
+      const label = typeof b.name === "string" && b.name.trim() ? `"${b.name.trim()}"` : i + 1;
+      issues.push({
+        path: ["boreholes", i, "position"],
+        message: `borehole ${label} at ${fmt(x)} m stands beyond the section's surface (${fmt(from)} to ${fmt(to)} m)`,
+      });
+    });
   }
   const n = model.layers.length;
   let above: readonly Point[] | null = issues.length === 0 ? surface : null;

@@ -42,6 +42,16 @@ export interface SectionDraft {
     base?: [number, number][];
   }>;
   cellSize?: number;
+  /**
+   * Boreholes imported along the line (section-import.ts), kept with the model as evidence:
+   * position and top in m, depths of the layer bases below the top in m (null: absent).
+   */
+  boreholes?: Array<{
+    name: string;
+    position: number;
+    top?: number;
+    depths: Array<number | null>;
+  }>;
 }
 
 export interface ModelForm {
@@ -126,6 +136,7 @@ export function planToForm(plan: Plan, units: UnitSystem): PlanForm {
               surface: model.surface,
               layers: model.layers,
               ...(model.cellSize !== undefined ? { cellSize: model.cellSize } : {}),
+              ...(model.boreholes?.length ? { boreholes: model.boreholes } : {}),
             }) as SectionDraft,
           }
         : {
@@ -251,7 +262,7 @@ export function formToPlanInput(
     name,
     models: form.models.map((model) =>
       model.section
-        ? { kind: "section", name: model.name, ...structuredClone(model.section) }
+        ? sectionInput(model.name, model.section)
         : {
             name: model.name,
             layers: model.layers.map((row, i) => {
@@ -318,6 +329,12 @@ export function formToPlanInput(
       depthTolerance: required(parseInput("length", form.criteria.depthTolerance, units)),
     },
   };
+}
+
+/** A section draft → its plan model input; an emptied borehole list is left out. */
+function sectionInput(name: string, section: SectionDraft): Record<string, unknown> {
+  const { boreholes, ...rest } = structuredClone(section);
+  return { kind: "section", name, ...rest, ...(boreholes?.length ? { boreholes } : {}) };
 }
 
 /** Form values (display units) → validated SI plan; errors sit on the typed field's path. */
