@@ -202,10 +202,13 @@ describe("interpretation choices kept with the picks", () => {
     expect((await apis.lead.get(`/api/plans/${planId}/picks`)).body.interpretation).toBeNull();
   });
 
-  it("are not changed by a reviewer", async () => {
-    const res = await apis.reviewer
-      .put(`/api/plans/${planId}/picks/interpretation`)
-      .send({ interpretation: grm });
-    expect(res.status).toBe(403);
+  it("are not changed by a reviewer, nor by a trainee outside a sandbox", async () => {
+    for (const api of [apis.reviewer, apis.trainee]) {
+      const res = await api
+        .put(`/api/plans/${planId}/picks/interpretation`)
+        .send({ interpretation: grm });
+      expect(res.status).toBe(403);
+    }
+    expect((await apis.lead.get(`/api/plans/${planId}/picks`)).body.interpretation).toBeNull();
   });
 });
