@@ -112,6 +112,8 @@ export function InterpretationPanel({
   const [error, setError] = useState<string | null>(null);
   const [running, setRunning] = useState(false);
   const saveChoices = useSaveInterpretation(planId);
+  /** Whether the user changed a choice here (a restored one in feet must not be re-saved). */
+  const [touched, setTouched] = useState(false);
 
   const datum = typed(datumText);
   const datumBad = datum !== null && !Number.isFinite(datum);
@@ -187,10 +189,10 @@ export function InterpretationPanel({
   };
   const currentKey = canonicalChoices(current);
   const storedKey = canonicalChoices(stored);
-  const unsaved = currentKey !== storedKey;
+  const unsaved = touched && currentKey !== storedKey;
   const { mutate: mutateChoices } = saveChoices;
   useEffect(() => {
-    if (!canSave || !pickSetSaved || datumBad || xyBad || currentKey === storedKey) return;
+    if (!canSave || !pickSetSaved || !unsaved || datumBad || xyBad) return;
     const timer = setTimeout(() => {
       mutateChoices({
         interpretation:
@@ -198,12 +200,13 @@ export function InterpretationPanel({
       });
     }, SAVE_DELAY);
     return () => clearTimeout(timer);
-  }, [canSave, pickSetSaved, datumBad, xyBad, currentKey, storedKey, mutateChoices]);
+  }, [canSave, pickSetSaved, unsaved, datumBad, xyBad, currentKey, mutateChoices]);
 
   const shown = assignments ?? result?.assignments ?? [];
   const maxLayer = Math.max(2, ...candidates.map((c) => c.model.layers.length));
   const editAssignment = (i: number, patch: Partial<LayerAssignment>) => {
     const next = shown.map((a, k) => (k === i ? { ...a, ...patch } : a));
+    setTouched(true);
     setAssignments(next);
   };
 
@@ -214,6 +217,7 @@ export function InterpretationPanel({
       setElevationNote(`${file.name}: ${read.errors.map((e) => e.message).join("; ")}`);
       return;
     }
+    setTouched(true);
     setElevations(read.points);
     setElevationNote(`${read.points.length} station elevations from ${file.name}.`);
   };
@@ -227,7 +231,10 @@ export function InterpretationPanel({
           <select
             className="field-input py-1"
             value={method}
-            onChange={(e) => setMethod(e.target.value as LineMethod)}
+            onChange={(e) => {
+              setTouched(true);
+              setMethod(e.target.value as LineMethod);
+            }}
           >
             {(Object.keys(LINE_METHODS) as LineMethod[]).map((m) => (
               <option key={m} value={m}>
@@ -245,7 +252,10 @@ export function InterpretationPanel({
               placeholder="optimum"
               value={xyText}
               aria-invalid={xyBad}
-              onChange={(e) => setXyText(e.target.value)}
+              onChange={(e) => {
+                setTouched(true);
+                setXyText(e.target.value);
+              }}
             />
           </label>
         ) : null}
@@ -257,7 +267,10 @@ export function InterpretationPanel({
             placeholder="lowest station"
             value={datumText}
             aria-invalid={datumBad}
-            onChange={(e) => setDatumText(e.target.value)}
+            onChange={(e) => {
+              setTouched(true);
+              setDatumText(e.target.value);
+            }}
           />
         </label>
         <label className="flex flex-col gap-1">
@@ -272,7 +285,13 @@ export function InterpretationPanel({
           />
         </label>
         {elevations ? (
-          <Button variant="quiet" onClick={() => setElevations(null)}>
+          <Button
+            variant="quiet"
+            onClick={() => {
+              setTouched(true);
+              setElevations(null);
+            }}
+          >
             Use the plan's surface
           </Button>
         ) : null}
@@ -369,7 +388,13 @@ export function InterpretationPanel({
           </table>
         </div>
         {assignments ? (
-          <Button variant="quiet" onClick={() => setAssignments(null)}>
+          <Button
+            variant="quiet"
+            onClick={() => {
+              setTouched(true);
+              setAssignments(null);
+            }}
+          >
             Back to the suggestion
           </Button>
         ) : null}

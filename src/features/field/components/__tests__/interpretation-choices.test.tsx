@@ -81,11 +81,17 @@ describe("InterpretationPanel choices", () => {
     expect(screen.getByRole("status")).toHaveTextContent("kept with the picks");
   });
 
-  it("shows the saved metres in feet for a user who prefers feet (1 ft = 0.3048 m)", () => {
-    stubFetch({});
-    renderPanel(pickSet({ method: "grm", xy: 3.048, datum: -30.48 }), "imperial");
+  it("shows the saved metres in feet (1 ft = 0.3048 m) and does not save them back unchanged", async () => {
+    vi.useFakeTimers();
+    const calls = stubFetch({});
+    renderPanel(pickSet({ method: "grm", xy: 3.048, datum: -2 }), "imperial");
     expect(screen.getByLabelText("XY distance (ft)")).toHaveValue("10");
-    expect(screen.getByLabelText("Datum elevation (ft)")).toHaveValue("-100");
+    // −2 m is −6.5617 ft, shown to 0.01 ft; reading it back would move the datum by 0.5 mm
+    expect(screen.getByLabelText("Datum elevation (ft)")).toHaveValue("-6.56");
+    await act(async () => {
+      vi.advanceTimersByTime(2000);
+    });
+    expect(calls).toHaveLength(0);
   });
 
   it("keeps a changed choice with the picks a moment later, and nothing before", async () => {
