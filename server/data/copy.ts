@@ -19,6 +19,7 @@ import {
   entities,
   Invitation,
   MailMessage,
+  MailOutboxRow,
   Membership,
   NotificationSetting,
   PasswordReset,
@@ -49,6 +50,8 @@ const ORDER: { entity: EntityTarget<ObjectLiteral>; batch: number }[] = [
   { entity: Invitation, batch: 500 },
   { entity: PasswordReset, batch: 500 },
   { entity: MailMessage, batch: 200 },
+  // Unsent notification e-mails travel with the database (sent ones are swept after a week).
+  { entity: MailOutboxRow, batch: 200 },
   { entity: AuditEvent, batch: 500 },
   { entity: Attachment, batch: 10 },
   { entity: PickSet, batch: 200 },
