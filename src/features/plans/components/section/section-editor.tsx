@@ -6,11 +6,12 @@ import { formatInput, parseInput, unitLabel, type UnitSystem } from "@/lib/units
 import type { Spread } from "../../lib/engine";
 import type { PlanForm, SectionDraft } from "../../lib/plan-form";
 import { insertPoint, movePoint, polylineOf, removePoint } from "../../lib/section-edit";
-import { buildSectionView, lineAt, lineLabel, layerName } from "../../lib/section-view";
-import type { Borehole } from "../../lib/section-import";
+import { buildSectionView, lineLabel, layerName } from "../../lib/section-view";
+import { boreholeTop, deepestDepth } from "../../lib/section-boreholes";
 import { CellInput, PhoneLabel } from "../designer/cell-input";
 import { SectionFigure, type PointRef } from "./section-figure";
 import { SectionImport } from "./section-import-box";
+import { SectionBoreholeList } from "./section-borehole-list";
 import { BoreholeLogs } from "./section-overlays";
 
 /** Least time between two models sent to the modeller while a point is dragged, ms. */
@@ -50,6 +51,10 @@ function describe(path: string[], draft: SectionDraft): Omit<SectionProblem, "me
       where: i === null ? "surface" : `surface, point ${i + 1}`,
       point: i === null ? null : { line: -1, index: i },
     };
+  }
+  if (path[0] === "boreholes") {
+    const b = path[1] === undefined ? undefined : draft.boreholes?.[Number(path[1])];
+    return { where: b ? `borehole ${b.name}` : "boreholes", point: null };
   }
   if (path[0] === "layers" && path[1] !== undefined) {
     const k = Number(path[1]);
@@ -114,7 +119,6 @@ export function SectionEditor({
   const draft = dragged ?? stored;
   const [selected, setSelected] = useState<PointRef | null>(null);
   const [line, setLine] = useState(-1);
-  const [boreholes, setBoreholes] = useState<Borehole[]>([]);
   const { ref, width } = useElementWidth<HTMLDivElement>(640);
   const frame = useRef(0);
   const lastSent = useRef(0);
@@ -148,10 +152,12 @@ export function SectionEditor({
             width: Math.max(360, width),
             units,
             exaggeration: "auto",
-            include: boreholes.map((b) => lineAt(draft.surface, b.position) - deepest(b)),
+            include: (draft.boreholes ?? []).map(
+              (b) => boreholeTop(draft.surface, b) - deepestDepth(b),
+            ),
           })
         : null,
-    [draft, spread, width, units, boreholes],
+    [draft, spread, width, units],
   );
 
   if (!draft) return null;
@@ -265,7 +271,12 @@ export function SectionEditor({
               : "Drag a point; click a line to add one; select a point and press Delete to remove it, arrow keys to nudge it (Shift: ×10)."
           }
         >
-          <BoreholeLogs view={view} boreholes={boreholes} surface={draft.surface} units={units} />
+          <BoreholeLogs
+            view={view}
+            boreholes={draft.boreholes ?? []}
+            surface={draft.surface}
+            units={units}
+          />
         </SectionFigure>
       ) : null}
 
@@ -420,6 +431,17 @@ export function SectionEditor({
           and the spacing.
         </span>
       </div>
+      <SectionBoreholeList
+        section={draft}
+        units={units}
+        readOnly={readOnly}
+        onRemove={(i) => {
+          const boreholes = (current.boreholes ?? []).filter((_, k) => k !== i);
+          const next: SectionDraft = { ...current, boreholes };
+          if (boreholes.length === 0) delete next.boreholes;
+          commit(next);
+        }}
+      />
       {!readOnly ? (
         <SectionImport
           draft={current}
@@ -429,17 +451,14 @@ export function SectionEditor({
             const layers = current.layers.map((l, k) =>
               k < current.layers.length - 1 && bases[k] ? { ...l, base: bases[k] } : l,
             );
-            setBoreholes(logs);
-            commit({ ...current, layers });
+            // the logs are kept with the model (replacing any stored before): the evidence the
+            // bases were interpolated from, saved with the plan and covered by undo
+            commit({ ...current, layers, boreholes: logs });
           }}
         />
       ) : null}
     </div>
   );
-}
-
-function deepest(b: Borehole): number {
-  return Math.max(0, ...b.depths.filter((d): d is number => d !== null));
 }
 
 /** A number box holding an SI value shown in the user's units; commits each valid number. */

@@ -77,12 +77,17 @@ export function SectionImport({
       const logs = parseBoreholeCsv(await file.text(), scale);
       const from = draft.surface[0][0];
       const to = draft.surface[draft.surface.length - 1][0];
+      const outside = logs.find((b) => b.position < from || b.position > to);
+      if (outside)
+        throw new ImportProblem(
+          `borehole ${outside.name} at ${formatQuantity("length", outside.position, units)} stands beyond the section's surface (${formatQuantity("length", from, units)} to ${formatQuantity("length", to, units)}); extend the surface first`,
+        );
       const bases = basesFromBoreholes(logs, (x) => lineAt(draft.surface, x), from, to);
       const used = Math.min(bases.length, draft.layers.length - 1);
       onBases(bases, logs);
       setMessage({
         tone: "ok",
-        text: `Boreholes: ${logs.map((b) => `${b.name} at ${formatQuantity("length", b.position, units)}`).join(", ")}; the bases of ${used} layer${used === 1 ? "" : "s"} are interpolated linearly between them and kept level beyond.${bases.length > used ? ` The file logs ${bases.length} bases; add layers to use the rest.` : ""}`,
+        text: `Boreholes: ${logs.map((b) => `${b.name} at ${formatQuantity("length", b.position, units)}`).join(", ")}; the bases of ${used} layer${used === 1 ? "" : "s"} are interpolated linearly between them and kept level beyond.${bases.length > used ? ` The file logs ${bases.length} bases; add layers to use the rest.` : ""} The boreholes are kept with the plan when you save (replacing any stored before).`,
       });
     } catch (error) {
       setMessage({ tone: "error", text: `${file.name}: ${problemText(error)}` });
@@ -162,7 +167,8 @@ export function SectionImport({
           <p className="text-xs text-ink-soft">
             One row per borehole: <span className="font-mono">name,position,depth1,depth2,…</span> —
             the depth below the ground of the base of layer 1, 2, … (blank: the layer is absent
-            there). Bases are interpolated linearly between boreholes.
+            there). Bases are interpolated linearly between boreholes; the boreholes are kept with
+            the plan.
           </p>
           <input
             id={`${id}-boreholes`}

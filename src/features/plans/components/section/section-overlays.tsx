@@ -11,10 +11,13 @@ import {
   rayPaths,
   stretchMarks,
 } from "../../lib/section-answers";
-import type { Borehole } from "../../lib/section-import";
-import { lineAt, type SectionView } from "../../lib/section-view";
+import { boreholeTop, type StoredBorehole } from "../../lib/section-boreholes";
+import type { SectionView } from "../../lib/section-view";
 
-/** Boreholes drawn as vertical logs where they stand, a tick at each logged base. */
+/**
+ * Boreholes drawn as vertical logs where they stand (from their own top, else the surface),
+ * a tick at each logged base.
+ */
 export function BoreholeLogs({
   view,
   boreholes,
@@ -22,19 +25,20 @@ export function BoreholeLogs({
   units,
 }: {
   view: SectionView;
-  boreholes: Borehole[];
+  boreholes: readonly StoredBorehole[];
   surface: [number, number][];
   units: UnitSystem;
 }) {
+  if (boreholes.length === 0) return null;
   return (
     <g aria-label="Boreholes">
-      {boreholes.map((b) => {
-        const ground = lineAt(surface, b.position);
+      {boreholes.map((b, index) => {
+        const ground = boreholeTop(surface, b);
         const px = view.x(b.position);
         const depths = b.depths.filter((d): d is number => d !== null);
         const bottom = view.y(ground - Math.max(0, ...depths));
         return (
-          <g key={b.name}>
+          <g key={`${index}:${b.name}`}>
             <rect
               x={px - 3}
               y={view.y(ground)}
