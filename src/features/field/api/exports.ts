@@ -5,5 +5,7 @@ export const exportUrls = (planId: string) => {
     report: `${base}/report.pdf`,
     stations: `${base}/stations.csv`,
     json: `${base}/export.json`,
+    /** The interpreted section under the line (needs saved picks). */
+    interpretation: `${base}/interpretation.csv`,
   };
 };

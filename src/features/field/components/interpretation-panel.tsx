@@ -29,6 +29,7 @@ import type {
   PlanInterpretation,
 } from "../../../../workers/field/index";
 import { usePicks } from "../api/get-picks";
+import { exportUrls } from "../api/exports";
 import { useSaveInterpretation } from "../api/save-interpretation";
 import type { Candidate } from "../lib/comparison";
 import { fieldWorker } from "../lib/field-worker";
@@ -314,6 +315,15 @@ export function InterpretationPanel({
                 ? "Your choices are kept with the picks; the report and interpretation.csv use them."
                 : "The defaults are in use; the report and interpretation.csv use them too."}
       </p>
+      {pickSetSaved && !unsaved ? (
+        <a
+          className="self-start text-sm font-medium text-ink underline decoration-rule underline-offset-2 hover:decoration-ink print:hidden"
+          href={exportUrls(planId).interpretation}
+          download
+        >
+          Download the interpreted section (CSV)
+        </a>
+      ) : null}
       {saveChoices.isError ? (
         <Notice tone="caution">
           Your choices could not be kept: {errorMessage(saveChoices.error)}

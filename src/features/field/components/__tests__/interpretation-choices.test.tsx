@@ -79,6 +79,10 @@ describe("InterpretationPanel choices", () => {
       assignments: stored.assignments,
     });
     expect(screen.getByRole("status")).toHaveTextContent("kept with the picks");
+    // The CSV that follows these choices is one click away.
+    expect(
+      screen.getByRole("link", { name: "Download the interpreted section (CSV)" }),
+    ).toHaveAttribute("href", `/api/plans/${planId}/interpretation.csv`);
   });
 
   it("shows the saved metres in feet (1 ft = 0.3048 m) and does not save them back unchanged", async () => {
