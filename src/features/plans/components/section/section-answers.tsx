@@ -24,6 +24,7 @@ import { VerdictBadge } from "../verdict-badge";
 import { SectionAxes, SectionGrid } from "./section-axes";
 import { SectionFigure } from "./section-figure";
 import {
+  BoreholeLogs,
   FeatureOverlay,
   InterpretationOverlay,
   RayOverlay,
@@ -440,6 +441,12 @@ export function SectionAnswerFigure({
           />
         ) : null}
         {plusMinus ? <ReadingOverlay view={view} reading={plusMinus} /> : null}
+        <BoreholeLogs
+          view={view}
+          boreholes={section.boreholes ?? []}
+          surface={section.surface}
+          units={units}
+        />
       </SectionFigure>
       <Legend />
       <p className="mt-2 text-sm text-ink">{worstSentence(analysis, section, units)}</p>
