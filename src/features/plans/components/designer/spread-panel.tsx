@@ -7,7 +7,7 @@ import type { PlanForm } from "../../lib/plan-form";
 import { patternShots, spreadFigures, type ShotPattern } from "../../lib/spread-figures";
 import { useDesignerSlots } from "../../designer-slots";
 import { AnchorCommentsChip } from "./anchor-comments";
-import { CellInput } from "./cell-input";
+import { CellInput, PhoneLabel } from "./cell-input";
 import { SourceReachPanel } from "./source-reach-panel";
 import { RollAlongFields } from "./roll-along-panel";
 import { ANCHOR_CHOICES, anchorChange, rowPosition } from "../../lib/shot-rows";
@@ -179,6 +179,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                     {i + 1}
                   </td>
                   <td className="py-1.5 pr-2 max-sm:p-0">
+                    <PhoneLabel>Where ({m})</PhoneLabel>
                     <div className="flex items-start gap-1">
                       <select
                         aria-label={`Shot ${i + 1} placed`}
@@ -230,6 +231,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                     ) : null}
                   </td>
                   <td className="py-1.5 pr-2 max-sm:col-start-2 max-sm:p-0">
+                    <PhoneLabel>Label</PhoneLabel>
                     <CellInput
                       label={`Shot ${i + 1} label`}
                       className="font-sans!"
@@ -238,6 +240,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                     />
                   </td>
                   <td className="py-1.5 pt-2 pr-2 font-mono text-xs text-ink-soft max-sm:col-start-2 max-sm:p-0">
+                    <PhoneLabel>Offsets it records</PhoneLabel>
                     {f && Number.isFinite(f.position) ? (
                       <>
                         {formatQuantity("length", f.nearestOffset, units)} to{" "}

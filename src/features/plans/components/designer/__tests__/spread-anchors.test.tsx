@@ -54,3 +54,13 @@ describe("SpreadPanel shot anchors (light)", () => {
     expect(screen.getByLabelText("Shot 5 placed")).toHaveValue("end");
   });
 });
+
+describe("SpreadPanel shot rows on a phone (light)", () => {
+  it("heads each box of a shot card with its column's name, as the table head is hidden below 640 px (issue 14)", () => {
+    render(<Harness values={values()} />);
+    const row = screen.getByLabelText("Shot 1 placed").closest("tr")!;
+    // PhoneLabel repeats the hidden table head inside the cell (shown only below `sm`).
+    for (const heading of ["Where (m)", "Label", "Offsets it records"])
+      expect(within(row).getByText(heading, { selector: "span.sm\\:hidden" })).toBeInTheDocument();
+  });
+});
