@@ -82,8 +82,10 @@ describe("boreholes kept with a section", () => {
     await list.waitFor();
     expect(await list.getByRole("row").count()).toBe(4);
     expect(await drawn(page)).toEqual(["BH1", "BH2", "BH3"]);
-    await list.scrollIntoViewIfNeeded();
     await screenshot(page, "section-boreholes-editor");
+    await page.getByRole("img", { name: /^Section being edited/ }).screenshot({
+      path: "tests/e2e/screenshots/section-boreholes-figure.png",
+    });
   }, 120_000);
 
   it("draws the stored boreholes on the Review screen's read-only section", async () => {

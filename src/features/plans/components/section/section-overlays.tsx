@@ -59,7 +59,18 @@ export function BoreholeLogs({
                 strokeWidth={1.5}
               />
             ))}
-            <text x={px + 7} y={bottom + 10} fontSize={10} fill={palette.inkDeep}>
+            {/* a light halo keeps the name legible over the dark lower layers */}
+            <text
+              x={px + 7}
+              y={bottom + 10}
+              fontSize={10}
+              fontWeight={600}
+              fill={palette.inkDeep}
+              stroke={palette.card}
+              strokeWidth={3}
+              strokeLinejoin="round"
+              paintOrder="stroke"
+            >
               {b.name}
             </text>
             <title>{`${b.name} at ${formatQuantity("length", b.position, units)}`}</title>
