@@ -208,7 +208,9 @@ export function applyChoices(
     const n = Math.max(spread.channels, channelsFor(needed, dx));
     const reach = (n - 1) * dx;
     const consequence = tooCoarse(dx)
-      ? `${n} channels at ${len(dx)} reach ${len(reach)}, but ${len(dx)} is coarser than the ${len(recommendation.maxSpacing!)} the thinnest layer needs: it stays under-sampled.`
+      ? // The recommended spacing is a guarantee (segment length / minimum count, wherever the
+        // geophones fall); a coarser one may still resolve, so say "may", not "stays".
+        `${n} channels at ${len(dx)} reach ${len(reach)}, but ${len(dx)} is coarser than the ${len(recommendation.maxSpacing!)} that gives the thinnest layer its geophones wherever they fall: it may be under-sampled (the verdict above says for this layout).`
       : n === spread.channels
         ? `The ${n} channels at ${len(dx)} already reach ${len(reach)} (${len(needed)} needed).`
         : `${n - spread.channels} more channels: ${n} at ${len(dx)} span ${len(reach)} (${len(needed)} needed).`;

@@ -55,6 +55,18 @@ describe("applyChoices", () => {
     );
   });
 
+  it("says a coarser kept spacing may be under-sampled, not that it is (a resolved 8 m × 12 design)", () => {
+    // 8 m is coarser than the 5.16 m guarantee, yet the plan's verdict can be resolved where the
+    // geophones happen to fall (seen in Chromium, issue 14 QA): the line must not contradict it.
+    const o = byChoice(
+      applyChoices(spread(8, 12), { maxSpacing: 5.16, spreadLength: 20.66 }, "metric"),
+    );
+    expect(o["keep-spacing"].consequence).toMatch(
+      /coarser than the 5\.16 m .*may be under-sampled/,
+    );
+    expect(o["keep-spacing"].consequence).not.toMatch(/stays under-sampled/);
+  });
+
   it("keeps the spread length at the finer recommended spacing and says when it falls short", () => {
     const o = byChoice(
       applyChoices(spread(5, 24), { maxSpacing: 2.6, spreadLength: 140 }, "metric"),
