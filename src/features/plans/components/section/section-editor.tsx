@@ -52,10 +52,8 @@ function describe(path: string[], draft: SectionDraft): Omit<SectionProblem, "me
       point: i === null ? null : { line: -1, index: i },
     };
   }
-  if (path[0] === "boreholes") {
-    const b = path[1] === undefined ? undefined : draft.boreholes?.[Number(path[1])];
-    return { where: b ? `borehole ${b.name}` : "boreholes", point: null };
-  }
+  // the schema's borehole messages name the borehole themselves
+  if (path[0] === "boreholes") return { where: "boreholes", point: null };
   if (path[0] === "layers" && path[1] !== undefined) {
     const k = Number(path[1]);
     const name = layerName(draft, k);

@@ -1,4 +1,4 @@
-import { fireEvent, render, screen, waitFor, within } from "@testing-library/react";
+import { act, fireEvent, render, screen, waitFor, within } from "@testing-library/react";
 import { FormProvider, useForm } from "react-hook-form";
 import { describe, expect, it } from "vitest";
 import type { Plan } from "@engine";
@@ -47,11 +47,11 @@ const sectionPlan = (): Plan =>
 
 let latest: ReturnType<typeof useForm<PlanForm>> | null = null;
 
-function Harness({ readOnly = false }: { readOnly?: boolean }) {
+function Harness({ readOnly = false, plan = sectionPlan() }: { readOnly?: boolean; plan?: Plan }) {
   const form = useForm<PlanForm, unknown, Plan>({
     resolver: planFormResolver("metric", "plan"),
     mode: "onChange",
-    defaultValues: planToForm(sectionPlan(), "metric"),
+    defaultValues: planToForm(plan, "metric"),
   });
   latest = form as never;
   return (
@@ -108,5 +108,18 @@ describe("boreholes in the section editor", () => {
     // the base now runs through the logs: 100 − 4 = 96 m at 30 m
     expect(latest!.getValues("models.0.section.layers.0.base")).toContainEqual([30, 96]);
     expect(screen.getByRole("status")).toHaveTextContent(/kept with the plan/);
+  });
+
+  it("lists a borehole the schema refuses among the section's problems, by name", async () => {
+    const plan = sectionPlan();
+    const model = plan.models[0] as { boreholes?: unknown[] };
+    model.boreholes = [{ name: "BH9", position: 130, depths: [4] }];
+    render(<Harness plan={plan} />);
+    await act(async () => {
+      await latest!.trigger();
+    });
+    expect(screen.getByRole("alert")).toHaveTextContent(
+      'boreholes: borehole "BH9" at 130 m stands beyond the section\'s surface (0 to 120 m)',
+    );
   });
 });
