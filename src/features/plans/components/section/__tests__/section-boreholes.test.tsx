@@ -122,4 +122,16 @@ describe("boreholes in the section editor", () => {
       'boreholes: borehole "BH9" at 130 m stands beyond the section\'s surface (0 to 120 m)',
     );
   });
+
+  it("refuses a borehole file with a borehole beyond the surface, keeping what was stored", async () => {
+    render(<Harness />);
+    const file = new File(["BH7,30,4\nBH8,150,6\n"], "far.csv", { type: "text/csv" });
+    fireEvent.change(screen.getByLabelText(/Layer bases from boreholes/), {
+      target: { files: [file] },
+    });
+    expect(await screen.findByText(/far\.csv: borehole BH8 at 150/)).toHaveTextContent(
+      "stands beyond the section's surface (0.00 m to 120.00 m)",
+    );
+    expect(stored()).toEqual(["BH1", "BH2"]);
+  });
 });
