@@ -1,4 +1,5 @@
-import { formatQuantity, formatSigned, localiseMessage, type UnitSystem } from "@/lib/units";
+import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
+import { readingInUnits, recommendationSentence } from "../../lib/recommendation-text";
 import type { ModelAnalysis, Plan, PlanAnalysis, Segment } from "../../lib/engine";
 import type { AppliedSpread } from "../../lib/apply-recommendation";
 import { ApplyChoicesPanel } from "./apply-choices-panel";
@@ -240,7 +241,7 @@ export function ResolvabilityPanel({
               className="rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick"
             >
               <span aria-hidden>⚑ </span>
-              {localiseMessage(h.statement, units)}
+              {readingInUnits(h.statement, units)}
             </li>
           ))}
         </ul>
@@ -251,7 +252,7 @@ export function ResolvabilityPanel({
         className="mt-4 rounded-md border border-rule bg-paper px-4 py-3"
       >
         <h3 className="text-sm font-semibold text-ink-deep">Recommendation</h3>
-        <p className="mt-1 text-sm">{localiseMessage(rec.text, units)}</p>
+        <p className="mt-1 text-sm">{recommendationSentence(rec, plan.spread.spacing, units)}</p>
         <p className="mt-1 font-mono text-xs text-ink-soft">
           Largest spacing{" "}
           {rec.maxSpacing === null ? "any" : formatQuantity("length", rec.maxSpacing, units)} ·

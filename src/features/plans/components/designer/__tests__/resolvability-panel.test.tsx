@@ -22,14 +22,18 @@ function renderPanel(units: "metric" | "imperial") {
 }
 
 describe("ResolvabilityPanel", () => {
-  it("gives the hidden-layer statement and the recommendation in feet for an imperial user", () => {
+  it("gives the hidden-layer statement and the recommendation in feet only for an imperial user", () => {
     renderPanel("imperial");
     const hidden = screen.getByRole("list", { name: "Layers no spread can reveal" });
-    // 1200 m/s = 3937 ft/s (1 ft = 0.3048 m exactly)
-    expect(within(hidden).getByText(/1200 m\/s \(3937 ft\/s\)/)).toBeInTheDocument();
+    // 1200 m/s = 3937 ft/s (1 ft = 0.3048 m exactly); issue 14: no mixed "m (ft)".
+    expect(within(hidden).getByText(/3,937 ft\/s/)).toBeInTheDocument();
+    expect(hidden.textContent).not.toMatch(/\d m\/s|\d m\b/);
     const rec = screen.getByRole("region", { name: "Recommendation" });
-    expect(rec.textContent).toMatch(/spacing at most [\d.]+ m \([\d.]+ ft\)/);
-    expect(rec.textContent).toMatch(/reaching [\d.]+ m \([\d.]+ ft\) offset/);
+    const sentence = rec.querySelector("p")!.textContent!;
+    expect(sentence).toMatch(
+      /spacing at most [\d.]+ ft and shot branches reaching [\d.,]+ ft offset/,
+    );
+    expect(sentence).not.toMatch(/\d m\b/);
   });
 
   it("keeps the engine's metric wording for a metric user", () => {

@@ -1,0 +1,38 @@
+/**
+ * The engine's recommendation sentence in the reader's units. The engine writes SI figures
+ * rounded for a sentence ("spacing at most 5.16 m … reaching 20.7 m offset"); the designer
+ * rewrites the opening figures from the recommendation's own numbers (so they agree with the
+ * "Largest spacing · branch length" line below it, in metres or feet) and the remaining lengths
+ * and velocities in the reader's unit, never as a mixed "5.16 m (16.93 ft)".
+ */
+import { formatQuantity, type UnitSystem } from "@/lib/units";
+
+const OPENING =
+  /^(Across \d+ ground models?)(.*?): use (?:any spacing|spacing at most [\d.]+ m) and shot branches reaching [\d.]+ m offset \((\d+) channels at [\d.]+ m span [\d.]+ m\)\.(.*)$/s;
+
+/** SI lengths and velocities written in a sentence ("142 m", "2400 m/s") in the reader's unit. */
+export function readingInUnits(text: string, units: UnitSystem): string {
+  if (units === "metric") return text;
+  return text.replace(/(-?\d+(?:\.\d+)?) (m\/s|m)\b/g, (_whole, value: string, unit: string) =>
+    formatQuantity(unit === "m/s" ? "velocity" : "length", Number(value), units),
+  );
+}
+
+export function recommendationSentence(
+  rec: { text: string; maxSpacing: number | null; spreadLength: number; channels: number },
+  spacingNow: number,
+  units: UnitSystem,
+): string {
+  const match = OPENING.exec(rec.text);
+  if (!match) return readingInUnits(rec.text, units);
+  const [, head, lead, , rest] = match;
+  const len = (m: number) => formatQuantity("length", m, units);
+  const spacing = rec.maxSpacing ?? spacingNow;
+  const spacingPart =
+    rec.maxSpacing === null ? "any spacing" : `spacing at most ${len(rec.maxSpacing)}`;
+  return (
+    `${head}${readingInUnits(lead, units)}: use ${spacingPart} and shot branches reaching ` +
+    `${len(rec.spreadLength)} offset (${rec.channels} channels at ${len(spacing)} span ` +
+    `${len((rec.channels - 1) * spacing)}).${readingInUnits(rest, units)}`
+  );
+}
