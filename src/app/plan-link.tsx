@@ -15,16 +15,28 @@ export const isPlanId = (id: string | undefined): boolean => !!id && PLAN_ID.tes
 export function PlanLinkGuard({ children }: { children: ReactNode }) {
   const { planId } = useParams();
   if (isPlanId(planId)) return <>{children}</>;
+  return <NotALink what="plan" />;
+}
+
+/** The same guard for a site's page (`:siteId`): site ids are UUIDs too. */
+export function SiteLinkGuard({ children }: { children: ReactNode }) {
+  const { siteId } = useParams();
+  if (isPlanId(siteId)) return <>{children}</>;
+  return <NotALink what="site" />;
+}
+
+function NotALink({ what }: { what: "plan" | "site" }) {
   return (
     <div className="flex max-w-2xl flex-col gap-3">
       <div
         role="alert"
         className="rounded-md border border-brick/40 bg-brick-soft px-4 py-3 text-sm text-brick"
       >
-        <p className="font-semibold">This plan link is not valid</p>
+        <p className="font-semibold">This {what} link is not valid</p>
         <p className="mt-0.5">
-          The address does not name a plan; it may have been cut short when it was copied. Open the
-          plan from its site instead.
+          {what === "plan"
+            ? "The address does not name a plan; it may have been cut short when it was copied. Open the plan from its site instead."
+            : "The address does not name a site; it may have been cut short when it was copied. Open the site from the list instead."}
         </p>
       </div>
       <Link to={paths.sites} className="text-sm text-ink underline">

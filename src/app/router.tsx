@@ -7,7 +7,7 @@ import { AppLayout } from "./layout";
 import { RequireAuth, RequireRole } from "./guards";
 import { paths } from "./paths";
 import { NotFoundPage } from "./not-found";
-import { PlanLinkGuard } from "./plan-link";
+import { PlanLinkGuard, SiteLinkGuard } from "./plan-link";
 
 /**
  * A screen loaded with its own chunk the first time it is shown (the first load carries only
@@ -84,7 +84,14 @@ const SettingsPage = lazyScreen(
 export const appRoutes: RouteObject[] = [
   { index: true, element: <Navigate to={paths.sites} replace /> },
   { path: paths.sites, element: <SitesPage /> },
-  { path: paths.site(), element: <SiteRoute /> },
+  {
+    path: paths.site(),
+    element: (
+      <SiteLinkGuard>
+        <SiteRoute />
+      </SiteLinkGuard>
+    ),
+  },
   {
     path: paths.plan(),
     element: (

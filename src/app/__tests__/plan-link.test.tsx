@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { render, screen } from "@testing-library/react";
 import { MemoryRouter, Route, Routes } from "react-router-dom";
-import { PlanLinkGuard, isPlanId } from "../plan-link";
+import { PlanLinkGuard, SiteLinkGuard, isPlanId } from "../plan-link";
 
 function at(url: string) {
   render(
@@ -35,5 +35,28 @@ describe("a plan link", () => {
     expect(screen.getByText("the plan page")).toBeInTheDocument();
     expect(isPlanId("5B1C0A3E-8F2D-4C61-9A7E-2D3F4B5C6D7E")).toBe(true);
     expect(isPlanId("5b1c0a3e-8f2d-4c61-9a7e")).toBe(false);
+  });
+});
+
+describe("a site link", () => {
+  it("says a mistyped site link is not valid instead of the server's 'id must be a UUID'", () => {
+    render(
+      <MemoryRouter initialEntries={["/sites/not-a-site"]}>
+        <Routes>
+          <Route
+            path="/sites/:siteId"
+            element={
+              <SiteLinkGuard>
+                <p>the site page</p>
+              </SiteLinkGuard>
+            }
+          />
+        </Routes>
+      </MemoryRouter>,
+    );
+    expect(screen.getByRole("alert")).toHaveTextContent("This site link is not valid");
+    expect(screen.queryByText(/UUID/)).toBeNull();
+    expect(screen.getByRole("link", { name: "Back to Sites" })).toHaveAttribute("href", "/sites");
+    expect(screen.queryByText("the site page")).toBeNull();
   });
 });
