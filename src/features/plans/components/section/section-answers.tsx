@@ -19,6 +19,7 @@ import {
   sideWord,
   STRETCH_STYLE,
 } from "../../lib/section-answers";
+import { boreholeTop, deepestDepth } from "../../lib/section-boreholes";
 import { buildSectionView } from "../../lib/section-view";
 import { VerdictBadge } from "../verdict-badge";
 import { SectionAxes, SectionGrid } from "./section-axes";
@@ -381,13 +382,16 @@ export function SectionAnswerFigure({
       ? (reading.result.readings.find((r) => r.method === "plus-minus") ?? null)
       : null;
   const include = useMemo(
-    () =>
-      interpreted
+    () => [
+      ...(interpreted
         ? analysis.section.interpretation.interfaces.flatMap((f) =>
             f.points.map((p) => p.elevation),
           )
-        : [],
-    [analysis, interpreted],
+        : []),
+      // the foot of each stored borehole stays inside the figure
+      ...(section.boreholes ?? []).map((b) => boreholeTop(section.surface, b) - deepestDepth(b)),
+    ],
+    [analysis, interpreted, section],
   );
   const view = useMemo(
     () =>
