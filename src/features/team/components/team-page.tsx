@@ -26,6 +26,14 @@ const ROLE_DUTIES: Record<Role, string> = {
   trainee: "reads team plans, works in a personal sandbox",
 };
 
+/** What a member of each role does, as a sentence's predicate after their name. */
+const ROLE_DOES: Record<Role, string> = {
+  admin: "does everything a survey lead may and runs the team",
+  lead: "creates sites and plans and submits them for review",
+  reviewer: "reads plans, writes review notes, and signs plans off or returns them with notes",
+  trainee: "reads team plans and works in a personal sandbox",
+};
+
 export function TeamPage() {
   const { data: me } = useMe();
   const members = useMembers();
@@ -76,8 +84,8 @@ export function TeamPage() {
             >
               <p>
                 Change {pendingMember.name}’s role from {ROLE_LABELS[pendingMember.role]} to{" "}
-                {ROLE_LABELS[pendingRole.role]}? As {ROLE_LABELS[pendingRole.role].toLowerCase()}{" "}
-                they {ROLE_DUTIES[pendingRole.role]}.
+                {ROLE_LABELS[pendingRole.role]}? As {ROLE_LABELS[pendingRole.role].toLowerCase()},{" "}
+                {pendingMember.name} {ROLE_DOES[pendingRole.role]}.
               </p>
               <span className="flex flex-wrap gap-2">
                 <Button disabled={changeRole.isPending} onClick={confirmRole}>

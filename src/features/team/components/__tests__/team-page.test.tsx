@@ -104,6 +104,10 @@ describe("TeamPage", () => {
     await userEvent.selectOptions(select, "lead");
     const confirm = screen.getByRole("group", { name: "Confirm the role change" });
     expect(confirm).toHaveTextContent("Change Rhys Reviewer’s role from Reviewer to Survey lead?");
+    // A whole sentence naming the member ("As survey lead they creates…" read wrongly).
+    expect(confirm).toHaveTextContent(
+      "As survey lead, Rhys Reviewer creates sites and plans and submits them for review.",
+    );
     expect(calls.some((c) => c.method === "PATCH")).toBe(false);
     await userEvent.click(within(confirm).getByRole("button", { name: "Keep Reviewer" }));
     expect(screen.queryByRole("group", { name: "Confirm the role change" })).toBeNull();
