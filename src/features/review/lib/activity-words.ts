@@ -1,5 +1,6 @@
 /** Audit actions in plain words for the activity lists ("plan.request_changes" → "returned the plan with notes"). */
 import { PLAN_STATUS_LABELS, PLAN_STATUSES, type PlanStatus } from "@/contracts/plans";
+import { ROLE_LABELS, ROLES, type Role } from "@/contracts/common";
 
 const ACTIONS: Record<string, string> = {
   "plan.create": "created the plan",
@@ -51,10 +52,13 @@ const KEY_WORDS: Record<string, string> = { fileName: "file" };
 
 const isStatus = (value: unknown): value is PlanStatus =>
   typeof value === "string" && (PLAN_STATUSES as readonly string[]).includes(value);
+const isRole = (value: unknown): value is Role =>
+  typeof value === "string" && (ROLES as readonly string[]).includes(value);
 
 /**
  * The useful parts of an event's detail, e.g. "In review → Changes requested · revision: 3 ·
- * note: tighten the spacing". Workflow statuses read in our own words.
+ * note: tighten the spacing". Workflow statuses and roles read in our own words ("Reviewer →
+ * Trainee", not the stored "reviewer → trainee").
  */
 export function describeDetail(detail: Record<string, unknown> | null): string {
   if (!detail) return "";
@@ -62,6 +66,8 @@ export function describeDetail(detail: Record<string, unknown> | null): string {
   const { from, to } = detail;
   if (isStatus(from) && isStatus(to)) {
     parts.push(`${PLAN_STATUS_LABELS[from]} → ${PLAN_STATUS_LABELS[to]}`);
+  } else if (isRole(from) && isRole(to)) {
+    parts.push(`${ROLE_LABELS[from]} → ${ROLE_LABELS[to]}`);
   } else if (
     (typeof from === "string" || typeof from === "number") &&
     (typeof to === "string" || typeof to === "number")
@@ -72,7 +78,7 @@ export function describeDetail(detail: Record<string, unknown> | null): string {
     const value = detail[key];
     if (value === undefined || value === null || value === "") continue;
     if (typeof value === "object") continue;
-    const text = String(value);
+    const text = key === "role" && isRole(value) ? ROLE_LABELS[value] : String(value);
     parts.push(`${KEY_WORDS[key] ?? key}: ${text.length > 140 ? `${text.slice(0, 139)}…` : text}`);
   }
   return parts.join(" · ");

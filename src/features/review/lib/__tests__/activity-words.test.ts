@@ -39,6 +39,15 @@ describe("activity words", () => {
     expect(describeDetail({ from: "Old name", to: "New name" })).toBe("Old name → New name");
   });
 
+  it("reads roles by their labels, not the stored keys", () => {
+    expect(describeDetail({ name: "Pip Galloway", from: "reviewer", to: "trainee" })).toBe(
+      "Reviewer → Trainee · name: Pip Galloway",
+    );
+    expect(describeDetail({ email: "new@example.test", role: "lead" })).toBe(
+      "email: new@example.test · role: Survey lead",
+    );
+  });
+
   it("finds the newest workflow step whatever the order, with its note when it has one", () => {
     const events = [
       {
