@@ -13,6 +13,8 @@ export interface VelocityTick {
   label: string;
 }
 
+const grouped = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
+
 /** 0 for 1·10ⁿ, 1 for 2·10ⁿ and 5·10ⁿ, 2 for other round values: rounder values win a place. */
 function roundness(v: number): number {
   const mantissa = Math.round(v / 10 ** Math.floor(Math.log10(v) + 1e-9));
@@ -35,7 +37,8 @@ export function velocityLegendTicks(
     throw new RangeError("velocity legend: velocities must be positive and finite");
   const lo = toDisplay("velocity", Math.min(vLo, vHi), units);
   const hi = toDisplay("velocity", Math.max(vLo, vHi), units);
-  const end = (v: number) => String(Math.round(v));
+  // Written as the layers' labels write velocities ("3,300 m/s"): whole, with thousands grouped.
+  const end = (v: number) => grouped.format(Math.round(v));
   if (end(lo) === end(hi)) return [{ at: 0.5, label: end(lo) }];
   const at = (v: number) => Math.log(v / lo) / Math.log(hi / lo);
   const kept: VelocityTick[] = [
@@ -50,7 +53,8 @@ export function velocityLegendTicks(
   for (const v of inner) {
     if (kept.length >= 5) break; // three values between the ends at most: a bar, not a ruler
     const t = at(v);
-    if (kept.every((k) => Math.abs(k.at - t) >= gap)) kept.push({ at: t, label: String(v) });
+    if (kept.every((k) => Math.abs(k.at - t) >= gap))
+      kept.push({ at: t, label: grouped.format(v) });
   }
   return kept.sort((a, b) => a.at - b.at);
 }
