@@ -209,7 +209,10 @@ export function buildHeatmap(
       result.axis.kind === "spacing"
         ? `Geophone spacing (${unitLabel("length", units)})`
         : "Channels",
-    yLabel: `Layer ${result.parameter.layer} ${result.parameter.kind}`,
+    yLabel: `Layer ${result.parameter.layer} ${result.parameter.kind} (${unitLabel(
+      result.parameter.kind === "thickness" ? "length" : "velocity",
+      units,
+    )})`,
   };
 }
 

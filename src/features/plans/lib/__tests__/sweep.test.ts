@@ -41,4 +41,9 @@ describe("design sweep helpers", () => {
     const outside = buildHeatmap(result, 600, "metric", { axis: 50, parameter: 6 });
     expect(outside.marker).toBeNull();
   });
+
+  it("titles both axes with their unit, as the x axis already was (issue 14 QA: 'Layer 2 thickness' had none)", () => {
+    expect(buildHeatmap(result, 600, "imperial").yLabel).toBe("Layer 2 thickness (ft)");
+    expect(buildHeatmap(result, 600, "metric").xLabel).toBe("Geophone spacing (m)");
+  });
 });
