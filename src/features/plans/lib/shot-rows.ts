@@ -23,10 +23,11 @@ export function rowPosition(
   row: ShotRow | undefined,
   geometry: SpreadGeometry | null,
   units: UnitSystem,
+  parse: typeof parseInput = parseInput,
 ): number | undefined {
   if (!row) return undefined;
-  if (!row.anchor) return parseInput("length", row.position, units);
-  const offset = parseInput("length", row.offset ?? "", units);
+  if (!row.anchor) return parse("length", row.position, units);
+  const offset = parse("length", row.offset ?? "", units);
   if (offset === undefined || geometry === null) return undefined;
   return anchorPoint(row.anchor, geometry) + offset;
 }
@@ -40,8 +41,9 @@ export function anchorChange(
   to: "" | ShotAnchorPoint,
   geometry: SpreadGeometry | null,
   units: UnitSystem,
+  parse: typeof parseInput = parseInput,
 ): ShotRow {
-  const at = rowPosition(row, geometry, units);
+  const at = rowPosition(row, geometry, units, parse);
   const { anchor: _anchor, offset: _offset, ...rest } = row;
   void _anchor;
   void _offset;

@@ -25,6 +25,7 @@ import { usePlanAnalysis, type PlanAnalysisState } from "../../hooks/use-plan-an
 import { GroundModelsPanel } from "./ground-models-panel";
 import { MaterialSourceNote } from "./material-picker";
 import { SpreadPanel } from "./spread-panel";
+import { ExactValuesContext } from "../../hooks/use-typed-number";
 import { ResultsPanel } from "./results-panel";
 import { SweepView } from "./sweep-view";
 import { CompareView } from "./compare-view";
@@ -356,7 +357,9 @@ function PlanDesigner({ detail, units }: { detail: PlanDetail; units: UnitSystem
                     </ErrorBoundary>
                   ) : (
                     <ErrorBoundary title="The spread panel failed to draw">
-                      <MemoSpreadPanel units={units} readOnly={readOnly} />
+                      <ExactValuesContext.Provider value={exact}>
+                        <MemoSpreadPanel units={units} readOnly={readOnly} />
+                      </ExactValuesContext.Provider>
                     </ErrorBoundary>
                   )}
                 </fieldset>

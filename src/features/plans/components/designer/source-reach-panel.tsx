@@ -10,6 +10,7 @@ import {
 import { formatQuantity, parseInput, type UnitSystem } from "@/lib/units";
 import type { PlanForm } from "../../lib/plan-form";
 import { rowPosition } from "../../lib/shot-rows";
+import { useTypedNumber } from "../../hooks/use-typed-number";
 
 const SOURCE_LABELS: Record<SourceType, string> = {
   sledgehammer: "sledgehammer",
@@ -26,10 +27,11 @@ const SOURCE_LABELS: Record<SourceType, string> = {
 export function SourceReachPanel({ units, readOnly }: { units: UnitSystem; readOnly: boolean }) {
   const { control, register } = useFormContext<PlanForm>();
   const spread = useWatch({ control, name: "spread" });
+  const parse = useTypedNumber();
   const geometry = {
-    spacing: parseInput("length", spread?.spacing, units) ?? Number.NaN,
+    spacing: parse("length", spread?.spacing, units) ?? Number.NaN,
     channels: parseInput("count", spread?.channels, units) ?? Number.NaN,
-    firstGeophone: parseInput("length", spread?.firstGeophone, units) ?? Number.NaN,
+    firstGeophone: parse("length", spread?.firstGeophone, units) ?? Number.NaN,
   };
   const sound =
     geometry.spacing > 0 && Number.isInteger(geometry.channels) && geometry.channels >= 1;
@@ -40,7 +42,7 @@ export function SourceReachPanel({ units, readOnly }: { units: UnitSystem; readO
     .map((row, i) => ({
       i,
       source: (row.source || "") as SourceType | "",
-      at: rowPosition(row, sound ? geometry : null, units),
+      at: rowPosition(row, sound ? geometry : null, units, parse),
     }))
     .filter(
       (s): s is { i: number; source: SourceType; at: number } =>

@@ -12,6 +12,7 @@ import { SourceReachPanel } from "./source-reach-panel";
 import { RollAlongFields } from "./roll-along-panel";
 import { ANCHOR_CHOICES, anchorChange, rowPosition } from "../../lib/shot-rows";
 import { errorAt } from "./ground-models-panel";
+import { useTypedNumber } from "../../hooks/use-typed-number";
 
 const PATTERNS: Array<{ pattern: ShotPattern; label: string }> = [
   { pattern: "ends", label: "End shots" },
@@ -29,10 +30,12 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
   const m = unitLabel("length", units);
   const comments = useDesignerSlots() !== null;
 
+  // Unchanged boxes stand for their stored SI values, as in the analysis (use-typed-number.ts).
+  const parse = useTypedNumber();
   const geometry = {
-    spacing: parseInput("length", spread?.spacing, units),
+    spacing: parse("length", spread?.spacing, units),
     channels: parseInput("count", spread?.channels, units),
-    firstGeophone: parseInput("length", spread?.firstGeophone, units),
+    firstGeophone: parse("length", spread?.firstGeophone, units),
   };
   const sound =
     geometry.spacing !== undefined &&
@@ -43,7 +46,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
     geometry.firstGeophone !== undefined &&
     Number.isFinite(geometry.firstGeophone);
   const shotPositions = (spread?.shots ?? []).map((s) =>
-    rowPosition(s, sound ? (geometry as never) : null, units),
+    rowPosition(s, sound ? (geometry as never) : null, units, parse),
   );
   const figures = sound
     ? spreadFigures(
@@ -193,6 +196,7 @@ export function SpreadPanel({ units, readOnly }: { units: UnitSystem; readOnly: 
                             e.target.value as never,
                             sound ? (geometry as never) : null,
                             units,
+                            parse,
                           );
                           setValue(`spread.shots.${i}`, next, { shouldDirty: true });
                         }}
