@@ -398,4 +398,60 @@ describe("Field check in the browser", () => {
       await setUnits("metric");
     }
   });
+  it("fits a phone's width and prints its charts whole on a page narrower than the screen", async () => {
+    const { page } = browser;
+    await page.setViewportSize({ width: 390, height: 844 });
+    try {
+      await page.goto(`${app.url}/plans/${planId}/field`);
+      await page.getByRole("table", { name: /Under every geophone/ }).waitFor();
+      await page.getByRole("table", { name: /how well each ground model fits/i }).waitFor();
+      // At 390 px (a common phone width) nothing reaches past the screen's right edge: the fits
+      // table once did by 13 px.
+      const extra = await page.evaluate(
+        () =>
+          window.document.documentElement.scrollWidth - window.document.documentElement.clientWidth,
+      );
+      expect(extra).toBeLessThanOrEqual(0);
+      // The segment boxes keep room for their numbers and the layer box for "1 (direct wave)"
+      // (squeezed to about 60 and 45 px before).
+      const from = await page.getByLabel("Segment 1 from").boundingBox();
+      const layer = await page.getByLabel("Segment 1 layer").boundingBox();
+      expect(from?.width ?? 0).toBeGreaterThanOrEqual(100);
+      expect(layer?.width ?? 0).toBeGreaterThanOrEqual(130);
+      await screenshot(page, "field-check-phone");
+
+      // Print: charts are drawn for the screen's width and not redrawn for paper. With the page
+      // laid out narrower than the screen, each chart must shrink inside its card, not stick out.
+      await page.setViewportSize({ width: 1360, height: 900 });
+      await page.getByRole("button", { name: "Open" }).first().click();
+      await page.getByTestId("record-section").waitFor();
+      await page.getByTestId("residual-chart").waitFor();
+      await page.emulateMedia({ media: "print" });
+      const sticking = await page.evaluate(() => {
+        const main = window.document.querySelector("main") as HTMLElement;
+        main.style.width = "700px";
+        const out: string[] = [];
+        for (const id of ["td-chart", "residual-chart", "record-section"]) {
+          const chart = window.document.querySelector(`[data-testid="${id}"]`);
+          const card = chart?.closest("section");
+          if (!chart || !card) {
+            out.push(`${id}: missing`);
+            continue;
+          }
+          const over = chart.getBoundingClientRect().right - card.getBoundingClientRect().right;
+          if (over > 0) out.push(`${id}: ${Math.round(over)} px past its card`);
+        }
+        // A legend's swatch is a coloured background: it must print.
+        const swatch = window.document.querySelector("main p span.rounded-full");
+        if (swatch && getComputedStyle(swatch).printColorAdjust !== "exact")
+          out.push("legend swatches print without their colour");
+        main.style.width = "";
+        return out;
+      });
+      expect(sticking).toEqual([]);
+    } finally {
+      await page.emulateMedia({ media: "screen" });
+      await page.setViewportSize({ width: 1360, height: 900 });
+    }
+  });
 });

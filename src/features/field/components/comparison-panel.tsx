@@ -51,8 +51,10 @@ export function FitTable({
           <th className="py-1.5 pr-2 font-medium">Shown</th>
           <th className="py-1.5 pr-2 font-medium">Ground model</th>
           <th className="py-1.5 pr-2 text-right font-medium">RMS residual</th>
-          <th className="py-1.5 pr-2 text-right font-medium">Mean residual</th>
-          <th className="py-1.5 text-right font-medium">Picks modelled</th>
+          <th className="hidden py-1.5 pr-2 text-right font-medium sm:table-cell">Mean residual</th>
+          <th className="py-1.5 text-right font-medium">
+            Picks<span className="hidden sm:inline"> modelled</span>
+          </th>
         </tr>
       </thead>
       <tbody>
@@ -87,8 +89,16 @@ export function FitTable({
                 </span>
               ) : null}
             </td>
-            <td className="py-1.5 pr-2 text-right font-mono">{ms(fit.rms, 2)}</td>
-            <td className="py-1.5 pr-2 text-right font-mono">{signedMs(fit.meanResidual, 2)}</td>
+            <td className="py-1.5 pr-2 text-right font-mono">
+              {ms(fit.rms, 2)}
+              {/* On a phone the mean residual reads under the RMS (no room for its column). */}
+              <span className="block text-xs text-ink-soft sm:hidden">
+                mean {signedMs(fit.meanResidual, 2)}
+              </span>
+            </td>
+            <td className="hidden py-1.5 pr-2 text-right font-mono sm:table-cell">
+              {signedMs(fit.meanResidual, 2)}
+            </td>
             <td className="py-1.5 text-right font-mono">
               {fit.count}
               {fit.unmodelled > 0 ? (
@@ -157,6 +167,8 @@ export function TimeDistanceChart({
       <svg
         width={frame.width}
         height={frame.height}
+        viewBox={`0 0 ${frame.width} ${frame.height}`}
+        className="block h-auto max-w-full"
         role="img"
         aria-label={`Time–distance chart: ${picks.length} observed picks over the modelled first arrivals of ${candidates.length} ground model${candidates.length === 1 ? "" : "s"}`}
         style={{ fontFamily: chartFont }}
@@ -328,6 +340,8 @@ export function ResidualChart({
       <svg
         width={width}
         height={height}
+        viewBox={`0 0 ${width} ${height}`}
+        className="block h-auto max-w-full"
         role="img"
         aria-label={`Residuals per geophone against ${fit.name}`}
         style={{ fontFamily: chartFont }}

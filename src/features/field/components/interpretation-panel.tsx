@@ -342,61 +342,71 @@ export function InterpretationPanel({
           Layer 1 is the direct wave; layer 2 the head wave along the top of layer 2, and so on.
           Geophones between “from” and “to” of a shot belong to that layer.
         </p>
-        <div className="overflow-x-auto">
-          <table className="text-sm">
-            <caption className="sr-only">Segments assigned to refractors</caption>
-            <thead>
-              <tr className="text-left text-ink-soft">
-                <th className="pr-4 font-medium">Shot ({unitL})</th>
-                <th className="pr-4 font-medium">From ({unitL})</th>
-                <th className="pr-4 font-medium">To ({unitL})</th>
-                <th className="pr-4 font-medium">Layer</th>
-              </tr>
-            </thead>
-            <tbody>
-              {shown.map((a, i) => (
-                <tr key={`${a.shot}-${a.from}-${i}`}>
-                  <td className="pr-4 font-mono">{length(a.shot, units)}</td>
-                  {(["from", "to"] as const).map((key) => (
-                    <td key={key} className="pr-4">
-                      <input
-                        className="field-input w-24 py-0.5 font-mono"
-                        aria-label={`Segment ${i + 1} ${key}`}
-                        defaultValue={String(
-                          Number(
-                            toDisplay("length", a[key], units).toFixed(
-                              inputDigits("length", units),
-                            ),
-                          ),
-                        )}
-                        onBlur={(e) => {
-                          const v = Number(e.target.value.replace(",", "."));
-                          if (Number.isFinite(v)) {
-                            editAssignment(i, { [key]: fromDisplay("length", v, units) });
-                          }
-                        }}
-                      />
-                    </td>
-                  ))}
-                  <td className="pr-4">
-                    <select
-                      className="field-input py-0.5"
-                      aria-label={`Segment ${i + 1} layer`}
-                      value={a.layer}
-                      onChange={(e) => editAssignment(i, { layer: Number(e.target.value) })}
-                    >
-                      {Array.from({ length: maxLayer }, (_, k) => k + 1).map((l) => (
-                        <option key={l} value={l}>
-                          {l === 1 ? "1 (direct wave)" : `${l}`}
-                        </option>
-                      ))}
-                    </select>
+        {/* A table on wider screens; on a phone each segment is a small block (shot, then from
+            and to side by side, then the layer) so no box is squeezed or cut off. */}
+        <table className="text-sm max-sm:block max-sm:w-full">
+          <caption className="sr-only">Segments assigned to refractors</caption>
+          <thead className="max-sm:hidden">
+            <tr className="text-left text-ink-soft">
+              <th className="pr-4 font-medium">Shot ({unitL})</th>
+              <th className="pr-4 font-medium">From ({unitL})</th>
+              <th className="pr-4 font-medium">To ({unitL})</th>
+              <th className="pr-4 font-medium">Layer</th>
+            </tr>
+          </thead>
+          <tbody className="max-sm:block">
+            {shown.map((a, i) => (
+              <tr
+                key={`${a.shot}-${a.from}-${i}`}
+                className="max-sm:grid max-sm:grid-cols-2 max-sm:gap-x-3 max-sm:gap-y-1 max-sm:border-b max-sm:border-rule/60 max-sm:py-2"
+              >
+                <td className="pr-4 font-mono max-sm:col-span-2">
+                  <span className="font-sans text-xs text-ink-soft sm:hidden">Shot at </span>
+                  {length(a.shot, units)}
+                </td>
+                {(["from", "to"] as const).map((key) => (
+                  <td key={key} className="pr-4 max-sm:pr-0">
+                    <span className="block text-xs text-ink-soft sm:hidden" aria-hidden>
+                      {key === "from" ? "From" : "To"} ({unitL})
+                    </span>
+                    <input
+                      className="field-input w-24 py-0.5 font-mono"
+                      aria-label={`Segment ${i + 1} ${key}`}
+                      defaultValue={String(
+                        Number(
+                          toDisplay("length", a[key], units).toFixed(inputDigits("length", units)),
+                        ),
+                      )}
+                      onBlur={(e) => {
+                        const v = Number(e.target.value.replace(",", "."));
+                        if (Number.isFinite(v)) {
+                          editAssignment(i, { [key]: fromDisplay("length", v, units) });
+                        }
+                      }}
+                    />
                   </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+                ))}
+                <td className="pr-4 max-sm:col-span-2 max-sm:pr-0">
+                  <span className="block text-xs text-ink-soft sm:hidden" aria-hidden>
+                    Layer
+                  </span>
+                  <select
+                    className="field-input py-0.5"
+                    aria-label={`Segment ${i + 1} layer`}
+                    value={a.layer}
+                    onChange={(e) => editAssignment(i, { layer: Number(e.target.value) })}
+                  >
+                    {Array.from({ length: maxLayer }, (_, k) => k + 1).map((l) => (
+                      <option key={l} value={l}>
+                        {l === 1 ? "1 (direct wave)" : `${l}`}
+                      </option>
+                    ))}
+                  </select>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
         {assignments ? (
           <Button
             variant="quiet"
