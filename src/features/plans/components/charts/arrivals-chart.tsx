@@ -188,8 +188,9 @@ export function ArrivalsChart({
           </g>
         ) : null}
       </svg>
+      {/* figures of the pointed geophone in monospace; the helper sentence in the text face */}
       <p
-        className="mt-1 min-h-5 font-mono text-xs text-ink-deep print:hidden"
+        className={`mt-1 min-h-5 text-xs text-ink-deep print:hidden ${hover ? "font-mono" : "font-sans"}`}
         aria-live="polite"
         data-testid="arrivals-readout"
       >

@@ -35,6 +35,13 @@ function renderChart(plan: Plan, shot = 0) {
 }
 
 describe("ArrivalsChart", () => {
+  it("writes its helper sentence in the text face, not monospace (issue 14 nit)", () => {
+    renderChart(threeLayerPlan());
+    const readout = screen.getByTestId("arrivals-readout");
+    expect(readout).toHaveTextContent("Point at the chart to read a geophone's first break.");
+    expect(readout.className).not.toContain("font-mono");
+  });
+
   it("flags a blind refractor in brick red with the reason", () => {
     const analysis = renderChart(blindLayerPlan());
     // Precondition from the engine: the thin lens is blind (design.md: a thin layer's head
