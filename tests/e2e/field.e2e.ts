@@ -426,6 +426,11 @@ describe("Field check in the browser", () => {
       await page.getByRole("button", { name: "Open" }).first().click();
       await page.getByTestId("record-section").waitFor();
       await page.getByTestId("residual-chart").waitFor();
+      // The helper sentence under the record is set in the text face, not the numbers' monospace.
+      const helperFont = await page
+        .getByText("Click a trace to set its pick at that time.")
+        .evaluate((el) => getComputedStyle(el).fontFamily);
+      expect(helperFont).not.toMatch(/mono/i);
       await page.emulateMedia({ media: "print" });
       const sticking = await page.evaluate(() => {
         const main = window.document.querySelector("main") as HTMLElement;

@@ -339,7 +339,11 @@ export function RecordSection({
           }}
         />
       </div>
-      <p className="mt-1 h-5 font-mono text-xs text-ink-soft" aria-live="polite">
+      {/* The readout is numbers (monospace); the helper sentence shown without a pointer is not. */}
+      <p
+        className={`mt-1 min-h-5 text-xs text-ink-soft ${hover && hovered ? "font-mono" : ""}`}
+        aria-live="polite"
+      >
         {hover && hovered
           ? `channel ${record.traces[hover.trace].channel ?? hover.trace + 1} · geophone ${length(hovered.receiverPosition, units)} · ${ms(hover.time, 2)}` +
             (hoveredPick
