@@ -113,7 +113,15 @@ describe("designer practice", () => {
     await page.getByRole("button", { name: "Run sweep" }).click();
     await page.getByRole("grid", { name: "Design sweep heatmap" }).waitFor({ timeout: 60_000 });
     await page.locator('[data-role="y-title"]').waitFor();
-    expect(await page.locator('[data-role="y-title"]').textContent()).toMatch(/^Layer \d/);
+    // The y title names its unit, as the spacing axis does (issue 14 QA).
+    expect(await page.locator('[data-role="y-title"]').textContent()).toMatch(
+      /^Layer \d \w+ \((m|m\/s)\)$/,
+    );
+    // The helper sentence under the grid is in the text face; only a pointed cell's figures
+    // are monospace (issue 14 nit: helper sentences in monospace).
+    const readout = page.getByTestId("sweep-readout");
+    expect(await readout.textContent()).toMatch(/\(rows\) against .* \(columns\)\.$/);
+    expect(await readout.evaluate((el) => getComputedStyle(el).fontFamily)).not.toMatch(/mono/i);
     expect(await page.getByText(/worst verdict over all refractors/).count()).toBe(1);
     await screenshot(page, "designer-practice-sweep");
   });

@@ -617,7 +617,11 @@ function Heatmap({
           {heatmap.yLabel}
         </text>
       </svg>
-      <p className="mt-1 min-h-5 font-mono text-xs text-ink-deep" aria-live="polite">
+      <p
+        className={`mt-1 min-h-5 text-xs text-ink-deep ${active ? "font-mono" : "font-sans"}`}
+        aria-live="polite"
+        data-testid="sweep-readout"
+      >
         {active
           ? active.readout
           : `${heatmap.yLabel} (rows) against ${heatmap.xLabel.toLowerCase()} (columns).`}
