@@ -183,7 +183,7 @@ describe("team review in the browser", () => {
     const before = await spacing.inputValue();
     expect(Number(before)).toBeGreaterThan(0);
     await spacing.fill(String(Number(before) / 2));
-    const channels = page.getByLabel("Channels");
+    const channels = page.getByLabel("Channels", { exact: true });
     const channelsBefore = Number(await channels.inputValue());
     await channels.fill(String(channelsBefore * 2));
     await page.getByRole("button", { name: "Save" }).click();
