@@ -9,6 +9,7 @@
 import { scaleLinear, type ScaleLinear } from "d3-scale";
 import { line } from "d3-shape";
 import { arrivalColour } from "@/lib/chart/palette";
+import { tickCount } from "@/lib/chart/tick-count";
 import { formatQuantity, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type { ArrivalCurves, BranchVerdict, ModelAnalysis, ShotArrivals, Status } from "./engine";
 
@@ -187,7 +188,7 @@ export function buildArrivalsChart(input: ArrivalsChartInput): ArrivalsChartMode
 
   // Ticks in display units (offset in m or ft, time in ms).
   const xShown = scaleLinear().domain(x.domain().map((d) => toDisplay("length", d, units)));
-  const xTicks = xShown.ticks(8).map((v) => ({
+  const xTicks = xShown.ticks(tickCount(width - margin.left - margin.right)).map((v) => ({
     px: x(v / toDisplay("length", 1, units)),
     label: String(v),
   }));

@@ -11,6 +11,7 @@ import { palette } from "@/lib/chart/palette";
 import { toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import type { GroundModel, RayPath, Spread } from "./engine";
 import { velocityLegendTicks } from "./velocity-legend";
+import { tickCount } from "@/lib/chart/tick-count";
 
 export interface SectionInput {
   model: GroundModel;
@@ -56,12 +57,20 @@ export interface SectionModel {
   geophones: Array<{ number: number; x: number; position: number }>;
   shots: Array<{ index: number; x: number; label: string; selected: boolean }>;
   ray: { path: string; points: Array<[number, number]> } | null;
+  /** The scale note above the plot ("vertical exaggeration ×5"; shorter on a narrow chart). */
+  scaleNote: string;
   legend: {
     stops: Array<{ offset: number; colour: string }>;
     ticks: Array<{ at: number; label: string }>;
     unit: string;
+    /** The bar's width, px, and the words at its left ("velocity (m/s)", or the unit alone). */
+    width: number;
+    label: string;
   };
 }
+
+/** Below this width (px) a chart is a phone's: fewer ticks, shorter notes. */
+export const NARROW_CHART = 520;
 
 /** The velocity shading: light for slow ground, deep teal for fast rock. */
 export function velocityColour(vMin: number, vMax: number) {
@@ -155,7 +164,9 @@ export function buildSection(input: SectionInput): SectionModel {
 
   const xShown = scaleLinear().domain([x0, x1].map((v) => toDisplay("length", v, units)));
   const perUnit = toDisplay("length", 1, units);
-  const xTicks = xShown.ticks(8).map((v) => ({ px: x(v / perUnit), label: String(v) }));
+  const xTicks = xShown
+    .ticks(tickCount(width - margin.left - margin.right))
+    .map((v) => ({ px: x(v / perUnit), label: String(v) }));
   const zShownDisplay = scaleLinear().domain([0, toDisplay("length", zShown, units)]);
   const yTicks = zShownDisplay.ticks(5).map((v) => ({ px: y(v / perUnit), label: String(v) }));
 
@@ -169,6 +180,11 @@ export function buildSection(input: SectionInput): SectionModel {
   // the bar spans every velocity drawn (the half-space included), labelled at both ends
   const vLo = Math.min(...velocities);
   const vHi = Math.max(...velocities);
+  // On a phone the bar is short: its labels (up to "10,827", about 40 px at 9 px) keep 44 px
+  // apart, and the words beside it shrink so they no longer run into the scale note.
+  const narrow = width < NARROW_CHART;
+  const legendWidth = Math.min(220, width * 0.35);
+  const velocityUnit = unitLabel("velocity", units);
 
   return {
     width,
@@ -177,6 +193,12 @@ export function buildSection(input: SectionInput): SectionModel {
     x,
     y,
     exaggeration,
+    scaleNote:
+      exaggeration === 1
+        ? narrow
+          ? "true scale"
+          : "true scale (no vertical exaggeration)"
+        : `${narrow ? "vertical" : "vertical exaggeration"} ×${exaggeration}`,
     xTicks,
     yTicks,
     xLabel: `Position along the line (${unitLabel("length", units)})`,
@@ -198,8 +220,10 @@ export function buildSection(input: SectionInput): SectionModel {
           Math.exp(Math.log(vLo) + t * (Math.log(Math.max(vHi, vLo + 1)) - Math.log(vLo))),
         ),
       })),
-      ticks: velocityLegendTicks(vLo, vHi, units),
-      unit: unitLabel("velocity", units),
+      ticks: velocityLegendTicks(vLo, vHi, units, Math.max(0.16, 44 / legendWidth)),
+      unit: velocityUnit,
+      width: legendWidth,
+      label: narrow ? velocityUnit : `velocity (${velocityUnit})`,
     },
   };
 }

@@ -17,7 +17,7 @@ export function SectionChart({ input, title }: { input: SectionInput; title: str
   const gradientId = `grad${useId().replace(/[^a-zA-Z0-9]/g, "")}`;
   const { margin, width, height } = section;
   const surface = margin.top;
-  const legendWidth = Math.min(220, width * 0.35);
+  const legendWidth = section.legend.width;
   const legendX = width - margin.right - legendWidth;
 
   return (
@@ -154,9 +154,7 @@ export function SectionChart({ input, title }: { input: SectionInput; title: str
           {section.yLabel}
         </text>
         <text x={margin.left} y={12} fontSize={11} fill={palette.inkSoft} fontFamily={chartMono}>
-          {section.exaggeration === 1
-            ? "true scale (no vertical exaggeration)"
-            : `vertical exaggeration ×${section.exaggeration}`}
+          {section.scaleNote}
         </text>
         <g aria-label="Velocity legend">
           <rect
@@ -180,7 +178,7 @@ export function SectionChart({ input, title }: { input: SectionInput; title: str
             </text>
           ))}
           <text x={legendX - 6} y={12} textAnchor="end" fontSize={10} fill={palette.inkSoft}>
-            {`velocity (${section.legend.unit})`}
+            {section.legend.label}
           </text>
         </g>
       </svg>

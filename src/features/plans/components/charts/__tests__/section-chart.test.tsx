@@ -35,14 +35,14 @@ describe("SectionChart velocity legend", () => {
     const texts = renderChart("metric");
     expect(texts).toContain("velocity (m/s)");
     expect(texts).toContain("500");
-    expect(texts).toContain("3300");
+    expect(texts).toContain("3,300");
   });
 
   it("writes the bar's ends in ft/s for imperial units", () => {
     const texts = renderChart("imperial");
     expect(texts).toContain("velocity (ft/s)");
     // 500 and 3300 m/s over 0.3048 m/ft (exact by definition)
-    expect(texts).toContain("1640");
-    expect(texts).toContain("10827");
+    expect(texts).toContain("1,640");
+    expect(texts).toContain("10,827");
   });
 });
