@@ -1,5 +1,6 @@
-import { useRef } from "react";
+import { useEffect, useRef } from "react";
 import { useForm, type Resolver } from "react-hook-form";
+import { useQueryClient } from "@tanstack/react-query";
 import {
   decisionNoteSchema,
   requestChangesSchema,
@@ -9,10 +10,12 @@ import {
 import { Button } from "@/components/button";
 import { Field } from "@/components/field";
 import { ErrorNotice, Notice } from "@/components/feedback";
+import { ApiError } from "@/lib/api-client";
 import { useApprovePlan } from "../api/approve-plan";
 import { useRequestChanges } from "../api/request-changes";
 import { useSubmitPlan } from "../api/submit-plan";
 import { useReopenPlan } from "../api/reopen-plan";
+import { reviewKeys } from "../api/review-keys";
 
 type NoteForm = { note: string };
 type Intent = "approve" | "request" | "submit";
@@ -58,6 +61,16 @@ export function DecisionPanel({ plan }: { plan: PlanDetail }) {
   const pending = submit.isPending || approve.isPending || request.isPending || reopen.isPending;
   const failed = [submit, approve, request, reopen].find((m) => m.isError);
   const done = [submit, approve, request, reopen].find((m) => m.isSuccess);
+  // The plan moved on in another tab or by another reviewer: the server's refusal ("cannot
+  // approve a plan that is …") is in the API's words; say it in ours and show where it stands.
+  const movedOn =
+    failed !== undefined &&
+    failed.error instanceof ApiError &&
+    failed.error.code === "illegal_transition";
+  const queryClient = useQueryClient();
+  useEffect(() => {
+    if (movedOn) void queryClient.invalidateQueries({ queryKey: reviewKeys.plan(plan.id) });
+  }, [movedOn, queryClient, plan.id]);
 
   const run = (which: Intent) => {
     intent.current = which;
@@ -134,7 +147,14 @@ export function DecisionPanel({ plan }: { plan: PlanDetail }) {
           </div>
         </div>
       ) : null}
-      {failed ? <ErrorNotice error={failed.error} title="The plan did not move on" /> : null}
+      {movedOn ? (
+        <Notice tone="caution">
+          This step no longer applies: someone moved the plan on meanwhile. The screen now shows
+          where it stands.
+        </Notice>
+      ) : failed ? (
+        <ErrorNotice error={failed.error} title="The plan did not move on" />
+      ) : null}
       {done && !failed ? (
         <Notice tone="success">Done: the plan is now {label(plan)}.</Notice>
       ) : null}

@@ -131,13 +131,36 @@ describe("DecisionPanel", () => {
     expect(calls[0].url).toBe(`${base}/approve`);
   });
 
-  it("shows the server's refusal when a step is not allowed any more", async () => {
-    stubFetch({
-      [`POST ${base}/submit`]: () => ({
+  it("says in our words when a step no longer applies", async () => {
+    const calls = stubFetch({
+      [`POST ${base}/approve`]: () => ({
         status: 409,
         body: {
-          error: { code: "illegal_transition", message: "the plan is already in review" },
+          error: {
+            code: "illegal_transition",
+            message: "cannot approve a plan that is signed off (only from in review)",
+          },
         },
+      }),
+      [`GET ${base}`]: () => ({ status: 200, body: planDetail({ status: "approved" }) }),
+    });
+    renderWithApp(
+      <DecisionPanel plan={planDetail({ permissions: { ...noPermissions, decide: true } })} />,
+    );
+    await userEvent.click(screen.getByRole("button", { name: "✓ Sign off for mobilisation" }));
+    expect(
+      await screen.findByText(/This step no longer applies: someone moved the plan on meanwhile/),
+    ).toBeInTheDocument();
+    // The API's own words ("approve") never reach the reviewer.
+    expect(screen.queryByText(/cannot approve/)).toBeNull();
+    expect(calls.filter((c) => c.method === "POST")).toHaveLength(1);
+  });
+
+  it("shows the server's message for any other refusal", async () => {
+    stubFetch({
+      [`POST ${base}/submit`]: () => ({
+        status: 403,
+        body: { error: { code: "forbidden", message: "only a survey lead may submit" } },
       }),
     });
     renderWithApp(
@@ -146,6 +169,6 @@ describe("DecisionPanel", () => {
       />,
     );
     await userEvent.click(screen.getByRole("button", { name: "Submit for review" }));
-    expect(await screen.findByText("the plan is already in review")).toBeInTheDocument();
+    expect(await screen.findByText("only a survey lead may submit")).toBeInTheDocument();
   });
 });
