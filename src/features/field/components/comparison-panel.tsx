@@ -81,7 +81,12 @@ export function FitTable({
               />
               {fit.name}
               {candidates[i]?.source === "borehole" ? (
-                <span className="ml-1 text-xs text-ink-soft">(borehole log, not in the plan)</span>
+                <span className="ml-1 text-xs text-ink-soft">
+                  {/* "Borehole log (borehole log, …)" said it twice. */}
+                  {/borehole|\blog\b/i.test(fit.name)
+                    ? "(not in the plan)"
+                    : "(borehole log, not in the plan)"}
+                </span>
               ) : null}
               {i === comparison.best ? (
                 <span className="ml-2 rounded-full bg-moss px-2 py-0.5 text-xs font-semibold text-card">
