@@ -60,6 +60,8 @@ export function SourceReachPanel({ units, readOnly }: { units: UnitSystem; readO
       : [];
   const used = new Set(stated.map((s) => s.source));
   const m = (v: number) => formatQuantity("length", v, units);
+  // A source's reach is a rough figure (common practice): whole metres or feet, not 196.85 ft.
+  const rough = (v: number) => formatQuantity("length", v, units, 0);
 
   return (
     <fieldset aria-label="Source reach">
@@ -96,7 +98,7 @@ export function SourceReachPanel({ units, readOnly }: { units: UnitSystem; readO
               {SOURCE_TYPES.map((t) => (
                 <option key={t} value={t}>
                   {SOURCE_LABELS[t]}
-                  {noise ? ` (to ${m(sourceReach(t, noise))})` : ""}
+                  {noise ? ` (to ${rough(sourceReach(t, noise))})` : ""}
                 </option>
               ))}
             </select>
@@ -107,7 +109,7 @@ export function SourceReachPanel({ units, readOnly }: { units: UnitSystem; readO
         <ul className="mt-2 space-y-1 text-xs font-medium text-brick" aria-label="Reach flags">
           {flags.map((f) => (
             <li key={f.shot}>
-              ⚠ Shot {f.shot + 1} must record out to {m(f.offset)}, beyond the {m(f.reach)} a{" "}
+              ⚠ Shot {f.shot + 1} must record out to {m(f.offset)}, beyond the {rough(f.reach)} a{" "}
               {SOURCE_LABELS[shots[f.shot].source as SourceType]} reaches on a {noise} site:{" "}
               {f.stacks === null
                 ? "no practical stack reaches it; use a stronger source or shorten the branch."
