@@ -36,3 +36,23 @@ export function recommendationSentence(
     `${len((rec.channels - 1) * spacing)}).${readingInUnits(rest, units)}`
   );
 }
+
+/**
+ * A hidden layer's statement in the reader's units, its "at least … thick" written from the
+ * refractor's own minimum thickness (so it agrees with the table's Min. thickness column:
+ * the engine's 2.24 m read as 7.35 ft beside 7.34 ft).
+ */
+export function hiddenStatementInUnits(
+  statement: string,
+  minimumThickness: number | null | undefined,
+  units: UnitSystem,
+): string {
+  const exact =
+    typeof minimumThickness === "number" && Number.isFinite(minimumThickness)
+      ? statement.replace(
+          /at least -?\d+(?:\.\d+)? m thick/,
+          `at least ${formatQuantity("length", minimumThickness, units)} thick`,
+        )
+      : statement;
+  return readingInUnits(exact, units);
+}

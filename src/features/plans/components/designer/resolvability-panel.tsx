@@ -1,5 +1,5 @@
 import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
-import { readingInUnits, recommendationSentence } from "../../lib/recommendation-text";
+import { hiddenStatementInUnits, recommendationSentence } from "../../lib/recommendation-text";
 import type { ModelAnalysis, Plan, PlanAnalysis, Segment } from "../../lib/engine";
 import type { AppliedSpread } from "../../lib/apply-recommendation";
 import { ApplyChoicesPanel } from "./apply-choices-panel";
@@ -241,7 +241,11 @@ export function ResolvabilityPanel({
               className="rounded-md border border-brick/40 bg-brick-soft px-3 py-2 text-sm text-brick"
             >
               <span aria-hidden>⚑ </span>
-              {readingInUnits(h.statement, units)}
+              {hiddenStatementInUnits(
+                h.statement,
+                model.refractors.find((r) => r.layer === h.layer)?.minimumThickness,
+                units,
+              )}
             </li>
           ))}
         </ul>

@@ -1,5 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { readingInUnits, recommendationSentence } from "../recommendation-text";
+import {
+  hiddenStatementInUnits,
+  readingInUnits,
+  recommendationSentence,
+} from "../recommendation-text";
 
 // The engine's sentence for the default plan (workers/engine/analysis.ts, combineModels).
 const rec = {
@@ -45,5 +49,16 @@ describe("recommendationSentence", () => {
     expect(
       readingInUnits("No spread can reveal layer 2 under 2.47 m of 2400 m/s rock.", "imperial"),
     ).toBe("No spread can reveal layer 2 under 8.10 ft of 7,874 ft/s rock.");
+  });
+
+  it("writes a hidden layer's minimum thickness from the refractor's figure, as the table does", () => {
+    // 2.237 m = 7.34 ft (by hand); the engine's rounded "2.24 m" would read 7.35 ft.
+    expect(
+      hiddenStatementInUnits(
+        "It would need to be at least 2.24 m thick to be resolved with this spread.",
+        2.237,
+        "imperial",
+      ),
+    ).toBe("It would need to be at least 7.34 ft thick to be resolved with this spread.");
   });
 });
