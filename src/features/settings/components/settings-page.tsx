@@ -3,6 +3,9 @@ import { useUpdatePreferences } from "@/features/auth/api/preferences";
 import { Card, ErrorNotice, Notice, PageHeader } from "@/components/feedback";
 import type { Preferences } from "@/contracts/auth";
 import { NotificationSettingsCard } from "@/features/inbox";
+import { TeamSettingsCard } from "@/features/team/components/team-settings-card";
+import { paths } from "@/app/paths";
+import { Link } from "react-router-dom";
 
 const UNIT_CHOICES: Array<{ value: Preferences["units"]; label: string; detail: string }> = [
   { value: "metric", label: "Metres", detail: "m, m/s, ms" },
@@ -49,6 +52,24 @@ export function SettingsPage() {
       </Card>
       <div className="mt-6">
         <NotificationSettingsCard />
+      </div>
+      {/* The team's recording equipment: everyone may read it here (the Team page is the
+          admin's, where it is edited). */}
+      <div className="mt-6 max-w-xl">
+        {me.role === "admin" ? (
+          <Card>
+            <h2 className="mb-1 font-semibold text-ink">Recording equipment</h2>
+            <p className="text-sm text-ink-soft">
+              The team’s seismograph channel count is set on the{" "}
+              <Link to={paths.team} className="text-ink underline">
+                Team page
+              </Link>
+              .
+            </p>
+          </Card>
+        ) : (
+          <TeamSettingsCard role={me.role} />
+        )}
       </div>
     </div>
   );
