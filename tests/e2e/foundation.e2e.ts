@@ -97,6 +97,10 @@ describe("foundation in the browser", () => {
     writeFileSync(bad, JSON.stringify({ name: "Broken", models: [], spread: { spacing: -1 } }));
     await page.getByLabel("Import plan (JSON)").setInputFiles(bad);
     await page.getByText("The plan was not imported").waitFor();
+    // The refusal wraps under the button; the button keeps its own width (it stretched to the
+    // width of the message, most of the page).
+    const button = await page.getByText("Import plan (JSON)", { exact: true }).boundingBox();
+    expect(button?.width ?? 0).toBeLessThan(240);
     // Problems read as the screen counts, not as zod paths ("Spread: spacing …").
     await page
       .getByText(/Spread: spacing/)

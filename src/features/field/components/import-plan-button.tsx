@@ -73,7 +73,9 @@ export function ImportPlanButton({
       ? importProblems(importPlan.error)
       : [];
   return (
-    <div className="inline-flex flex-col gap-2">
+    // The button keeps its own width beside "New plan"; the problems wrap below it (at most
+    // 28 rem wide) instead of stretching the button across the page.
+    <div className="inline-flex max-w-md flex-col items-end gap-2">
       <label
         htmlFor={id}
         className="inline-flex cursor-pointer items-center justify-center gap-1.5 rounded-md border border-ink-soft bg-card px-3.5 py-1.5 text-sm font-medium text-ink hover:bg-paper-deep"
