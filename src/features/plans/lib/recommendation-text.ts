@@ -10,11 +10,24 @@ import { formatQuantity, type UnitSystem } from "@/lib/units";
 const OPENING =
   /^(Across \d+ ground models?)(.*?): use (?:any spacing|spacing at most [\d.]+ m) and shot branches reaching [\d.]+ m offset \((\d+) channels at [\d.]+ m span [\d.]+ m\)\.(.*)$/s;
 
-/** SI lengths and velocities written in a sentence ("142 m", "2400 m/s") in the reader's unit. */
+/**
+ * SI lengths and velocities written in a sentence ("142 m", "from 12 to 79.5 m", "over 32–35 m",
+ * "2400 m/s") in the reader's unit, to as many decimals as the engine wrote (its rounding says
+ * how well the figure is known): "from 39.4 to 260.8 ft" for "from 12 to 79.5 m".
+ */
 export function readingInUnits(text: string, units: UnitSystem): string {
   if (units === "metric") return text;
-  return text.replace(/(-?\d+(?:\.\d+)?) (m\/s|m)\b/g, (_whole, value: string, unit: string) =>
-    formatQuantity(unit === "m/s" ? "velocity" : "length", Number(value), units),
+  return text.replace(
+    /(-?\d+(?:\.\d+)?)(?:( to |–)(-?\d+(?:\.\d+)?))? (m\/s|m)\b/g,
+    (_whole, a: string, joint: string | undefined, b: string | undefined, unit: string) => {
+      const quantity = unit === "m/s" ? "velocity" : "length";
+      const decimals = (v: string) => v.split(".")[1]?.length ?? 0;
+      const digits = quantity === "velocity" ? 0 : Math.max(decimals(a), decimals(b ?? ""));
+      const one = (v: string) => formatQuantity(quantity, Number(v), units, digits);
+      if (b === undefined) return one(a);
+      // the unit once, after the second figure: "39.4 to 260.8 ft"
+      return `${one(a).replace(/ \S+$/, "")}${joint}${one(b)}`;
+    },
   );
 }
 

@@ -3,6 +3,7 @@ import { ErrorNotice, Notice } from "@/components/feedback";
 import { useElementWidth } from "@/hooks/use-element-width";
 import { chartFont, palette } from "@/lib/chart/palette";
 import { formatQuantity, formatSigned, type UnitSystem } from "@/lib/units";
+import { readingInUnits } from "../../lib/recommendation-text";
 import type { CoverageStretch, InterfaceCoverage, SectionModelAnalysis } from "@engine";
 import { useLatestResult } from "../../hooks/use-latest-result";
 import type { Plan } from "../../lib/engine";
@@ -158,7 +159,7 @@ function WeakFeatures({
                 : {g.map((b) => `${geophoneWord(b.geophones)} (${branchText(plan, b)})`).join(", ")}
                 , under-sampled
               </span>
-              {rec ? <span className="text-ink">{rec.text}</span> : null}
+              {rec ? <span className="text-ink">{readingInUnits(rec.text, units)}</span> : null}
             </li>
           );
         })}
@@ -189,7 +190,7 @@ export function CoverageDetails({
           <h4 className="flex flex-wrap items-center gap-2 font-semibold text-ink-deep">
             Top of {c.name || `layer ${c.layer}`} <VerdictBadge verdict={c.status} />
           </h4>
-          <p className="mt-0.5 text-ink">{c.summary}</p>
+          <p className="mt-0.5 text-ink">{readingInUnits(c.summary, units)}</p>
           <WeakFeatures coverage={c} analysis={analysis} plan={plan} units={units} />
           {table && c.stretches.length > 0 ? (
             <table
@@ -259,7 +260,7 @@ export function CoverageDetails({
           <p className="font-semibold text-ink-deep">To sample the weak stretches</p>
           <ul className="mt-1 list-disc pl-5 text-ink">
             {analysis.section.recommendations.map((r, i) => (
-              <li key={i}>{r.text}</li>
+              <li key={i}>{readingInUnits(r.text, units)}</li>
             ))}
           </ul>
         </div>

@@ -39,9 +39,9 @@ describe("recommendationSentence", () => {
       3,
       "imperial",
     );
-    // 201 m / 0.3048 = 659.45 ft; 3 m = 9.84 ft; 5 × 3 m = 15 m = 49.21 ft (by hand).
+    // 201 m / 0.3048 = 659.4 ft, written whole as the engine wrote 201; 3 m = 9.84 ft; 5 × 3 m = 15 m = 49.21 ft (by hand).
     expect(text).toBe(
-      "Across 1 ground model and 3 roll-along spreads (24 channels each, 2 shared, stations 1–68 from 0.00 ft to 659.45 ft): use any spacing and shot branches reaching 67.78 ft offset (6 channels at 9.84 ft span 49.21 ft). The detailed results are for spread 1.",
+      "Across 1 ground model and 3 roll-along spreads (24 channels each, 2 shared, stations 1–68 from 0 ft to 659 ft): use any spacing and shot branches reaching 67.78 ft offset (6 channels at 9.84 ft span 49.21 ft). The detailed results are for spread 1.",
     );
   });
 
@@ -60,5 +60,17 @@ describe("recommendationSentence", () => {
         "imperial",
       ),
     ).toBe("It would need to be at least 7.34 ft thick to be resolved with this spread.");
+  });
+
+  it("writes a 2-D section's ranges in feet, the unit once, to the decimals the engine wrote", () => {
+    // 12 m = 39.4 ft, 79.5 m = 260.8 ft; 32 m = 105 ft, 35 m = 115 ft; 1.5 m = 4.9 ft (by hand).
+    expect(
+      readingInUnits(
+        "Layer 2 top from 12 to 79.5 m: use geophone spacing at most 1.5 m over 32–35 m.",
+        "imperial",
+      ),
+    ).toBe(
+      "Layer 2 top from 39.4 to 260.8 ft: use geophone spacing at most 4.9 ft over 105–115 ft.",
+    );
   });
 });

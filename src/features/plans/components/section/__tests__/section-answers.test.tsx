@@ -208,6 +208,16 @@ describe("SectionAnswers", () => {
     );
     // 0.25 m = 0.82 ft
     expect(screen.getByText("0.82 ft")).toBeInTheDocument();
+    // The engine's sentences read in feet too (issue 14 QA: they stayed in metres):
+    // 12 m = 39 ft, 30 m = 98 ft, 33 m = 108 ft, 36 m = 118 ft; 1 m = 3 ft, 20 m = 66 ft (by hand).
+    expect(
+      screen.getByText(
+        "rockhead sampled from 39 to 98 ft; from 108 to 118 ft it is seen on one geophone: under-sampled.",
+      ),
+    ).toBeInTheDocument();
+    expect(
+      screen.getByText("Use a spacing of at most 3 ft and a shot near 66 ft to sample 108–118 ft."),
+    ).toBeInTheDocument();
   });
 
   it("draws the section with the stretches and asks the modeller for the shot's rays", () => {
