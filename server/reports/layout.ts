@@ -78,14 +78,19 @@ export function reportUnits(system: UnitSystem = "metric"): ReportUnits {
       const text = vel(v);
       return text === "–" ? text : `${text} ${velocity}`;
     },
-    // "18 m (19 m offset)" → "59.06 ft (62.34 ft offset)": the SI figure replaced, not doubled.
+    // "18 m (19.25 m offset)" → "59.1 ft (63.16 ft offset)": the SI figure replaced, not
+    // doubled, with the message's own decimals (at least one, a foot being a third of a metre;
+    // the Review screen's rule): a sentence's "29.3 m" reads "96.1 ft", not a "96.13 ft" that
+    // disagrees with the exact 96.08 ft printed beside it.
     text: (message) =>
       system === "metric"
         ? message
-        : message.replace(/(-?\d+(?:\.\d+)?) (m\/s|m)\b/g, (_, value: string, unit: string) =>
-            unit === "m/s"
-              ? `${vel(Number(value))} ${velocity}`
-              : `${len(Number(value))} ${length}`,
+        : message.replace(
+            /(-?\d+(?:\.(\d+))?) (m\/s|m)\b/g,
+            (_, value: string, decimals: string | undefined, unit: string) =>
+              unit === "m/s"
+                ? `${vel(Number(value))} ${velocity}`
+                : `${len(Number(value), Math.max(decimals?.length ?? 0, 1))} ${length}`,
           ),
   };
 }

@@ -146,10 +146,16 @@ describe("report text in the reader's units", () => {
     expect(lines.join("\n")).toContain("Geophone (m) | Depth (m)");
   });
 
-  it("writes an engine message's metres in feet for a feet reader", () => {
+  it("writes an engine message's metres in feet for a feet reader, with the message's decimals", () => {
+    // 1 ft = 0.3048 m exactly (international foot). Whole metres get one decimal in feet.
     expect(reportUnits("imperial").text("geophone 18 m (19 m offset), 1500 m/s, 5 ms")).toBe(
-      "geophone 59.06 ft (62.34 ft offset), 4921 ft/s, 5 ms",
+      "geophone 59.1 ft (62.3 ft offset), 4921 ft/s, 5 ms",
     );
+    // A sentence rounded to 0.1 m stays at 0.1 ft (29.3 m = 96.128 ft), so it does not claim
+    // "96.13 ft" beside the exact figure (29.285 m = 96.08 ft); 0.01 m stays 0.01 ft.
+    expect(
+      reportUnits("imperial").text("spacing at most 4.88 m and branches reaching 29.3 m offset"),
+    ).toBe("spacing at most 16.01 ft and branches reaching 96.1 ft offset");
     expect(reportUnits("metric").text("offset 12 m")).toBe("offset 12 m");
   });
 });
