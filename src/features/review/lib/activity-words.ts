@@ -35,6 +35,7 @@ const ACTIONS: Record<string, string> = {
   "attachment.upload": "uploaded a file",
   "attachment.delete": "deleted a file",
   "picks.save": "saved first-break picks",
+  "picks.choose_interpretation": "chose how the picks are interpreted under the line",
 };
 
 /** A verb phrase for an audit action; unknown actions read as their words ("x.do_it" → "x: do it"). */
@@ -46,7 +47,13 @@ export function describeAction(action: string): string {
   return target ? `${target}: ${words}` : words;
 }
 
-const SHOWN = ["name", "fileName", "revision", "message", "note", "email", "role"];
+const SHOWN = ["name", "fileName", "revision", "message", "note", "email", "role", "method"];
+/** The interpretation methods under the line, as the Field check names them. */
+const METHOD_WORDS: Record<string, string> = {
+  "plus-minus": "plus-minus",
+  "delay-time": "delay-time",
+  grm: "generalized reciprocal method",
+};
 /** How a detail key reads. */
 const KEY_WORDS: Record<string, string> = { fileName: "file" };
 
@@ -78,7 +85,12 @@ export function describeDetail(detail: Record<string, unknown> | null): string {
     const value = detail[key];
     if (value === undefined || value === null || value === "") continue;
     if (typeof value === "object") continue;
-    const text = key === "role" && isRole(value) ? ROLE_LABELS[value] : String(value);
+    const text =
+      key === "role" && isRole(value)
+        ? ROLE_LABELS[value]
+        : key === "method"
+          ? (METHOD_WORDS[String(value)] ?? String(value))
+          : String(value);
     parts.push(`${KEY_WORDS[key] ?? key}: ${text.length > 140 ? `${text.slice(0, 139)}…` : text}`);
   }
   return parts.join(" · ");

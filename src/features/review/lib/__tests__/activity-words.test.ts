@@ -39,6 +39,15 @@ describe("activity words", () => {
     expect(describeDetail({ from: "Old name", to: "New name" })).toBe("Old name → New name");
   });
 
+  it("reads the interpretation choice on the Field check in words, with its method", () => {
+    expect(describeAction("picks.choose_interpretation")).toBe(
+      "chose how the picks are interpreted under the line",
+    );
+    expect(describeDetail({ method: "grm", assignments: 4 })).toBe(
+      "method: generalized reciprocal method",
+    );
+  });
+
   it("reads roles by their labels, not the stored keys", () => {
     expect(describeDetail({ name: "Pip Galloway", from: "reviewer", to: "trainee" })).toBe(
       "Reviewer → Trainee · name: Pip Galloway",
