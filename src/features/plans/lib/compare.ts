@@ -15,6 +15,7 @@ import type {
   ShotArrivals,
   Status,
 } from "./engine";
+import { tickCount } from "@/lib/chart/tick-count";
 
 export interface Scenario {
   key: string;
@@ -93,7 +94,7 @@ export function buildOverlay(
   const per = toDisplay("length", 1, units);
   const xTicks = scaleLinear()
     .domain([lo * per, hi * per])
-    .ticks(8)
+    .ticks(tickCount(width - margin.left - margin.right))
     .map((v) => ({ px: x(v / per), label: String(v) }));
   const yTicks = scaleLinear()
     .domain([0, tMax * 1100])

@@ -51,4 +51,12 @@ describe("Side by side", () => {
       expect(l.dots).toHaveLength(24);
     }
   });
+
+  it("keeps the offset ticks at least 50 px apart on a phone-width chart (issue 14 QA)", () => {
+    const scenarios = modelScenarios(twoModels(), [0, 1]);
+    const overlay = buildOverlay(scenarios, run(scenarios), 316, 280, "imperial");
+    const px = overlay.xTicks.map((t) => t.px);
+    expect(px.length).toBeGreaterThanOrEqual(3);
+    for (let i = 1; i < px.length; i++) expect(px[i] - px[i - 1]).toBeGreaterThanOrEqual(50);
+  });
 });
