@@ -264,8 +264,11 @@ export function buildSectionView(input: SectionViewInput): SectionView {
   };
 }
 
+const wholeGrouped = new Intl.NumberFormat("en-GB", { maximumFractionDigits: 0 });
+
+/** A velocity as the other charts write it: whole, thousands grouped ("6,890"). */
 function fmtV(v: number, units: UnitSystem): string {
-  return String(Math.round(toDisplay("velocity", v, units)));
+  return wholeGrouped.format(Math.round(toDisplay("velocity", v, units)));
 }
 
 function luminance(colour: string): number {

@@ -87,4 +87,17 @@ describe("section editing", () => {
     expect(g.py).toBeCloseTo(view.y(lineAt(draft().surface, 5)), 6);
     expect(view.yLabel).toBe("Elevation (m)");
   });
+
+  it("writes layer velocities grouped, as the layered Section and the tables do (issue 14 QA)", () => {
+    const view = buildSectionView({
+      section: draft(),
+      spread: { spacing: 10, channels: 12, firstGeophone: 5, shots: [{ position: 0 }] },
+      shotIndex: 0,
+      width: 600,
+      units: "imperial",
+      exaggeration: 1,
+    });
+    // 2600 m/s / 0.3048 = 8530 ft/s (by hand): "8,530 ft/s", not "8530 ft/s".
+    expect(view.layers[1].velocityText).toBe("8,530 ft/s");
+  });
 });
