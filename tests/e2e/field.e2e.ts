@@ -418,6 +418,14 @@ describe("Field check in the browser", () => {
       const layer = await page.getByLabel("Segment 1 layer").boundingBox();
       expect(from?.width ?? 0).toBeGreaterThanOrEqual(100);
       expect(layer?.width ?? 0).toBeGreaterThanOrEqual(130);
+      // The interpreted section is drawn at the phone's width: its labels keep their size
+      // (drawn at 820 px and shrunk, they were a third of it).
+      const scale = await page
+        .getByRole("img", { name: /Interpreted section/ })
+        .evaluate(
+          (svg) => svg.getBoundingClientRect().width / (svg as SVGSVGElement).viewBox.baseVal.width,
+        );
+      expect(scale).toBeGreaterThan(0.9);
       await screenshot(page, "field-check-phone");
 
       // Print: charts are drawn for the screen's width and not redrawn for paper. With the page

@@ -6,12 +6,14 @@
 import { palette, chartFont } from "@/lib/chart/palette";
 import { formatQuantity, fromDisplay, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 import { useMemo } from "react";
+import { useElementWidth } from "@/hooks/use-element-width";
 import type { PlanInterpretation } from "../../../../workers/field/index";
 import type { Candidate } from "../lib/comparison";
 import { fieldWorker } from "../lib/field-worker";
 import { useFieldResult } from "../lib/use-field-result";
 
-const W = 820;
+/** The drawing's width at most (its viewBox; wider screens scale it up). */
+const MAX_W = 820;
 const H = 280;
 const M = { left: 64, right: 16, top: 16, bottom: 40 };
 
@@ -37,6 +39,10 @@ export function InterpretedSection({
   units: UnitSystem;
 }) {
   const refs = result.result.refractors;
+  // Narrower than 820 px (a phone), the section is drawn at the width it has, so its labels keep
+  // their size instead of shrinking to a third.
+  const { ref: frameRef, width } = useElementWidth<HTMLElement>(MAX_W);
+  const W = Math.max(240, Math.min(MAX_W, width));
   // ground elevation at each interpreted station (elevation + depth below the ground)
   const groundPts = new Map<number, number>();
   for (const r of refs) for (const d of r.depth) groundPts.set(d.position, d.elevation + d.depth);
@@ -98,14 +104,14 @@ export function InterpretedSection({
     pts.map(([x, y], i) => `${i ? "L" : "M"}${sx(x).toFixed(1)},${sy(y).toFixed(1)}`).join("");
   const lenUnit = unitLabel("length", units);
   // Ticks at round values of the unit read ([SI m, shown]): 0, 20, 40 ft, not the feet of 0, 5, 10 m.
-  const lengthTicks = (lo: number, hi: number): [number, number][] =>
-    ticks(toDisplay("length", lo, units), toDisplay("length", hi, units)).map((shown) => [
+  const lengthTicks = (lo: number, hi: number, count = 6): [number, number][] =>
+    ticks(toDisplay("length", lo, units), toDisplay("length", hi, units), count).map((shown) => [
       fromDisplay("length", shown, units),
       Number(shown.toFixed(6)),
     ]);
 
   return (
-    <figure className="m-0">
+    <figure ref={frameRef} className="m-0">
       <svg
         viewBox={`0 0 ${W} ${H}`}
         className="h-auto w-full"
@@ -128,7 +134,7 @@ export function InterpretedSection({
             </text>
           </g>
         ))}
-        {lengthTicks(x0, x1).map(([t, shown]) => (
+        {lengthTicks(x0, x1, W < 500 ? 4 : 6).map(([t, shown]) => (
           <text
             key={`x${t}`}
             x={sx(t)}
