@@ -113,7 +113,8 @@ describe("FieldCheckPage", () => {
     expect(rows[1]).toHaveTextContent("best fit");
     expect(rows[1]).toHaveTextContent("0.00 ms");
     expect(rows[2]).toHaveTextContent("Borehole BH-2");
-    expect(rows[2]).toHaveTextContent("borehole log, not in the plan");
+    // Its name already says it is a borehole: the note does not repeat it.
+    expect(rows[2]).toHaveTextContent("Borehole BH-2(not in the plan)");
     expect(screen.getByText(/No misfit pattern against/)).toBeInTheDocument();
     expect(
       screen.getByRole("img", { name: /Time–distance chart: 24 observed picks/ }),
