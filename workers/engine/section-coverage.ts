@@ -355,7 +355,7 @@ export function sectionCoverage(
         );
         const text =
           `Layer ${m + 1} top, the ${s.feature} ${where}: use geophone spacing at most ` +
-          `${fmt(spacing, 2)} m over ${fmt(s.from)}–${fmt(s.to)} m and a few metres beyond each end ` +
+          `${fmt(spacing, 2)} m over ${fmt(s.from)}–${fmt(s.to)} m and a few geophones beyond each end ` +
           `(so that ${minGeophones} head-wave rays leave the interface on it), and shots near ` +
           `${fmt(shots[0])} m (shooting forward) and ${fmt(shots[1])} m (shooting back).`;
         recommendations.push({ layer: m + 1, from: s.from, to: s.to, spacing, shots, text });
