@@ -130,9 +130,9 @@ function Review({ plan, units }: { plan: PlanDetail; units: UnitSystem }) {
           <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-ink-soft">
             <PlanStatusBadge status={plan.status} />
             <span className="font-mono text-xs">revision {plan.revision}</span>
-            <span>· by {plan.author.name}</span>
-            <span>
-              · updated{" "}
+            {/* One phrase, so a narrow screen never starts a line with a stray "·". */}
+            <span data-testid="review-byline">
+              by {plan.author.name}, updated{" "}
               <time dateTime={plan.updatedAt}>{timeFormat.format(new Date(plan.updatedAt))}</time>
             </span>
           </p>

@@ -141,6 +141,11 @@ describe("ReviewPage", () => {
       await screen.findByRole("heading", { name: "Review: Tollbar cutting, line A" }),
     ).toBeInTheDocument();
     expect(screen.getByText("In review")).toBeInTheDocument();
+    // Author and time read as one phrase: no piece of the wrapping line starts with "·".
+    expect(screen.getByTestId("review-byline").textContent).toMatch(/^by .+, updated /);
+    const title = screen.getByRole("heading", { name: /^Review:/ });
+    for (const piece of Array.from(title.nextElementSibling?.children ?? []))
+      expect(piece.textContent?.trim()).not.toMatch(/^·/);
     const table = await screen.findByRole("table", { name: "Resolvability of Lens present" });
     const rows = within(table).getAllByRole("row");
     expect(within(rows[1]).getByText("Blind")).toBeInTheDocument();
