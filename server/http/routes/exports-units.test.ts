@@ -1,63 +1,20 @@
 // The report follows the requesting user's units (their preference, or `?units=`); the CSV
 // exports stay SI. 1 ft = 0.3048 m exactly, so the example's 2 m spacing is 6.56 ft.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import type { PlanInput } from "@engine";
-import {
-  createTestContext,
-  seedTeam,
-  type TestContext,
-  type TestTeam,
-} from "../../testing/harness";
-import { createPlan, signInTeam, type TeamApis } from "../../testing/plans";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { TeamApis } from "../../testing/plans";
+import { binary, hasTool, pdfText as pdfLayoutText, planFixture } from "../../testing/exports";
 
-let ctx: TestContext;
-let team: TestTeam;
+const fixture = planFixture({ teamName: "Rowan Test Surveys", slug: "rowan" });
 let apis: TeamApis;
 let planId: string;
-const document = JSON.parse(
-  readFileSync("docs/examples/two-layer-simple.json", "utf8"),
-) as PlanInput;
-
 beforeAll(async () => {
-  ctx = await createTestContext();
-  team = await seedTeam(ctx.dataSource, "Rowan Test Surveys", "rowan");
-  apis = await signInTeam(ctx.app, team);
-  planId = (await createPlan(apis.lead, team.sites.active, document.name ?? "Plan", document)).id;
+  ({ apis, planId } = fixture);
   const prefs = await apis.lead.put("/api/me/preferences").send({ units: "imperial" });
   expect(prefs.status).toBeLessThan(300);
-}, 60_000);
-afterAll(() => ctx.close());
+});
 
-const binary = (req: ReturnType<TeamApis["lead"]["get"]>) =>
-  req.buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on("data", (c: Buffer) => chunks.push(c));
-    res.on("end", () => done(null, Buffer.concat(chunks)));
-  });
-
-function hasTool(name: string): boolean {
-  try {
-    execFileSync(name, ["-v"], { stdio: "ignore" });
-    return true;
-  } catch {
-    return false;
-  }
-}
-
-function pdfText(bytes: Buffer): string {
-  const dir = mkdtempSync(join(tmpdir(), "spreadsight-pdf-units-"));
-  try {
-    const file = join(dir, "report.pdf");
-    writeFileSync(file, bytes);
-    return execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" });
-  } finally {
-    rmSync(dir, { recursive: true, force: true });
-  }
-}
+/** The report's text laid out as on the page. */
+const pdfText = (bytes: Buffer) => pdfLayoutText(bytes, { layout: true });
 
 describe("report units", () => {
   it("refuses an unknown units value, naming the parameter", async () => {

@@ -1,53 +1,22 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
+import { beforeAll, describe, expect, it } from "vitest";
 import type { Response } from "supertest";
-import type { PlanInput } from "@engine";
-import {
-  createTestContext,
-  seedTeam,
-  type TestContext,
-  type TestTeam,
-} from "../../testing/harness";
-import { createPlan, signInTeam, type TeamApis } from "../../testing/plans";
+import type { TestContext, TestTeam } from "../../testing/harness";
+import type { TeamApis } from "../../testing/plans";
+import { binary, hasTool, pdfText, planFixture } from "../../testing/exports";
 import { REPORT_SECTIONS } from "../../reports/plan-report";
 
+const fixture = planFixture();
+const { document } = fixture;
 let ctx: TestContext;
 let alder: TestTeam;
 let apis: TeamApis;
 let planId: string;
-const document = JSON.parse(
-  readFileSync("docs/examples/two-layer-simple.json", "utf8"),
-) as PlanInput;
-
-beforeAll(async () => {
-  ctx = await createTestContext();
-  alder = await seedTeam(ctx.dataSource, "Alder Test Surveys", "alder");
-  apis = await signInTeam(ctx.app, alder);
-  planId = (await createPlan(apis.lead, alder.sites.active, document.name ?? "Plan", document)).id;
-}, 60_000);
-afterAll(() => ctx.close());
-
-const binary = (req: ReturnType<TeamApis["lead"]["get"]>) =>
-  req.buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on("data", (c: Buffer) => chunks.push(c));
-    res.on("end", () => done(null, Buffer.concat(chunks)));
-  });
+beforeAll(() => {
+  ({ ctx, team: alder, apis, planId } = fixture);
+});
 
 const planCount = async () =>
   ((await ctx.dataSource.query(`SELECT COUNT(*) AS n FROM plans`)) as { n: number }[])[0].n;
-
-function hasTool(name: string): boolean {
-  try {
-    execFileSync(name, ["-v"], { stdio: "ignore" });
-    return true;
-  } catch {
-    return false;
-  }
-}
 
 describe("plan JSON export and import", () => {
   it("exports the stored document and imports it back to an equal document", async () => {
@@ -173,18 +142,11 @@ describe("plan report PDF", () => {
   it.skipIf(!hasTool("pdftotext"))(
     "holds every section, the plan's name and the field check (pdftotext; skipped where poppler-utils is missing)",
     () => {
-      const dir = mkdtempSync(join(tmpdir(), "spreadsight-pdf-"));
-      try {
-        const file = join(dir, "report.pdf");
-        writeFileSync(file, pdf.body as Buffer);
-        const text = execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" });
-        for (const section of REPORT_SECTIONS) expect(text).toContain(section);
-        expect(text).toContain(document.name);
-        expect(text).toContain("6 first-break picks from 1 shot");
-        expect(text).toContain("alder quarry floor");
-      } finally {
-        rmSync(dir, { recursive: true, force: true });
-      }
+      const text = pdfText(pdf.body as Buffer, { layout: true });
+      for (const section of REPORT_SECTIONS) expect(text).toContain(section);
+      expect(text).toContain(document.name);
+      expect(text).toContain("6 first-break picks from 1 shot");
+      expect(text).toContain("alder quarry floor");
     },
   );
 });

@@ -1,16 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import type { PlanInput } from "@engine";
-import {
-  createTestContext,
-  seedTeam,
-  type TestContext,
-  type TestTeam,
-} from "../../testing/harness";
-import { createPlan, signInTeam, type TeamApis } from "../../testing/plans";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { TeamApis } from "../../testing/plans";
+import { binary, hasTool, pdfText, planFixture } from "../../testing/exports";
 
 // The interpretation choices of the Field check kept with the saved picks
 // (PUT /api/plans/:id/picks and PUT /api/plans/:id/picks/interpretation) and used by
@@ -18,13 +8,6 @@ import { createPlan, signInTeam, type TeamApis } from "../../testing/plans";
 // (Telford, Geldart & Sheriff 1990 §4.3: t = x/v2 + 2h cos θ/v1, h = 6 m); on a flat
 // refractor every method gives that depth, so what changes with the choice is the method,
 // the datum, the GRM XY and which picks are head waves.
-let ctx: TestContext;
-let alder: TestTeam;
-let apis: TeamApis;
-let planId: string;
-const document = JSON.parse(
-  readFileSync("docs/examples/two-layer-simple.json", "utf8"),
-) as PlanInput;
 const ti = (2 * 6 * Math.sqrt(1 - (550 / 2800) ** 2)) / 550;
 const picks = [-1, 47].flatMap((s) =>
   Array.from({ length: 24 }, (_, k) => 2 * k).map((r) => {
@@ -34,13 +17,12 @@ const picks = [-1, 47].flatMap((s) =>
 );
 const grm = { method: "grm", xy: 4, datum: -3 } as const;
 
-beforeAll(async () => {
-  ctx = await createTestContext();
-  alder = await seedTeam(ctx.dataSource, "Alder Test Surveys", "alder");
-  apis = await signInTeam(ctx.app, alder);
-  planId = (await createPlan(apis.lead, alder.sites.active, document.name ?? "Plan", document)).id;
-}, 60_000);
-afterAll(() => ctx.close());
+const fixture = planFixture();
+let apis: TeamApis;
+let planId: string;
+beforeAll(() => {
+  ({ apis, planId } = fixture);
+});
 
 const csvRows = async () => {
   const res = await apis.reviewer.get(`/api/plans/${planId}/interpretation.csv`);
@@ -53,37 +35,14 @@ const csvRows = async () => {
   });
 };
 
-const binary = (req: ReturnType<TeamApis["lead"]["get"]>) =>
-  req.buffer(true).parse((res, done) => {
-    const chunks: Buffer[] = [];
-    res.on("data", (c: Buffer) => chunks.push(c));
-    res.on("end", () => done(null, Buffer.concat(chunks)));
-  });
-
-function hasTool(name: string): boolean {
-  try {
-    execFileSync(name, ["-v"], { stdio: "ignore" });
-    return true;
-  } catch {
-    return false;
-  }
-}
-
 /** The report's text (pdftotext), from its interpreted section on, on one line. */
 async function reportInterpretationText(): Promise<string> {
   const res = await binary(apis.lead.get(`/api/plans/${planId}/report.pdf?units=metric`));
   expect(res.status).toBe(200);
-  const dir = mkdtempSync(join(tmpdir(), "spreadsight-interp-choices-"));
-  try {
-    const file = join(dir, "report.pdf");
-    writeFileSync(file, res.body as Buffer);
-    const text = execFileSync("pdftotext", [file, "-"], { encoding: "utf8" });
-    const at = text.indexOf("Interpreted section under the line");
-    expect(at).toBeGreaterThan(0);
-    return text.slice(at).replace(/\s+/g, " ");
-  } finally {
-    rmSync(dir, { recursive: true, force: true });
-  }
+  const text = pdfText(res.body as Buffer);
+  const at = text.indexOf("Interpreted section under the line");
+  expect(at).toBeGreaterThan(0);
+  return text.slice(at).replace(/\s+/g, " ");
 }
 
 describe("interpretation choices kept with the picks", () => {

@@ -1,31 +1,16 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { readFileSync } from "node:fs";
-import type { PlanInput } from "@engine";
-import {
-  createTestContext,
-  seedTeam,
-  type TestContext,
-  type TestTeam,
-} from "../../testing/harness";
-import { createPlan, signInTeam, type TeamApis } from "../../testing/plans";
+import { beforeAll, describe, expect, it } from "vitest";
+import type { TeamApis } from "../../testing/plans";
+import { planFixture } from "../../testing/exports";
 
 // GET /api/plans/:id/interpretation.csv: the saved picks interpreted as the report does.
 // Picks from the closed form for two flat layers (Telford, Geldart & Sheriff 1990 §4.3).
-let ctx: TestContext;
-let alder: TestTeam;
+
+const fixture = planFixture();
 let apis: TeamApis;
 let planId: string;
-const document = JSON.parse(
-  readFileSync("docs/examples/two-layer-simple.json", "utf8"),
-) as PlanInput;
-
-beforeAll(async () => {
-  ctx = await createTestContext();
-  alder = await seedTeam(ctx.dataSource, "Alder Test Surveys", "alder");
-  apis = await signInTeam(ctx.app, alder);
-  planId = (await createPlan(apis.lead, alder.sites.active, document.name ?? "Plan", document)).id;
-}, 60_000);
-afterAll(() => ctx.close());
+beforeAll(() => {
+  ({ apis, planId } = fixture);
+});
 
 describe("interpretation CSV export", () => {
   it("is a header only before picks are saved", async () => {
