@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { screen, within } from "@testing-library/react";
+import { fireEvent, screen, within } from "@testing-library/react";
 import { renderWithApp, testMe } from "@/testing/render";
 import type { Role } from "@/contracts/common";
 import { AppLayout } from "../layout";
@@ -26,5 +26,21 @@ describe("AppLayout navigation", () => {
   it("hides the mailbox from an admin when the server is not in demo mode", () => {
     renderWithApp(<AppLayout />, { me: testMe({ role: "admin", demo: false }) });
     expect(screen.queryByRole("link", { name: "Mailbox" })).toBeNull();
+  });
+
+  it("gathers the name, role and Sign out behind an account button a phone can open and close", () => {
+    renderWithApp(<AppLayout />, { me: testMe({ role: "lead" }) });
+    const account = screen.getByRole("button", { name: "Account: Test Lead" });
+    expect(account).toHaveTextContent("TL");
+    expect(account).toHaveAttribute("aria-expanded", "false");
+    const menu = document.getElementById(account.getAttribute("aria-controls") ?? "");
+    expect(menu).toHaveClass("hidden");
+    expect(within(menu!).getByRole("button", { name: "Sign out" })).toBeInTheDocument();
+    fireEvent.click(account);
+    expect(account).toHaveAttribute("aria-expanded", "true");
+    expect(menu).not.toHaveClass("hidden");
+    fireEvent.keyDown(document, { key: "Escape" });
+    expect(account).toHaveAttribute("aria-expanded", "false");
+    expect(menu).toHaveClass("hidden");
   });
 });
