@@ -254,6 +254,32 @@ async function printed(page: Page) {
         .filter(shown)
         .map((svg) => svg.getAttribute("aria-label") ?? svg.querySelector("title")?.textContent),
       text: main.innerText,
+      // Tinted panels and highlighted rows (a background that is neither white nor clear, with
+      // more than a chip's words) must not force their colour onto paper: the browser drops
+      // them and the page stays a record on white.
+      tintedInInk: Array.from(main.querySelectorAll("*"))
+        .filter((el) => {
+          if (el.closest("svg") || !shown(el)) return false;
+          const style = getComputedStyle(el);
+          const bg = style.backgroundColor;
+          return (
+            bg !== "rgba(0, 0, 0, 0)" &&
+            bg !== "rgb(255, 255, 255)" &&
+            (el.textContent ?? "").trim().length > 20 &&
+            style.printColorAdjust === "exact"
+          );
+        })
+        .map((el) => `${el.tagName.toLowerCase()} «${(el.textContent ?? "").trim().slice(0, 40)}»`)
+        .slice(0, 6),
+      // …while the charts, the legends' swatches and the verdict chips keep their colours.
+      colourKept: (() => {
+        const kept = Array.from(
+          main.querySelectorAll("svg[role=img], span.rounded-full, span[style*=background]"),
+        ).filter(shown);
+        return (
+          kept.length > 0 && kept.every((el) => getComputedStyle(el).printColorAdjust === "exact")
+        );
+      })(),
     };
   });
 }
@@ -287,6 +313,8 @@ describe("the designer in print", () => {
       expect(sheet.charts.length).toBeGreaterThanOrEqual(2);
       expect(sheet.text).toContain("Resolvability");
       expect(sheet.text).toMatch(/Blind/);
+      expect(sheet.tintedInInk).toEqual([]);
+      expect(sheet.colourKept).toBe(true);
     } finally {
       await page.emulateMedia({ media: "screen" });
       await page.setViewportSize(PHONE);
@@ -312,6 +340,8 @@ describe("the designer in print", () => {
       expect(sheet.record).toMatch(/surface of 3 points/);
       expect(sheet.charts.length).toBeGreaterThanOrEqual(2);
       expect(sheet.text).toContain("Under-sampled");
+      expect(sheet.tintedInInk).toEqual([]);
+      expect(sheet.colourKept).toBe(true);
     } finally {
       await page.emulateMedia({ media: "screen" });
       await page.setViewportSize(PHONE);
