@@ -426,6 +426,46 @@ describe("Field check in the browser", () => {
           (svg) => svg.getBoundingClientRect().width / (svg as SVGSVGElement).viewBox.baseVal.width,
         );
       expect(scale).toBeGreaterThan(0.9);
+      // Every number stays on one line with its unit in the per-geophone and reciprocal-times
+      // tables (they read "5.75 m ± / 0.30 m" and "-1.00 / m ↔" before), and each cell is on
+      // the screen.
+      const split = await page.evaluate(() => {
+        const out: string[] = [];
+        const tables = Array.from(window.document.querySelectorAll("main table")).filter((t) =>
+          /Under every geophone|Reciprocal times/.test(
+            t.querySelector("caption")?.textContent ?? "",
+          ),
+        );
+        if (tables.length !== 2) out.push(`found ${tables.length} of the 2 tables`);
+        for (const table of tables) {
+          for (const cell of Array.from(table.querySelectorAll("tbody td"))) {
+            const box = cell.getBoundingClientRect();
+            if (box.right > window.document.documentElement.clientWidth + 1)
+              out.push(`«${cell.textContent}» ends at ${Math.round(box.right)} px`);
+            // The value's own text (not the small column name above it on a phone).
+            const tops = new Set<number>();
+            for (const node of Array.from(cell.childNodes)) {
+              if (node.nodeType !== Node.TEXT_NODE || !node.textContent?.trim()) continue;
+              const range = window.document.createRange();
+              range.selectNodeContents(node);
+              for (const r of Array.from(range.getClientRects()))
+                if (r.width > 0) tops.add(Math.round(r.top));
+            }
+            // (the check's sentence, "differ by more than …: check the picks …", may wrap)
+            const sentence = /agree|differ/.test(cell.textContent ?? "");
+            if (tops.size > 1 && !sentence && /\d/.test(cell.textContent ?? ""))
+              out.push(`«${cell.textContent}» runs to ${tops.size} lines`);
+          }
+        }
+        return out.slice(0, 6);
+      });
+      expect(split).toEqual([]);
+      // The shot-and-side choice takes the row's full width, so "(24 picks)" is not cut off.
+      const shotSide = await page.getByLabel("Shot and side").evaluate((select) => ({
+        width: select.getBoundingClientRect().width,
+        row: select.closest("label")!.parentElement!.clientWidth,
+      }));
+      expect(shotSide.width).toBeGreaterThanOrEqual(shotSide.row - 1);
       await screenshot(page, "field-check-phone");
 
       // Print: charts are drawn for the screen's width and not redrawn for paper. With the page

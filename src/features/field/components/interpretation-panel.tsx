@@ -9,7 +9,7 @@
  * saved picks and, for a user who may change field data, kept with them a moment after they
  * change, so the report and interpretation.csv use the same interpretation.
  */
-import { useEffect, useMemo, useState } from "react";
+import { useEffect, useMemo, useState, type ReactNode } from "react";
 import type { FirstBreakPick, InterpretationChoices } from "@/contracts/field";
 import { Button } from "@/components/button";
 import { Notice } from "@/components/feedback";
@@ -47,6 +47,15 @@ const lengthText = (v: number | null | undefined, units: UnitSystem) =>
     : String(Number(toDisplay("length", v, units).toFixed(inputDigits("length", units))));
 
 /** A number typed in an input box (comma or point), null when empty, NaN when not a number. */
+/** A table row drawn as a small card below 640 px: its cells flow side by side and wrap whole. */
+const PHONE_CARD =
+  "max-sm:flex max-sm:flex-wrap max-sm:gap-x-4 max-sm:gap-y-1 max-sm:border-b max-sm:border-rule/60 max-sm:py-2";
+
+/** A cell's column name, shown above its value only on a phone (where the table head is hidden). */
+function PhoneLabel({ children }: { children: ReactNode }) {
+  return <span className="block font-sans text-xs text-ink-soft sm:hidden">{children}</span>;
+}
+
 const typed = (text: string) => (text.trim() === "" ? null : Number(text.replace(",", ".")));
 
 /** Choices in one comparable form; null when they are all the defaults. */
@@ -494,12 +503,14 @@ function InterpretationResult({
       ) : null}
 
       {r.refractors.length > 0 ? (
-        <div className="overflow-x-auto">
-          <table className="w-full text-sm">
-            <caption className="mb-1 text-left text-sm font-semibold text-ink">
+        <div>
+          {/* Below 640 px each geophone is a small card (as the segments above), and no value
+              is split from its unit. */}
+          <table className="w-full text-sm max-sm:block">
+            <caption className="mb-1 text-left text-sm font-semibold text-ink max-sm:block">
               Under every geophone
             </caption>
-            <thead>
+            <thead className="max-sm:hidden">
               <tr className="text-left text-ink-soft">
                 <th className="pr-3 font-medium">Geophone</th>
                 {r.refractors.map((ref) => (
@@ -523,22 +534,31 @@ function InterpretationResult({
                 ])}
               </tr>
             </thead>
-            <tbody className="font-mono">
+            <tbody className="font-mono max-sm:block">
               {positions.map((x) => (
-                <tr key={x}>
-                  <td className="pr-3">{length(x, units)}</td>
+                <tr key={x} className={PHONE_CARD}>
+                  <td className="pr-3 whitespace-nowrap max-sm:basis-full max-sm:font-semibold">
+                    <span className="font-sans font-normal text-ink-soft sm:hidden">
+                      Geophone at{" "}
+                    </span>
+                    {length(x, units)}
+                  </td>
                   {r.refractors.map((ref) => {
                     const d = at(ref.layer, x);
+                    const layer = r.refractors.length > 1 ? `layer ${ref.layer} ` : "";
                     return [
-                      <td key={`${ref.layer}d`} className="pr-3">
+                      <td key={`${ref.layer}d`} className="pr-3 whitespace-nowrap max-sm:pr-0">
+                        <PhoneLabel>{layer}depth ± σ</PhoneLabel>
                         {d
                           ? `${length(d.depth, units)} ± ${formatQuantity("length", d.sigma, units, lengthDigits(units))}${d.phantom ? " *" : ""}`
                           : "—"}
                       </td>,
-                      <td key={`${ref.layer}e`} className="pr-3">
+                      <td key={`${ref.layer}e`} className="pr-3 whitespace-nowrap max-sm:pr-0">
+                        <PhoneLabel>{layer}elevation</PhoneLabel>
                         {d ? length(d.elevation, units) : "—"}
                       </td>,
-                      <td key={`${ref.layer}v`} className="pr-3">
+                      <td key={`${ref.layer}v`} className="pr-3 whitespace-nowrap max-sm:pr-0">
+                        <PhoneLabel>{layer}velocity</PhoneLabel>
                         {formatQuantity("velocity", velocityAt(ref.layer, x), units, 0)}
                       </td>,
                     ];
@@ -576,7 +596,7 @@ function InterpretationResult({
               <tr key={m.name}>
                 <td className="pr-4">{m.name}</td>
                 {r.refractors.map((ref) => (
-                  <td key={ref.layer} className="pr-4 font-mono">
+                  <td key={ref.layer} className="pr-4 font-mono whitespace-nowrap">
                     {length(m.layers.find((l) => l.layer === ref.layer)?.rms ?? null, units)}
                   </td>
                 ))}
@@ -586,11 +606,11 @@ function InterpretationResult({
         </table>
       ) : null}
 
-      <table className="text-sm">
-        <caption className="mb-1 text-left text-sm font-semibold text-ink">
+      <table className="text-sm max-sm:block">
+        <caption className="mb-1 text-left text-sm font-semibold text-ink max-sm:block">
           Reciprocal times (each pair of shots)
         </caption>
-        <thead>
+        <thead className="max-sm:hidden">
           <tr className="text-left text-ink-soft">
             <th className="pr-4 font-medium">Shots</th>
             <th className="pr-4 font-medium">A at B</th>
@@ -599,23 +619,35 @@ function InterpretationResult({
             <th className="pr-4 font-medium">Check</th>
           </tr>
         </thead>
-        <tbody>
+        <tbody className="max-sm:block">
           {r.reciprocal.length === 0 ? (
-            <tr>
+            <tr className="max-sm:block">
               <td colSpan={5} className="text-ink-soft">
                 No pair of shots records the other's position.
               </td>
             </tr>
           ) : (
             r.reciprocal.map((c) => (
-              <tr key={`${c.shots[0]}-${c.shots[1]}`}>
-                <td className="pr-4 font-mono">
+              <tr key={`${c.shots[0]}-${c.shots[1]}`} className={PHONE_CARD}>
+                <td className="pr-4 font-mono whitespace-nowrap max-sm:basis-full max-sm:font-semibold">
+                  <span className="font-sans font-normal text-ink-soft sm:hidden">Shots </span>
                   {length(c.shots[0], units)} ↔ {length(c.shots[1], units)}
                 </td>
-                <td className="pr-4 font-mono">{formatQuantity("time", c.forward, units, 2)}</td>
-                <td className="pr-4 font-mono">{formatQuantity("time", c.reverse, units, 2)}</td>
-                <td className="pr-4 font-mono">{formatQuantity("time", c.difference, units, 2)}</td>
-                <td className={`pr-4 ${c.agrees ? "text-moss" : "font-semibold text-brick"}`}>
+                <td className="pr-4 font-mono whitespace-nowrap max-sm:pr-0">
+                  <PhoneLabel>A at B</PhoneLabel>
+                  {formatQuantity("time", c.forward, units, 2)}
+                </td>
+                <td className="pr-4 font-mono whitespace-nowrap max-sm:pr-0">
+                  <PhoneLabel>B at A</PhoneLabel>
+                  {formatQuantity("time", c.reverse, units, 2)}
+                </td>
+                <td className="pr-4 font-mono whitespace-nowrap max-sm:pr-0">
+                  <PhoneLabel>Difference</PhoneLabel>
+                  {formatQuantity("time", c.difference, units, 2)}
+                </td>
+                <td
+                  className={`pr-4 max-sm:basis-full ${c.agrees ? "text-moss" : "font-semibold text-brick"}`}
+                >
                   {c.agrees
                     ? "agree"
                     : `differ by more than ${formatQuantity("time", c.tolerance, units, 1)}: check the picks, shot positions or trigger`}

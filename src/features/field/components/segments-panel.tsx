@@ -85,7 +85,8 @@ export function SegmentsPanel({
   return (
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end gap-3">
-        <label className="flex flex-col gap-1 text-sm">
+        {/* On a phone the choice takes the full width, so "(24 picks)" is not cut off. */}
+        <label className="flex flex-col gap-1 text-sm max-sm:w-full">
           <span className="font-medium text-ink">Shot and side</span>
           <select
             className="field-input"
