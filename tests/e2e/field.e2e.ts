@@ -460,12 +460,16 @@ describe("Field check in the browser", () => {
         return out.slice(0, 6);
       });
       expect(split).toEqual([]);
-      // The shot-and-side choice takes the row's full width, so "(24 picks)" is not cut off.
+      // The shot-and-side choice takes the row's full width and its text fits, so "(24 picks)"
+      // is not cut off to "(2…".
       const shotSide = await page.getByLabel("Shot and side").evaluate((select) => ({
         width: select.getBoundingClientRect().width,
         row: select.closest("label")!.parentElement!.clientWidth,
+        content: select.scrollWidth,
+        box: select.clientWidth,
       }));
       expect(shotSide.width).toBeGreaterThanOrEqual(shotSide.row - 1);
+      expect(shotSide.content).toBeLessThanOrEqual(shotSide.box + 1);
       await screenshot(page, "field-check-phone");
 
       // Print: charts are drawn for the screen's width and not redrawn for paper. With the page

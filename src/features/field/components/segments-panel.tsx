@@ -8,8 +8,9 @@ import { useFieldResult } from "../lib/use-field-result";
 import { length, lengthNumber, localise, ms, speed } from "../lib/format";
 import { fromDisplay, inputDigits, toDisplay, unitLabel, type UnitSystem } from "@/lib/units";
 
+// Short enough that "shot at -100.00 m, geophones beyond (24 picks)" fits a 390 px phone.
 const sideLabel = (side: SpreadSide) =>
-  side === "forward" ? "geophones beyond the shot" : "geophones before the shot";
+  side === "forward" ? "geophones beyond" : "geophones before";
 
 /**
  * User-chosen segments of one shot and side: a straight-line fit per offset range (apparent
@@ -89,7 +90,7 @@ export function SegmentsPanel({
         <label className="flex flex-col gap-1 text-sm max-sm:w-full">
           <span className="font-medium text-ink">Shot and side</span>
           <select
-            className="field-input"
+            className="field-input max-sm:text-sm"
             value={Math.min(choice, sides.length - 1)}
             onChange={(e) => {
               suggestion.current++;
