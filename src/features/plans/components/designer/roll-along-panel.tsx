@@ -102,7 +102,7 @@ export function RollAlongTable({
   analysis: PlanAnalysis | null;
   units: UnitSystem;
 }) {
-  const [, setSearch] = useSearchParams();
+  const [search, setSearch] = useSearchParams();
   // The page asks the modeller for the spread named in the URL (see shownSpreadParam).
   const onShow = (spread: number) =>
     setSearch(
@@ -117,6 +117,11 @@ export function RollAlongTable({
   if (rows.length === 0) return null;
   const len = (m: number) => formatQuantity("length", m, units);
   const roll = analysis?.rollAlong;
+  // The choice shows at once; the analysis of that spread follows a moment later.
+  const requested = Number(search.get(SHOWN_SPREAD_PARAM));
+  const selected = rows.some((r) => r.index === requested && r.shots.length > 0)
+    ? requested
+    : roll?.shown;
   const judged = rows.some((r) => r.worstStatus);
   const stations = rows[rows.length - 1].lastStation;
   return (
@@ -130,7 +135,7 @@ export function RollAlongTable({
             Charts show spread
             <select
               className="field-input w-auto! px-1! py-0.5! text-xs!"
-              value={roll.shown}
+              value={selected}
               onChange={(e) => onShow(Number(e.target.value))}
             >
               {rows.map((r) => (

@@ -143,5 +143,8 @@ describe("RollAlongTable (light)", () => {
     expect(within(select).getByRole("option", { name: "3" })).toBeDisabled();
     fireEvent.change(select, { target: { value: "2" } });
     expect(screen.getByLabelText("where")).toHaveTextContent("?spread=2");
+    // The choice shows at once, before the analysis of spread 2 (still spread 1's here) lands.
+    expect(analysis.rollAlong!.shown).not.toBe(2);
+    expect(select).toHaveValue("2");
   });
 });
