@@ -28,6 +28,7 @@ export function RollAlongFields({ units }: { units: UnitSystem }) {
   const len = (m: number) => formatQuantity("length", m, units);
   const m = unitLabel("length", units);
   const spacing = line ? line.length / Math.max(1, line.stations - 1) : 0;
+  const fixedShots = (spread?.shots ?? []).filter((row) => !row.anchor).length;
   return (
     <fieldset>
       <legend className="mb-2 text-sm font-semibold text-ink">Roll-along</legend>
@@ -72,7 +73,7 @@ export function RollAlongFields({ units }: { units: UnitSystem }) {
             </Field>
           </div>
           {line ? (
-            <p className="mt-2 font-mono text-xs text-ink-soft" aria-live="polite">
+            <p className="mt-2 text-xs text-ink-soft" aria-live="polite">
               Line of {line.spreads} spreads: {line.stations} stations, numbered 1–{line.stations},
               over {len(line.length)} from {len(line.firstGeophone)} to {len(line.lastGeophone)};
               each spread moves on {line.step} stations ({len(line.step * spacing)}).
@@ -82,6 +83,14 @@ export function RollAlongFields({ units }: { units: UnitSystem }) {
               Fill in spacing ({m}), channels, spreads and overlap to see the line.
             </p>
           )}
+          {fixedShots > 0 ? (
+            <p className="mt-2 text-xs text-ink" data-testid="roll-along-fixed-shots">
+              {fixedShots === 1 ? "1 shot is" : `${fixedShots} shots are`} fixed: a fixed shot is
+              recorded by one spread only (the one whose centre is nearest). Place end and off-end
+              shots from the spread&rsquo;s start or end (Where, below) to shoot them on every
+              spread.
+            </p>
+          ) : null}
         </>
       ) : null}
     </fieldset>

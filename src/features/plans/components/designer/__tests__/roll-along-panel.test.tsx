@@ -47,6 +47,24 @@ describe("RollAlongFields (light)", () => {
     ).toBeVisible();
   });
 
+  it("says when fixed shots will be recorded by one spread only, and not once they are anchored", () => {
+    const { unmount } = render(<Fields values={form()} />);
+    fireEvent.click(screen.getByRole("checkbox", { name: /several spreads/ }));
+    // Both fixture shots are fixed (no anchor).
+    expect(screen.getByTestId("roll-along-fixed-shots")).toHaveTextContent(
+      "2 shots are fixed: a fixed shot is recorded by one spread only",
+    );
+    unmount();
+    const plan = threeLayerPlan();
+    plan.spread.shots = [
+      { position: -2.5, anchor: { to: "start", offset: -2.5 } },
+      { position: 117.5, anchor: { to: "end", offset: 2.5 } },
+    ];
+    render(<Fields values={planToForm(plan, "metric")} />);
+    fireEvent.click(screen.getByRole("checkbox", { name: /several spreads/ }));
+    expect(screen.queryByTestId("roll-along-fixed-shots")).toBeNull();
+  });
+
   it("is a form field: undo switches it off again", () => {
     render(<Fields values={form()} />);
     const box = screen.getByRole("checkbox", { name: /several spreads/ });
